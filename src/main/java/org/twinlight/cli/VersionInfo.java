@@ -1,0 +1,18 @@
+package org.twinlight.cli;
+
+import picocli.CommandLine;
+
+/** The version printed by {@code --version} and written into result files. */
+public final class VersionInfo implements CommandLine.IVersionProvider {
+
+    /** The software version, from the jar manifest, or "development" when run from classes. */
+    public static String version() {
+        String v = VersionInfo.class.getPackage().getImplementationVersion();
+        return v == null ? "development" : v;
+    }
+
+    @Override
+    public String[] getVersion() {
+        return new String[] {"twinlight " + version()};
+    }
+}

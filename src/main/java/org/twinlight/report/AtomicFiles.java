@@ -1,0 +1,64 @@
+package org.twinlight.report;
+
+import java.io.IOException;
+import java.io.OutputStream;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+
+/**
+ * Writes result files atomically: the content goes to a temporary file in the same directory,
+ * which is then moved over the target, so a crash never leaves a half-written result.
+ */
+public final class AtomicFiles {
+
+    /** Something that writes the whole content of a file to a stream. */
+    @FunctionalInterface
+    public interface Content {
+        void writeTo(OutputStream out) throws IOException;
+    }
+
+    private AtomicFiles() {
+    }
+
+    /** Writes text (UTF-8) to {@code target} atomically. */
+    public static void writeString(Path target, String text) {
+        write(target, out -> out.write(text.getBytes(StandardCharsets.UTF_8)));
+    }
+
+    /** Writes bytes to {@code target} atomically. */
+    public static void writeBytes(Path target, byte[] bytes) {
+        write(target, out -> out.write(bytes));
+    }
+
+    /**
+     * Writes {@code content} to {@code target} atomically, creating the parent directory if needed.
+     *
+     * @throws UncheckedIOException when the file cannot be written
+     */
+    public static void write(Path target, Content content) {
+        Path abs = target.toAbsolutePath();
+        Path dir = abs.getParent();
+        try {
+            Files.createDirectories(dir);
+            Path tmp = Files.createTempFile(dir, "." + abs.getFileName() + ".", ".part");
+            try {
+                try (OutputStream out = Files.newOutputStream(tmp)) {
+                    content.writeTo(out);
+                }
+                try {
+                    Files.move(tmp, abs, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+                } catch (AtomicMoveNotSupportedException e) {
+                    Files.move(tmp, abs, StandardCopyOption.REPLACE_EXISTING);
+                }
+            } finally {
+                Files.deleteIfExists(tmp);
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot write " + target + ": " + e.getMessage(), e);
+        }
+    }
+}
