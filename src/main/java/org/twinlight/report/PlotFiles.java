@@ -28,7 +28,7 @@ public final class PlotFiles {
 
     /** Applies the house style: white background, light grid, no chart border, readable fonts. */
     public static void style(XYChart chart) {
-        Styler s = chart.getStyler();
+        org.knowm.xchart.style.XYStyler s = chart.getStyler();
         s.setChartBackgroundColor(Color.WHITE);
         s.setPlotBackgroundColor(Color.WHITE);
         s.setPlotBorderVisible(true);
