@@ -14,6 +14,7 @@ import picocli.CommandLine.Option;
         description = "Eclipsing-binary light curves: inspect, period, times of minimum, model fit, dimensions.",
         subcommands = {
             CommandLine.HelpCommand.class,
+            SimulateCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 

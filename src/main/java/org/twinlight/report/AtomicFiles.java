@@ -8,6 +8,7 @@ import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.nio.file.attribute.PosixFilePermissions;
 
 /**
  * Writes result files atomically: the content goes to a temporary file in the same directory,
@@ -48,6 +49,10 @@ public final class AtomicFiles {
             try {
                 try (OutputStream out = Files.newOutputStream(tmp)) {
                     content.writeTo(out);
+                }
+                // temporary files are created private; results are ordinary readable files
+                if (Files.getFileStore(tmp).supportsFileAttributeView("posix")) {
+                    Files.setPosixFilePermissions(tmp, PosixFilePermissions.fromString("rw-r--r--"));
                 }
                 try {
                     Files.move(tmp, abs, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);

@@ -1,0 +1,161 @@
+package org.twinlight.cli;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.twinlight.BadInputException;
+import org.twinlight.eclipse.BinaryModel;
+import org.twinlight.eclipse.BinaryParameters;
+import org.twinlight.eclipse.ModelFile;
+import org.twinlight.eclipse.SyntheticLightCurve;
+import org.twinlight.photometry.LightCurve;
+import org.twinlight.photometry.LightCurveReader;
+import org.twinlight.photometry.ReadOptions;
+import org.twinlight.report.LightCurveFiles;
+import org.twinlight.time.TimeScale;
+import picocli.CommandLine.ArgGroup;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+
+/** {@code simulate}: a synthetic light curve from a model file. */
+@Command(name = "simulate", mixinStandardHelpOptions = true, versionProvider = VersionInfo.class,
+        sortOptions = false,
+        description = {"Make a synthetic light curve from a model file: noise-free, or with Gaussian noise "
+                + "from a seed (the same seed gives the same curve).",
+            "Writes CSV time,flux[,flux_err] (or time,mag[,mag_err] with --magnitudes), or a FITS binary "
+                + "table when the output name ends in .fits."})
+public final class SimulateCommand implements Callable<Integer> {
+
+    @Option(names = "--model", required = true, paramLabel = "M.json", description = "Model file (JSON).")
+    Path model;
+
+    @ArgGroup(exclusive = true, multiplicity = "1")
+    Sampling sampling;
+
+    static final class Sampling {
+        @Option(names = "--times", paramLabel = "F", description = "File whose first column holds the times to use.")
+        Path times;
+
+        @ArgGroup(exclusive = false)
+        Regular regular;
+    }
+
+    static final class Regular {
+        @Option(names = "--start", required = true, paramLabel = "T", description = "First time, days.")
+        double start;
+
+        @Option(names = "--end", required = true, paramLabel = "T", description = "Last time, days.")
+        double end;
+
+        @Option(names = "--cadence", required = true, paramLabel = "MINUTES", description = "Spacing of the times, minutes.")
+        double cadenceMinutes;
+    }
+
+    @Option(names = "--noise-ppm", paramLabel = "N", defaultValue = "0",
+            description = "Gaussian noise, parts per million of the out-of-eclipse flux (default: none).")
+    double noisePpm;
+
+    @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Seed of the noise (default: ${DEFAULT-VALUE}).")
+    long seed;
+
+    @Option(names = "--band", paramLabel = "NAME", description = "Use this band's values of the model file.")
+    String band;
+
+    @Option(names = "--gap", paramLabel = "T1:T2", description = "Leave out the times from T1 to T2 (repeatable).")
+    List<String> gaps = new ArrayList<>();
+
+    @Option(names = "--nightly-window", paramLabel = "FROM:TO",
+            description = "Keep only times whose fraction of the Julian day (0 = noon UT) lies in FROM..TO, e.g. 0.30:0.70 for nights at longitude ~0°.")
+    String nightlyWindow;
+
+    @Option(names = "--magnitudes", paramLabel = "M0",
+            description = "Write magnitudes M0 − 2.5 log10(flux) instead of flux (CSV only).")
+    Double referenceMagnitude;
+
+    @Option(names = "--time-scale", paramLabel = "SCALE", defaultValue = "unknown",
+            description = "Time scale to record in the output, e.g. BJD_TDB (default: unknown).")
+    String timeScale;
+
+    @Option(names = "--object", paramLabel = "NAME", defaultValue = "synthetic binary",
+            description = "Object name written into a FITS header.")
+    String objectName;
+
+    @Option(names = "--out", required = true, paramLabel = "F.csv|F.fits", description = "Output file (.csv or .fits).")
+    Path out;
+
+    @Override
+    public Integer call() {
+        ModelFile mf = ModelFile.read(model);
+        if (band != null && !mf.bands().containsKey(band)) {
+            throw new BadInputException(model + ": option --band: the model has no band '" + band + "'"
+                    + (mf.bands().isEmpty() ? "" : "; it has " + String.join(", ", mf.bands().keySet())));
+        }
+        BinaryParameters p = mf.forBand(band);
+        TimeScale scale = TimeScale.parse(timeScale).orElseThrow(() -> new BadInputException(
+                "option --time-scale: unknown time scale '" + timeScale + "'; expected one of " + TimeScale.acceptedLabels()));
+        double[] times;
+        if (sampling.times != null) {
+            times = LightCurveReader.read(sampling.times, ReadOptions.defaults()).timesDays();
+        } else {
+            List<SyntheticLightCurve.Gap> gapList = new ArrayList<>();
+            for (String g : gaps) {
+                double[] v = pair(g, "--gap");
+                gapList.add(new SyntheticLightCurve.Gap(v[0], v[1]));
+            }
+            double[] window = nightlyWindow == null ? null : pair(nightlyWindow, "--nightly-window");
+            try {
+                times = SyntheticLightCurve.regularTimes(sampling.regular.start, sampling.regular.end,
+                        sampling.regular.cadenceMinutes, gapList, window);
+            } catch (IllegalArgumentException e) {
+                throw new BadInputException("options --start/--end/--cadence: " + e.getMessage());
+            }
+        }
+        if (times.length == 0) {
+            throw new BadInputException("no times left to simulate: check --start/--end, --gap and --nightly-window");
+        }
+        if (!(noisePpm >= 0)) {
+            throw new BadInputException("option --noise-ppm: expected a value ≥ 0, got " + noisePpm);
+        }
+        if (Files.exists(out) && sampling.times != null && out.toAbsolutePath().normalize()
+                .equals(sampling.times.toAbsolutePath().normalize())) {
+            throw new BadInputException("option --out: " + out + " is the input times file; it is never overwritten");
+        }
+        LightCurve lc = SyntheticLightCurve.observe(new BinaryModel(p), times, noisePpm, seed,
+                out.getFileName().toString(), band, scale);
+        String name = out.getFileName().toString().toLowerCase(Locale.ROOT);
+        String note = "simulated by twinlight " + VersionInfo.version() + " from " + model.getFileName()
+                + (noisePpm > 0 ? ", noise " + noisePpm + " ppm, seed " + seed : ", noise-free");
+        if (name.endsWith(".fits") || name.endsWith(".fit") || name.endsWith(".fts")) {
+            if (referenceMagnitude != null) {
+                throw new BadInputException("option --magnitudes: FITS output holds flux; write CSV for magnitudes");
+            }
+            double ref = Math.floor(times[0] / 1000.0) * 1000.0;
+            LightCurveFiles.writeFits(lc, out, ref, objectName);
+        } else {
+            LightCurveFiles.writeCsv(lc, out, referenceMagnitude, note);
+        }
+        System.out.printf(Locale.ROOT, "wrote %s: %d points, %.4f to %.4f (%s)%n", out, lc.size(), lc.startDays(),
+                lc.endDays(), scale.label());
+        return 0;
+    }
+
+    private static double[] pair(String text, String option) {
+        String[] parts = text.split(":");
+        if (parts.length != 2) {
+            throw new BadInputException("option " + option + ": expected two numbers A:B, got '" + text + "'");
+        }
+        try {
+            double a = Double.parseDouble(parts[0].trim());
+            double b = Double.parseDouble(parts[1].trim());
+            if (!(b > a)) {
+                throw new BadInputException("option " + option + ": the second number must be larger than the first, got '" + text + "'");
+            }
+            return new double[] {a, b};
+        } catch (NumberFormatException e) {
+            throw new BadInputException("option " + option + ": expected two numbers A:B, got '" + text + "'");
+        }
+    }
+}

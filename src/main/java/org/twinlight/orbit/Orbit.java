@@ -1,0 +1,130 @@
+package org.twinlight.orbit;
+
+/**
+ * The relative orbit of an eclipsing pair, with the conventions of the interface contract:
+ * {@code epoch} is the time of primary conjunction (true anomaly ν with ν + ω = 90°, star 1
+ * behind star 2), ω is the argument of periastron of star 1 in the radial-velocity convention
+ * v₁ = γ + K₁[cos(ν+ω) + e cos ω], positive receding.
+ *
+ * <p>Lengths are in units of the semi-major axis a of the relative orbit. The distance between
+ * the stars is r = (1−e²)/(1 + e cos ν); the line-of-sight coordinate of star 1 (away from the
+ * observer) is proportional to r sin(ν+ω) sin i, and the separation projected on the sky is
+ * r·√(1 − sin²i sin²(ν+ω)) (e.g. Hilditch 2001, <i>An Introduction to Close Binary Stars</i>,
+ * ch. 2).
+ *
+ * @param periodDays orbital period, days, &gt; 0
+ * @param epochDays time of primary conjunction, days
+ * @param eccentricity 0 ≤ e &lt; 1
+ * @param omegaDeg argument of periastron of star 1, degrees
+ * @param inclinationDeg orbital inclination, degrees, 0..180
+ */
+public record Orbit(double periodDays, double epochDays, double eccentricity, double omegaDeg,
+        double inclinationDeg) {
+
+    public Orbit {
+        if (!(periodDays > 0) || !Double.isFinite(periodDays)) {
+            throw new IllegalArgumentException("period must be a positive number of days, got " + periodDays);
+        }
+        if (!Double.isFinite(epochDays)) {
+            throw new IllegalArgumentException("epoch must be a finite time, got " + epochDays);
+        }
+        if (!(eccentricity >= 0 && eccentricity < 1)) {
+            throw new IllegalArgumentException("eccentricity must be in [0, 1), got " + eccentricity);
+        }
+        if (!Double.isFinite(omegaDeg)) {
+            throw new IllegalArgumentException("omega must be finite, got " + omegaDeg);
+        }
+        if (!(inclinationDeg >= 0 && inclinationDeg <= 180)) {
+            throw new IllegalArgumentException("inclination must be in [0, 180] degrees, got " + inclinationDeg);
+        }
+    }
+
+    /**
+     * A calculator for this orbit, with the trigonometry done once. Not thread-safe in the sense
+     * that it is immutable and may be shared; it holds no mutable state.
+     */
+    public Positions positions() {
+        return new Positions(this);
+    }
+
+    /** Sky positions of the pair at given times, with the per-orbit constants computed once. */
+    public static final class Positions {
+        private final double periodDays;
+        private final double epochDays;
+        private final double e;
+        private final double sinOmega;
+        private final double cosOmega;
+        private final double sin2i;
+        private final double cos2i;
+        private final double meanAnomalyAtEpoch;
+        private final double sqrtOnePlusE;
+        private final double sqrtOneMinusE;
+        private final double oneMinusE2;
+
+        private Positions(Orbit o) {
+            periodDays = o.periodDays;
+            epochDays = o.epochDays;
+            e = o.eccentricity;
+            double w = Math.toRadians(o.omegaDeg);
+            sinOmega = Math.sin(w);
+            cosOmega = Math.cos(w);
+            double inc = Math.toRadians(o.inclinationDeg);
+            double si = Math.sin(inc);
+            sin2i = si * si;
+            double ci = Math.cos(inc);
+            cos2i = ci * ci;
+            meanAnomalyAtEpoch = KeplerEquation.meanAnomalyOfTrueAnomaly(Math.PI / 2 - w, e);
+            sqrtOnePlusE = Math.sqrt(1 + e);
+            sqrtOneMinusE = Math.sqrt(1 - e);
+            oneMinusE2 = (1 - e) * (1 + e);
+        }
+
+        /**
+         * Signed projected separation of the centres, units of a: positive when star 2 is in
+         * front (star 1 may be eclipsed: the primary side of the orbit), negative when star 1 is
+         * in front.
+         */
+        public double signedSeparation(double timeDays) {
+            double phaseRad = 2 * Math.PI * ((timeDays - epochDays) / periodDays);
+            if (e == 0) {
+                // ν + ω = 90° + phase: sin(ν+ω) = cos φ
+                double c = Math.cos(phaseRad);
+                double s = Math.sin(phaseRad);
+                double d = Math.sqrt(s * s + cos2i * c * c);
+                return c >= 0 ? d : -d;
+            }
+            double ecc = KeplerEquation.eccentricAnomaly(meanAnomalyAtEpoch + phaseRad, e);
+            double half = 0.5 * ecc;
+            double sh = Math.sin(half);
+            double ch = Math.cos(half);
+            // cos ν and sin ν from the half-angle form, no second atan
+            double y = sqrtOnePlusE * sh;
+            double x = sqrtOneMinusE * ch;
+            double n2 = x * x + y * y;
+            double cosNu = (x * x - y * y) / n2;
+            double sinNu = 2 * x * y / n2;
+            double r = oneMinusE2 / (1 + e * cosNu);
+            double sinArg = sinNu * cosOmega + cosNu * sinOmega; // sin(ν+ω)
+            double d = r * Math.sqrt(Math.max(0.0, 1 - sin2i * sinArg * sinArg));
+            return sinArg >= 0 ? d : -d;
+        }
+
+        /** Orbital phase of a time, 0 at primary conjunction, in [0, 1). */
+        public double phase(double timeDays) {
+            double ph = (timeDays - epochDays) / periodDays;
+            return ph - Math.floor(ph);
+        }
+    }
+
+    /**
+     * Phase of the secondary conjunction (ν + ω = 270°) after the primary one, in (0, 1);
+     * 0.5 for a circular orbit.
+     */
+    public double secondaryPhase() {
+        double w = Math.toRadians(omegaDeg);
+        double m1 = KeplerEquation.meanAnomalyOfTrueAnomaly(Math.PI / 2 - w, eccentricity);
+        double m2 = KeplerEquation.meanAnomalyOfTrueAnomaly(3 * Math.PI / 2 - w, eccentricity);
+        double ph = (m2 - m1) / (2 * Math.PI);
+        return ph - Math.floor(ph);
+    }
+}
