@@ -15,6 +15,7 @@ import picocli.CommandLine.Option;
         subcommands = {
             CommandLine.HelpCommand.class,
             SimulateCommand.class,
+            FitCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 

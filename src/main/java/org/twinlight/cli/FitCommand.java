@@ -1,0 +1,179 @@
+package org.twinlight.cli;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.twinlight.BadInputException;
+import org.twinlight.eclipse.ModelFile;
+import org.twinlight.fit.Baseline;
+import org.twinlight.fit.EclipseFitter;
+import org.twinlight.fit.FitData;
+import org.twinlight.fit.FitResult;
+import org.twinlight.fit.FitSettings;
+import org.twinlight.photometry.LightCurve;
+import org.twinlight.photometry.LightCurveReader;
+import org.twinlight.report.FitFiles;
+import org.twinlight.report.FitPlot;
+import org.twinlight.report.InputDigest;
+import org.twinlight.time.TimeScale;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code fit}: least-squares fit of the two-sphere model to one or more light curves. */
+@Command(name = "fit", mixinStandardHelpOptions = true, versionProvider = VersionInfo.class, sortOptions = false,
+        description = {"Fit the model of two limb-darkened spheres to one or more light curves "
+                + "(several files = several bands or instruments sharing the geometry).",
+            "Writes fit.json, residuals.csv, fit.png (one fit-BAND.png per further band) and model.json "
+                + "(the best model, usable as a starting model)."})
+public final class FitCommand implements Callable<Integer> {
+
+    @Parameters(arity = "1..*", paramLabel = "FILE", description = "Light curves: delimited text or FITS tables.")
+    List<Path> files;
+
+    @Option(names = "--model", required = true, paramLabel = "START.json", description = "Starting model (JSON model file).")
+    Path model;
+
+    @Option(names = "--free", split = ",", paramLabel = "NAME",
+            description = "Parameters to fit, comma-separated: period, epoch, radius1, radius2, inclination, "
+                    + "eccentricity, omega, surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2 "
+                    + "(or one coefficient, e.g. limbDarkening1.a). Default: epoch,radius1,radius2,inclination,"
+                    + "surfaceBrightnessRatio.")
+    List<String> free;
+
+    @Option(names = "--band", paramLabel = "NAME",
+            description = "Band of each file, once per file in order (default: the file's band column, else its name).")
+    List<String> bands = new ArrayList<>();
+
+    @Option(names = "--baseline", paramLabel = "KIND", defaultValue = "offset",
+            description = "Flux normalisation per segment: none, offset, linear or quadratic (default: ${DEFAULT-VALUE}).")
+    String baseline;
+
+    @Option(names = "--segment-gap", paramLabel = "DAYS", defaultValue = "0.5",
+            description = "Data are split into segments at gaps longer than this (default: ${DEFAULT-VALUE} d).")
+    double segmentGapDays;
+
+    @Option(names = "--max-iterations", paramLabel = "N", defaultValue = "200",
+            description = "Iteration limit of the solver (default: ${DEFAULT-VALUE}).")
+    int maxIterations;
+
+    @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
+    Path out;
+
+    @Mixin
+    PhotometryOptions photometry;
+
+    @Override
+    public Integer call() {
+        ModelFile start = ModelFile.read(model);
+        if (!bands.isEmpty() && bands.size() != files.size()) {
+            throw new BadInputException("option --band: given " + bands.size() + " time(s) for " + files.size()
+                    + " file(s); give it once per file, in order, or not at all");
+        }
+        Baseline base = Baseline.parse(baseline).orElseThrow(() -> new BadInputException(
+                "option --baseline: expected none, offset, linear or quadratic, got '" + baseline + "'"));
+        if (!(segmentGapDays > 0)) {
+            throw new BadInputException("option --segment-gap: expected a positive number of days, got " + segmentGapDays);
+        }
+        if (maxIterations < 1) {
+            throw new BadInputException("option --max-iterations: expected a positive integer, got " + maxIterations);
+        }
+        FitSettings settings = new FitSettings(
+                new LinkedHashSet<>(free == null || free.isEmpty() ? FitSettings.DEFAULT_FREE : trimmed(free)), base,
+                segmentGapDays, maxIterations);
+
+        List<FitData> data = new ArrayList<>();
+        List<FitFiles.InputRecord> inputs = new ArrayList<>();
+        TimeScale scale = null;
+        Path scaleFrom = null;
+        for (int i = 0; i < files.size(); i++) {
+            Path f = files.get(i);
+            LightCurve lc = LightCurveReader.read(f, photometry.toReadOptions());
+            String band = !bands.isEmpty() ? bands.get(i) : lc.band() != null ? lc.band() : baseName(f);
+            if (scale == null) {
+                scale = lc.timeScale();
+                scaleFrom = f;
+            } else if (!scale.equals(lc.timeScale())) {
+                throw new BadInputException(f + ": its times are " + lc.timeScale().label() + " but " + scaleFrom
+                        + " has " + scale.label() + "; convert them to one time scale first (the time command)");
+            }
+            data.add(new FitData(lc, band));
+            inputs.add(new FitFiles.InputRecord(f.toString(), InputDigest.sha256(f), band, lc.size()));
+            if (lc.rejectedCount() > 0) {
+                System.out.printf(Locale.ROOT, "%s: %d row(s) not used: %s%n", f, lc.rejectedCount(), lc.rejectedRows());
+            }
+        }
+        checkOutputIsNotInput(out, files, model);
+
+        FitResult r = EclipseFitter.fit(start, data, settings);
+
+        FitFiles.writeJson(out.resolve("fit.json"),
+                FitFiles.fitJson(r, settings, scale, inputs, VersionInfo.version()));
+        FitFiles.writeResiduals(out.resolve("residuals.csv"), r, scale);
+        FitFiles.writeJson(out.resolve("model.json"), r.model().toJson());
+        List<String> bandList = data.stream().map(FitData::band).distinct().toList();
+        String title = "twinlight fit of " + files.get(0).getFileName();
+        FitPlot.write(r, bandList.get(0), out.resolve("fit.png"), title);
+        for (int b = 1; b < bandList.size(); b++) {
+            FitPlot.write(r, bandList.get(b), out.resolve("fit-" + safe(bandList.get(b)) + ".png"), title);
+        }
+        System.out.print(FitFiles.summary(r, scale));
+        System.out.println("caution: " + FitFiles.CAUTION);
+        System.out.println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
+        return 0;
+    }
+
+    private static List<String> trimmed(List<String> names) {
+        List<String> t = new ArrayList<>();
+        for (String n : names) {
+            if (!n.isBlank()) {
+                t.add(n.trim());
+            }
+        }
+        return t;
+    }
+
+    static String baseName(Path f) {
+        String n = f.getFileName().toString();
+        int dot = n.lastIndexOf('.');
+        return dot > 0 ? n.substring(0, dot) : n;
+    }
+
+    private static String safe(String s) {
+        return s.replaceAll("[^A-Za-z0-9_.-]", "_");
+    }
+
+    /** Refuses an output directory whose result names would overwrite an input file. */
+    static void checkOutputIsNotInput(Path outDir, List<Path> inputs, Path... more) {
+        List<Path> all = new ArrayList<>(inputs);
+        all.addAll(List.of(more));
+        Map<String, Path> targets = new LinkedHashMap<>();
+        for (String name : List.of("fit.json", "residuals.csv", "model.json", "fit.png")) {
+            targets.put(name, outDir.resolve(name).toAbsolutePath().normalize());
+        }
+        for (Path in : all) {
+            Path a = in.toAbsolutePath().normalize();
+            for (Path t : targets.values()) {
+                if (t.equals(a) || (Files.exists(t) && Files.exists(a) && sameFile(t, a))) {
+                    throw new BadInputException("option --out: writing " + t.getFileName() + " there would overwrite the input "
+                            + in + "; choose another output directory");
+                }
+            }
+        }
+    }
+
+    private static boolean sameFile(Path a, Path b) {
+        try {
+            return Files.isSameFile(a, b);
+        } catch (java.io.IOException e) {
+            return false;
+        }
+    }
+}

@@ -1,0 +1,184 @@
+package org.twinlight.report;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.io.OutputStreamWriter;
+import java.io.Writer;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Locale;
+
+import org.twinlight.fit.Estimate;
+import org.twinlight.fit.FitResult;
+import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.FittedCurve;
+import org.twinlight.time.TimeScale;
+
+/** Writes the results of a fit: {@code fit.json}, {@code residuals.csv} and the best model file. */
+public final class FitFiles {
+    /** The caution every fit result carries. */
+    public static final String CAUTION = "The fitted parameters depend on the model's assumptions: two spherical "
+            + "stars without reflection, ellipsoidal or beaming effects, the chosen limb-darkening law, and the "
+            + "stated third light. Check them (residuals, correlations, other limb-darkening choices) before "
+            + "publication.";
+
+    private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+
+    /**
+     * One input file as recorded in results.
+     *
+     * @param file path as given
+     * @param sha256 digest of its bytes
+     * @param band band it was fitted in
+     * @param points number of points used
+     */
+    public record InputRecord(String file, String sha256, String band, int points) {
+    }
+
+    private FitFiles() {
+    }
+
+    /** The {@code fit.json} document. */
+    public static ObjectNode fitJson(FitResult r, FitSettings settings, TimeScale scale, List<InputRecord> inputs,
+            String softwareVersion) {
+        ObjectNode root = JSON.createObjectNode();
+        boolean multiBand = r.curves().stream().map(FittedCurve::band).distinct().count() > 1;
+        ObjectNode params = root.putObject("parameters");
+        putEstimates(params, r.parameters(), multiBand);
+        ObjectNode derived = root.putObject("derived");
+        putEstimates(derived, r.derived(), multiBand);
+        ObjectNode stats = root.putObject("statistics");
+        stats.put("n", r.n());
+        stats.put("chi2", r.chi2());
+        stats.put("reducedChi2", r.reducedChi2());
+        stats.put("rms", r.rms());
+        stats.put("bic", r.bic());
+        stats.put("fittedQuantities", r.freeCount());
+        stats.put("iterations", r.iterations());
+        stats.put("evaluations", r.evaluations());
+        stats.put("errorsEstimatedFromScatter", r.errorsEstimated());
+        ObjectNode corr = root.putObject("correlation");
+        ArrayNode names = corr.putArray("names");
+        r.freeNames().forEach(names::add);
+        ArrayNode matrix = corr.putArray("matrix");
+        for (double[] row : r.correlation()) {
+            ArrayNode a = matrix.addArray();
+            for (double v : row) {
+                a.add(Math.round(v * 1e6) / 1e6);
+            }
+        }
+        root.set("model", r.model().toJson());
+        root.put("timeScale", scale.label());
+        ObjectNode input = root.putObject("input");
+        input.put("file", inputs.get(0).file());
+        input.put("sha256", inputs.get(0).sha256());
+        ArrayNode files = input.putArray("files");
+        for (InputRecord in : inputs) {
+            ObjectNode f = files.addObject();
+            f.put("file", in.file());
+            f.put("sha256", in.sha256());
+            f.put("band", in.band());
+            f.put("points", in.points());
+        }
+        ObjectNode sw = root.putObject("software");
+        sw.put("name", "twinlight");
+        sw.put("version", softwareVersion);
+        ObjectNode set = root.putObject("settings");
+        ArrayNode free = set.putArray("free");
+        settings.free().forEach(free::add);
+        set.put("baseline", settings.baseline().label());
+        set.put("segmentGapDays", settings.segmentGapDays());
+        set.put("maxIterations", settings.maxIterations());
+        set.put("method", "Levenberg-Marquardt least squares; uncertainties from the covariance scaled by the reduced chi-square");
+        ArrayNode notes = root.putArray("notes");
+        r.notes().forEach(notes::add);
+        root.put("caution", CAUTION);
+        return root;
+    }
+
+    private static void putEstimates(ObjectNode target, List<Estimate> list, boolean multiBand) {
+        for (Estimate e : list) {
+            ObjectNode holder = target;
+            if (multiBand && e.band() != null) {
+                ObjectNode bands = target.has("bands") ? (ObjectNode) target.get("bands") : target.putObject("bands");
+                holder = bands.has(e.band()) ? (ObjectNode) bands.get(e.band()) : bands.putObject(e.band());
+            }
+            ObjectNode o = holder.putObject(e.name());
+            o.put("value", e.value());
+            o.put("uncertainty", e.uncertainty());
+            o.put("free", e.free());
+        }
+    }
+
+    /** Writes a JSON document atomically. */
+    public static void writeJson(Path target, ObjectNode doc) {
+        try {
+            AtomicFiles.writeString(target, JSON.writeValueAsString(doc) + "\n");
+        } catch (JsonProcessingException e) {
+            throw new IllegalStateException("cannot serialise " + target, e);
+        }
+    }
+
+    /**
+     * {@code residuals.csv}: time, phase, band, flux (baseline divided out), error, model,
+     * residual, one row per point, after a {@code #} line with the time scale.
+     */
+    public static void writeResiduals(Path target, FitResult r, TimeScale scale) {
+        double period = r.model().common().periodDays();
+        double epoch = r.model().common().epochDays();
+        AtomicFiles.write(target, out -> {
+            Writer w = new OutputStreamWriter(out, StandardCharsets.UTF_8);
+            w.write("# time scale: " + scale.label() + "; flux divided by the fitted baseline; phase 0 = primary eclipse\n");
+            w.write("time,phase,band,flux,error,model,residual\n");
+            for (FittedCurve c : r.curves()) {
+                for (int i = 0; i < c.size(); i++) {
+                    double t = c.timesDays()[i];
+                    double ph = (t - epoch) / period;
+                    ph -= Math.floor(ph);
+                    w.write(String.format(Locale.ROOT, "%s,%.7f,%s,%.8f,%.3e,%.8f,%.3e%n", Double.toString(t), ph,
+                            c.band(), c.flux()[i], c.errors()[i], c.model()[i], c.residual(i)));
+                }
+            }
+            w.flush();
+        });
+    }
+
+    /** A plain-text table of the estimates, for the terminal. */
+    public static String summary(FitResult r, TimeScale scale) {
+        StringBuilder sb = new StringBuilder();
+        sb.append(String.format(Locale.ROOT, "%-28s %18s %14s%n", "parameter", "value", "uncertainty"));
+        for (Estimate e : r.parameters()) {
+            sb.append(row(e));
+        }
+        sb.append(String.format(Locale.ROOT, "%n%-28s %18s %14s%n", "derived", "value", "uncertainty"));
+        for (Estimate e : r.derived()) {
+            sb.append(row(e));
+        }
+        sb.append(String.format(Locale.ROOT, "%nn = %d, chi2 = %.2f, reduced chi2 = %.3f, rms = %.1f ppm, BIC = %.2f, "
+                + "%d iterations; times in %s%n", r.n(), r.chi2(), r.reducedChi2(), r.rms() * 1e6, r.bic(),
+                r.iterations(), scale.label()));
+        for (String n : r.notes()) {
+            sb.append("note: ").append(n).append('\n');
+        }
+        return sb.toString();
+    }
+
+    private static String row(Estimate e) {
+        String name = e.band() == null ? e.name() : e.name() + " [" + e.band() + "]";
+        String unc = e.free() ? format(e.uncertainty()) : "fixed";
+        return String.format(Locale.ROOT, "%-28s %18s %14s%n", name, format(e.value()), unc);
+    }
+
+    private static String format(double v) {
+        double a = Math.abs(v);
+        if (a >= 1e5) {
+            return String.format(Locale.ROOT, "%.6f", v);
+        }
+        return String.format(Locale.ROOT, "%.7g", v);
+    }
+
+}
