@@ -35,6 +35,9 @@ import picocli.CommandLine.Parameters;
                 + "(the best model, usable as a starting model)."})
 public final class FitCommand implements Callable<Integer> {
 
+    @picocli.CommandLine.Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
     @Parameters(arity = "1..*", paramLabel = "FILE", description = "Light curves: delimited text or FITS tables.")
     List<Path> files;
 
@@ -107,7 +110,7 @@ public final class FitCommand implements Callable<Integer> {
             data.add(new FitData(lc, band));
             inputs.add(new FitFiles.InputRecord(f.toString(), InputDigest.sha256(f), band, lc.size()));
             if (lc.rejectedCount() > 0) {
-                System.out.printf(Locale.ROOT, "%s: %d row(s) not used: %s%n", f, lc.rejectedCount(), lc.rejectedRows());
+                console().printf(Locale.ROOT, "%s: %d row(s) not used: %s%n", f, lc.rejectedCount(), lc.rejectedRows());
             }
         }
         checkOutputIsNotInput(out, files, model);
@@ -124,9 +127,9 @@ public final class FitCommand implements Callable<Integer> {
         for (int b = 1; b < bandList.size(); b++) {
             FitPlot.write(r, bandList.get(b), out.resolve("fit-" + safe(bandList.get(b)) + ".png"), title);
         }
-        System.out.print(FitFiles.summary(r, scale));
-        System.out.println("caution: " + FitFiles.CAUTION);
-        System.out.println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
+        console().print(FitFiles.summary(r, scale));
+        console().println("caution: " + FitFiles.CAUTION);
+        console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
         return 0;
     }
 
@@ -175,5 +178,9 @@ public final class FitCommand implements Callable<Integer> {
         } catch (java.io.IOException e) {
             return false;
         }
+    }
+
+    private java.io.PrintWriter console() {
+        return spec.commandLine().getOut();
     }
 }

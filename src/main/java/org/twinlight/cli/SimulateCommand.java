@@ -29,6 +29,9 @@ import picocli.CommandLine.Option;
                 + "table when the output name ends in .fits."})
 public final class SimulateCommand implements Callable<Integer> {
 
+    @picocli.CommandLine.Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
     @Option(names = "--model", required = true, paramLabel = "M.json", description = "Model file (JSON).")
     Path model;
 
@@ -137,7 +140,7 @@ public final class SimulateCommand implements Callable<Integer> {
         } else {
             LightCurveFiles.writeCsv(lc, out, referenceMagnitude, note);
         }
-        System.out.printf(Locale.ROOT, "wrote %s: %d points, %.4f to %.4f (%s)%n", out, lc.size(), lc.startDays(),
+        console().printf(Locale.ROOT, "wrote %s: %d points, %.4f to %.4f (%s)%n", out, lc.size(), lc.startDays(),
                 lc.endDays(), scale.label());
         return 0;
     }
@@ -157,5 +160,9 @@ public final class SimulateCommand implements Callable<Integer> {
         } catch (NumberFormatException e) {
             throw new BadInputException("option " + option + ": expected two numbers A:B, got '" + text + "'");
         }
+    }
+
+    private java.io.PrintWriter console() {
+        return spec.commandLine().getOut();
     }
 }

@@ -16,6 +16,7 @@ import picocli.CommandLine.Option;
             CommandLine.HelpCommand.class,
             SimulateCommand.class,
             FitCommand.class,
+            BenchCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 

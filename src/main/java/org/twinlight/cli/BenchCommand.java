@@ -1,0 +1,117 @@
+package org.twinlight.cli;
+
+import java.util.Arrays;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.twinlight.eclipse.BinaryModel;
+import org.twinlight.eclipse.BinaryParameters;
+import org.twinlight.eclipse.LimbDarkening;
+import org.twinlight.eclipse.ModelFile;
+import org.twinlight.eclipse.SyntheticLightCurve;
+import org.twinlight.fit.EclipseFitter;
+import org.twinlight.fit.FitData;
+import org.twinlight.fit.FitResult;
+import org.twinlight.fit.FitSettings;
+import org.twinlight.orbit.Orbit;
+import org.twinlight.photometry.LightCurve;
+import org.twinlight.time.TimeScale;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+
+/**
+ * {@code bench}: measures the speed of the model and the fit on a standard synthetic light curve,
+ * so the figures in docs/performance.md can be reproduced on any machine.
+ */
+@Command(name = "bench", mixinStandardHelpOptions = true, versionProvider = VersionInfo.class, sortOptions = false,
+        description = {"Measure the speed of the eclipse model and of a fit on a standard synthetic light curve: "
+                + "20,000 points at 2-minute cadence, circular orbit, quadratic limb darkening, about 8%% of the "
+                + "points in eclipse.",
+            "Model timings are single-threaded; the fit time is wall-clock time."})
+public final class BenchCommand implements Callable<Integer> {
+
+    @picocli.CommandLine.Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Option(names = "--repeats", paramLabel = "N", defaultValue = "200",
+            description = "Timed repetitions of each model measurement (default: ${DEFAULT-VALUE}).")
+    int repeats;
+
+    @Option(names = "--fits", paramLabel = "N", defaultValue = "5", description = "Timed fits (default: ${DEFAULT-VALUE}).")
+    int fits;
+
+    /** The benchmark system (demo values): r₁ + r₂ = 0.126 puts about 8 % of the phase in eclipse. */
+    static final BinaryParameters SYSTEM = new BinaryParameters(2.4683, 2460200.3121, 0.075, 0.051, 89.1, 0, 90,
+            0.71, 0, LimbDarkening.quadratic(0.42, 0.23), LimbDarkening.quadratic(0.48, 0.21), 0, 1);
+
+    @Override
+    public Integer call() {
+        if (repeats < 1 || fits < 1) {
+            throw new org.twinlight.BadInputException("options --repeats and --fits: expected positive integers");
+        }
+        double[] t = SyntheticLightCurve.regularTimes(2460200.0, 2460200.0 + 19999 * 2.0 / 1440, 2.0, List.of(), null);
+        BinaryModel model = new BinaryModel(SYSTEM);
+        Orbit.Positions positions = SYSTEM.orbit().positions();
+        double[] out = new double[t.length];
+        int eclipsed = 0;
+        model.flux(t, out);
+        for (double f : out) {
+            if (f < 1) {
+                eclipsed++;
+            }
+        }
+        console().printf(Locale.ROOT, "light curve: %d points, %.1f%% in eclipse%n", t.length, 100.0 * eclipsed / t.length);
+
+        double[] sink = new double[1];
+        Runnable positionsOnly = () -> {
+            double s = 0;
+            for (double ti : t) {
+                s += positions.signedSeparation(ti);
+            }
+            sink[0] += s;
+        };
+        Runnable fullModel = () -> model.flux(t, out);
+        double posMs = medianMillis(positionsOnly, repeats);
+        double modelMs = medianMillis(fullModel, repeats);
+        console().printf(Locale.ROOT, "orbital positions only: %.3f ms per evaluation (median of %d)%n", posMs, repeats);
+        console().printf(Locale.ROOT, "full model:             %.3f ms per evaluation (median of %d), %.2f x positions%n",
+                modelMs, repeats, modelMs / posMs);
+
+        LightCurve lc = SyntheticLightCurve.observe(model, t, 300, 7, "bench", "bench", TimeScale.BJD_TDB);
+        ModelFile start = ModelFile.of(SYSTEM.withRadii(SYSTEM.radius1() * 1.05, SYSTEM.radius2() * 0.95)
+                .withInclinationDeg(SYSTEM.inclinationDeg() - 0.5).withSurfaceBrightnessRatio(0.75)
+                .withEpochDays(SYSTEM.epochDays() + 0.001));
+        FitSettings settings = FitSettings.defaults().withFree(new LinkedHashSet<>(FitSettings.DEFAULT_FREE));
+        EclipseFitter.fit(start, List.of(new FitData(lc, "bench")), settings); // warm-up
+        double[] fitMs = new double[fits];
+        FitResult last = null;
+        for (int k = 0; k < fits; k++) {
+            long t0 = System.nanoTime();
+            last = EclipseFitter.fit(start, List.of(new FitData(lc, "bench")), settings);
+            fitMs[k] = (System.nanoTime() - t0) / 1e6;
+        }
+        Arrays.sort(fitMs);
+        console().printf(Locale.ROOT, "fit (5 free parameters + offset): %.0f ms wall (median of %d), %d iterations, "
+                + "%d evaluations%n", fitMs[fits / 2], fits, last.iterations(), last.evaluations());
+        return 0;
+    }
+
+    private static double medianMillis(Runnable r, int repeats) {
+        for (int i = 0; i < Math.max(20, repeats / 5); i++) {
+            r.run();
+        }
+        double[] ms = new double[repeats];
+        for (int i = 0; i < repeats; i++) {
+            long t0 = System.nanoTime();
+            r.run();
+            ms[i] = (System.nanoTime() - t0) / 1e6;
+        }
+        Arrays.sort(ms);
+        return ms[repeats / 2];
+    }
+
+    private java.io.PrintWriter console() {
+        return spec.commandLine().getOut();
+    }
+}

@@ -1,0 +1,63 @@
+package org.twinlight.architecture;
+
+import static com.tngtech.archunit.lang.syntax.ArchRuleDefinition.noClasses;
+import static com.tngtech.archunit.library.dependencies.SlicesRuleDefinition.slices;
+
+import com.tngtech.archunit.core.domain.JavaClasses;
+import com.tngtech.archunit.core.importer.ClassFileImporter;
+import com.tngtech.archunit.core.importer.ImportOption;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The layering of STYLE/DEVELOPERS.md held by test: the library core (photometry, time, orbit,
+ * eclipse, fit, timing, dimensions) knows nothing of the command line, plots or the report layer;
+ * arrows point inwards only; no package cycles.
+ */
+class LayeringTest {
+    private static final String[] CORE = {"org.twinlight.photometry..", "org.twinlight.time..", "org.twinlight.orbit..",
+        "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions.."};
+
+    private static JavaClasses classes;
+
+    @BeforeAll
+    static void importClasses() {
+        classes = new ClassFileImporter().withImportOption(ImportOption.Predefined.DO_NOT_INCLUDE_TESTS)
+                .importPackages("org.twinlight");
+    }
+
+    @Test
+    void coreDoesNotUseCommandLineOrPlots() {
+        noClasses().that().resideInAnyPackage(CORE)
+                .should().dependOnClassesThat().resideInAnyPackage("picocli..", "org.knowm.xchart..", "java.awt..",
+                        "javax.imageio..", "org.twinlight.cli..", "org.twinlight.report..")
+                .check(classes);
+    }
+
+    @Test
+    void reportDoesNotUseCommandLine() {
+        noClasses().that().resideInAPackage("org.twinlight.report..")
+                .should().dependOnClassesThat().resideInAnyPackage("picocli..", "org.twinlight.cli..")
+                .check(classes);
+    }
+
+    @Test
+    void timeAndOrbitAreIndependent() {
+        noClasses().that().resideInAnyPackage("org.twinlight.time..", "org.twinlight.orbit..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.eclipse..",
+                        "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..")
+                .check(classes);
+    }
+
+    @Test
+    void eclipseModelDoesNotKnowTheFit() {
+        noClasses().that().resideInAnyPackage("org.twinlight.eclipse..", "org.twinlight.orbit..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.fit..", "org.twinlight.timing..")
+                .check(classes);
+    }
+
+    @Test
+    void noPackageCycles() {
+        slices().matching("org.twinlight.(*)..").should().beFreeOfCycles().check(classes);
+    }
+}
