@@ -12,6 +12,8 @@ import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.twinlight.time.TimeConverter;
+import org.twinlight.time.TimeScale;
 import picocli.CommandLine;
 
 class TimeCommandTest {
@@ -57,6 +59,9 @@ class TimeCommandTest {
         String[] row = lines.get(2).split(",");
         assertThat(row[0]).isEqualTo("2460000.5");
         assertThat((Double.parseDouble(row[1]) - 2460000.5) * 86400).isCloseTo(69.184, offset(1e-4));
+        // full double precision: the text reads back to exactly the library's value
+        assertThat(Double.parseDouble(row[1])).isEqualTo(TimeConverter.convert(2460000.5, TimeScale.JD_UTC,
+                TimeScale.parse("JD_TT").orElseThrow(), null));
     }
 
     @Test

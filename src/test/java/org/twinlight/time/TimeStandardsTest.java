@@ -73,6 +73,28 @@ class TimeStandardsTest {
     }
 
     @Test
+    void everyLeapSecondOfTheTableIsCountedAndInverted() {
+        // Each 1 Jan / 1 Jul change of TAI − UTC (ERFA dat.c table) inserts 23:59:60 at the end of the
+        // previous UTC day: 0.5 s before midnight to 0.5 s after it is 2 SI seconds.
+        int[][] changes = {{1972, 7}, {1973, 1}, {1981, 7}, {1985, 7}, {1990, 1}, {1992, 7}, {1997, 7},
+            {2006, 1}, {2012, 7}, {2015, 7}, {2017, 1}};
+        for (int[] c : changes) {
+            double changeJd = new CalendarDate(c[0], c[1], 1).toJulianDay();
+            CalendarDate eve = CalendarDate.fromJulianDay(changeJd - 1);
+            JulianDate a = JulianDate.ofDateTime(eve.year(), eve.month(), (int) eve.day(), 23, 59, 59.5, TimeScale.JD_UTC);
+            JulianDate leap = JulianDate.ofDateTime(eve.year(), eve.month(), (int) eve.day(), 23, 59, 60.25, TimeScale.JD_UTC);
+            JulianDate b = JulianDate.ofDateTime(c[0], c[1], 1, 0, 0, 0.5, TimeScale.JD_UTC);
+            assertThat(TimeStandards.utcToTai(b).secondsSince(TimeStandards.utcToTai(a))).isCloseTo(2.0, offset(1e-6));
+            assertThat(TimeStandards.utcToTai(leap).secondsSince(TimeStandards.utcToTai(a))).isCloseTo(0.75, offset(1e-6));
+            for (JulianDate utc : new JulianDate[] {a, leap, b}) {
+                JulianDate back = TimeStandards.taiToUtc(TimeStandards.utcToTai(utc));
+                assertThat(back.dayStartJd()).isEqualTo(utc.dayStartJd());
+                assertThat((back.fractionOfDay() - utc.fractionOfDay()) * 86400).isCloseTo(0, offset(1e-9));
+            }
+        }
+    }
+
+    @Test
     void tdbMinusTtMatchesTheFullSeriesAtTheTestEpochs() {
         // ERFA eraDtdb (Fairhead & Bretagnon 1990, 787 terms), geocentric, via pyerfa (REFERENCE-VALUES
         // §4 "Test values", VC): −9.931e-5 s at JD 2451545.0 and +1.28387e-3 s at JD 2460000.5. Our
