@@ -54,25 +54,6 @@ class TimeStandardsTest {
     }
 
     @Test
-    void leapSecondIsCountedAcrossTheEndOf2016() {
-        // 2016 Dec 31 ended with 23:59:60 UTC (TAI−UTC 36 → 37 s, ERFA dat.c).
-        JulianDate before = JulianDate.ofDateTime(2016, 12, 31, 23, 59, 59.0, TimeScale.JD_UTC);
-        JulianDate inside = JulianDate.ofDateTime(2016, 12, 31, 23, 59, 60.5, TimeScale.JD_UTC);
-        JulianDate after = JulianDate.ofDateTime(2017, 1, 1, 0, 0, 1.0, TimeScale.JD_UTC);
-        JulianDate taiBefore = TimeStandards.utcToTai(before);
-        JulianDate taiInside = TimeStandards.utcToTai(inside);
-        JulianDate taiAfter = TimeStandards.utcToTai(after);
-        assertThat(taiInside.secondsSince(taiBefore)).isCloseTo(1.5, offset(1e-6));
-        assertThat(taiAfter.secondsSince(taiBefore)).isCloseTo(3.0, offset(1e-6));
-        // and back, including the instant inside the leap second
-        for (JulianDate utc : new JulianDate[] {before, inside, after}) {
-            JulianDate back = TimeStandards.taiToUtc(TimeStandards.utcToTai(utc));
-            assertThat(back.dayStartJd()).isEqualTo(utc.dayStartJd());
-            assertThat((back.fractionOfDay() - utc.fractionOfDay()) * 86400).isCloseTo(0, offset(1e-9));
-        }
-    }
-
-    @Test
     void everyLeapSecondOfTheTableIsCountedAndInverted() {
         // Each 1 Jan / 1 Jul change of TAI − UTC (ERFA dat.c table) inserts 23:59:60 at the end of the
         // previous UTC day: 0.5 s before midnight to 0.5 s after it is 2 SI seconds.
