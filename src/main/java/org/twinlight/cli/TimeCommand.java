@@ -1,0 +1,162 @@
+package org.twinlight.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.UncheckedIOException;
+import java.math.BigDecimal;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.twinlight.BadInputException;
+import org.twinlight.report.AtomicFiles;
+import org.twinlight.time.SkyDirection;
+import org.twinlight.time.TimeConverter;
+import org.twinlight.time.TimeScale;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code time FILE --from S --to S [--ra R --dec D] [--out F.csv] [--column NAME|N]}: converts a
+ * column of times between time scales and writes CSV {@code time_in,time_out}.
+ */
+@Command(name = "time",
+        mixinStandardHelpOptions = true,
+        description = {
+            "Converts a column of times between time scales: JD, HJD or BJD on the UTC, TAI, TT or TDB clock,"
+                    + " as Julian days or modified Julian days (e.g. JD_UTC → BJD_TDB).",
+            "Writes CSV time_in,time_out (full double precision) after a comment line naming both scales.",
+            "HJD and BJD need the target's J2000 right ascension and declination. UTC before 1972 is refused;"
+                    + " heliocentric and barycentric corrections cover 1800–2050. See docs/time-scales.md."
+        })
+public final class TimeCommand implements Callable<Integer> {
+
+    @Parameters(index = "0", paramLabel = "FILE",
+            description = "Text file with a column of times (comma, tab, semicolon or white space separated;"
+                    + " # comments; optional header row).")
+    Path file;
+
+    @Option(names = "--from", paramLabel = "SCALE",
+            description = "Time scale of the input times: JD, HJD, BJD, MJD, HMJD or BMJD, then _UTC, _TAI, _TT"
+                    + " or _TDB (e.g. JD_UTC, HJD_UTC, BJD_TDB, MJD_UTC)."
+                    + " Required: times with no declared scale are refused.")
+    String from;
+
+    @Option(names = "--to", paramLabel = "SCALE", description = "Time scale to convert to (same forms as --from).")
+    String to;
+
+    @Option(names = "--ra", paramLabel = "RA",
+            description = "Target right ascension, J2000: decimal degrees or hh:mm:ss.s. Needed when HJD or BJD is involved.")
+    String ra;
+
+    @Option(names = "--dec", paramLabel = "DEC",
+            description = "Target declination, J2000: decimal degrees or ±dd:mm:ss.s. Needed when HJD or BJD is involved.")
+    String dec;
+
+    @Option(names = "--out", paramLabel = "F.csv",
+            description = "Write the CSV to this file (written atomically); default: standard output.")
+    Path out;
+
+    @Option(names = "--column", paramLabel = "NAME|N",
+            description = "Column holding the times, by header name or 1-based number (default: the first numeric column).")
+    String column;
+
+    @Spec
+    CommandSpec spec;
+
+    @Override
+    public Integer call() {
+        TimeScale fromScale = scaleOption("--from", from, "the input times have no declared time scale");
+        TimeScale toScale = scaleOption("--to", to, "no time scale to convert to was given");
+        SkyDirection direction = direction(fromScale, toScale);
+        if (out != null && sameFile(out, file)) {
+            throw new BadInputException("option --out: " + out + " is the input file, which is never overwritten;"
+                    + " choose another output file");
+        }
+        TimeColumnFile.Column times = TimeColumnFile.read(file, column);
+
+        StringBuilder csv = new StringBuilder();
+        csv.append("# time_in: ").append(fromScale.label()).append("; time_out: ").append(toScale.label());
+        if (direction != null) {
+            csv.append(String.format(Locale.ROOT, "; target RA %.6f deg, Dec %+.6f deg (J2000)",
+                    direction.raDeg(), direction.decDeg()));
+        }
+        csv.append("; input ").append(file.getFileName()).append(", ").append(times.name()).append('\n');
+        csv.append("time_in,time_out\n");
+        for (TimeColumnFile.Entry entry : times.entries()) {
+            double converted;
+            try {
+                converted = TimeConverter.convert(entry.value(), fromScale, toScale, direction);
+            } catch (BadInputException e) {
+                throw BadInputException.at(file, "line " + entry.line(), times.name(), e.getMessage());
+            }
+            csv.append(entry.text()).append(',').append(plain(converted)).append('\n');
+        }
+
+        if (out == null) {
+            PrintWriter w = spec.commandLine().getOut();
+            w.print(csv);
+            w.flush();
+        } else {
+            AtomicFiles.writeString(out, csv.toString());
+            spec.commandLine().getOut().printf("%d times converted from %s to %s: %s%n",
+                    times.entries().size(), fromScale.label(), toScale.label(), out);
+        }
+        return 0;
+    }
+
+    private static TimeScale scaleOption(String option, String text, String missing) {
+        if (text == null) {
+            throw new BadInputException(missing + ": give " + option + " SCALE, one of "
+                    + TimeScale.acceptedLabels().replace(", unknown", ""));
+        }
+        TimeScale scale = TimeScale.parse(text).orElseThrow(() -> new BadInputException(
+                "option " + option + ": unknown time scale '" + text + "'; expected one of "
+                        + TimeScale.acceptedLabels().replace(", unknown", "")));
+        if (!scale.isKnown()) {
+            throw new BadInputException("option " + option + ": times with an unknown time scale cannot be"
+                    + " converted; declare the scale, e.g. JD_UTC, HJD_UTC or BJD_TDB");
+        }
+        return scale;
+    }
+
+    private SkyDirection direction(TimeScale fromScale, TimeScale toScale) {
+        if (!TimeConverter.needsDirection(fromScale, toScale)) {
+            return null;
+        }
+        if (ra == null || dec == null) {
+            throw new BadInputException("converting " + fromScale.label() + " to " + toScale.label()
+                    + " needs the target's position: give --ra and --dec (J2000; degrees, or hh:mm:ss.s and ±dd:mm:ss)");
+        }
+        double raDeg;
+        double decDeg;
+        try {
+            raDeg = SkyDirection.parseRaDeg(ra);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("option --ra: " + e.getMessage());
+        }
+        try {
+            decDeg = SkyDirection.parseDecDeg(dec);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("option --dec: " + e.getMessage());
+        }
+        return new SkyDirection(raDeg, decDeg);
+    }
+
+    private static boolean sameFile(Path a, Path b) {
+        try {
+            return Files.exists(a) && Files.exists(b) && Files.isSameFile(a, b);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+    }
+
+    /** Shortest text that reads back to the same double, never in exponent form. */
+    private static String plain(double value) {
+        String s = Double.toString(value);
+        return s.indexOf('E') < 0 ? s : new BigDecimal(s).toPlainString();
+    }
+}

@@ -1,0 +1,155 @@
+package org.twinlight.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.data.Offset.offset;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.twinlight.time.TimeConverter;
+import org.twinlight.time.TimeScale;
+import picocli.CommandLine;
+
+class TimeCommandTest {
+
+    @TempDir
+    Path dir;
+
+    private final StringWriter out = new StringWriter();
+    private final StringWriter err = new StringWriter();
+
+    private int run(String... args) {
+        CommandLine cl = TwinlightCommand.commandLine();
+        cl.addSubcommand("time", new TimeCommand());
+        cl.setOut(new PrintWriter(out));
+        cl.setErr(new PrintWriter(err));
+        String[] all = new String[args.length + 1];
+        all[0] = "time";
+        System.arraycopy(args, 0, all, 1, args.length);
+        return cl.execute(all);
+    }
+
+    private Path file(String name, String content) throws IOException {
+        Path p = dir.resolve(name);
+        Files.writeString(p, content, StandardCharsets.UTF_8);
+        return p;
+    }
+
+    @Test
+    void helpDescribesEveryOption() {
+        assertThat(run("--help")).isZero();
+        assertThat(out.toString()).contains("--from", "--to", "--ra", "--dec", "--out", "--column", "BJD_TDB");
+    }
+
+    @Test
+    void convertsUtcToTtOnStandardOutputWithoutAPosition() throws IOException {
+        // TT − UTC = 69.184 s after 2017 (REFERENCE-VALUES §4).
+        Path in = file("times.txt", "# observer log\n2460000.5 12.1\n2460001.25 12.3\n");
+        assertThat(run(in.toString(), "--from", "JD_UTC", "--to", "JD_TT")).isZero();
+        List<String> lines = out.toString().lines().toList();
+        assertThat(lines.get(0)).startsWith("#").contains("time_in: JD_UTC", "time_out: JD_TT");
+        assertThat(lines.get(1)).isEqualTo("time_in,time_out");
+        assertThat(lines).hasSize(4);
+        String[] row = lines.get(2).split(",");
+        assertThat(row[0]).isEqualTo("2460000.5");
+        assertThat((Double.parseDouble(row[1]) - 2460000.5) * 86400).isCloseTo(69.184, offset(1e-4));
+        // full double precision: the text reads back to exactly the library's value
+        assertThat(Double.parseDouble(row[1])).isEqualTo(TimeConverter.convert(2460000.5, TimeScale.JD_UTC,
+                TimeScale.parse("JD_TT").orElseThrow(), null));
+    }
+
+    @Test
+    void writesBjdToAFileAtomicallyFromANamedColumnWithSexagesimalPosition() throws IOException {
+        Path in = file("lc.csv", "flux,time,err\n1.0,59000.25,0.01\n0.9,59000.30,0.01\n");
+        Path result = dir.resolve("out/bjd.csv");
+        int code = run(in.toString(), "--from", "MJD_UTC", "--to", "BJD_TDB", "--column", "time",
+                "--ra", "05:34:31.94", "--dec", "+22:00:52.2", "--out", result.toString());
+        assertThat(code).as(err.toString()).isZero();
+        List<String> lines = Files.readAllLines(result);
+        assertThat(lines.get(0)).contains("MJD_UTC", "BJD_TDB", "RA 83.633083", "Dec +22.014500");
+        assertThat(lines).hasSize(4);
+        double bjd = Double.parseDouble(lines.get(2).split(",")[1]);
+        // BJD_TDB − JD_UTC = 69.184 s (+ TDB − TT) + barycentric delay, |delay| ≤ 1.0168 au/c = 507.4 s.
+        double diffSeconds = (bjd - 2459000.75) * 86400;
+        assertThat(diffSeconds).isBetween(69.184 - 507.5, 69.184 + 507.5);
+        assertThat(out.toString()).contains("2 times converted");
+        try (var listing = Files.list(result.getParent())) {
+            assertThat(listing.map(p -> p.getFileName().toString())).containsExactly("bjd.csv");
+        }
+    }
+
+    @Test
+    void missingOrUnknownScaleIsRefused() throws IOException {
+        Path in = file("t.txt", "2460000.5\n");
+        assertThat(run(in.toString(), "--to", "BJD_TDB", "--ra", "10", "--dec", "10")).isEqualTo(2);
+        assertThat(err.toString()).contains("no declared time scale", "--from");
+        assertThat(run(in.toString(), "--from", "unknown", "--to", "JD_TT")).isEqualTo(2);
+        assertThat(err.toString()).contains("unknown time scale cannot be converted");
+        assertThat(run(in.toString(), "--from", "JD_GPS", "--to", "JD_TT")).isEqualTo(2);
+        assertThat(err.toString()).contains("unknown time scale 'JD_GPS'", "BJD_TDB");
+        assertThat(run(in.toString(), "--from", "JD_UTC")).isEqualTo(2);
+        assertThat(err.toString()).contains("--to");
+        assertThat(err.toString()).doesNotContain("Exception", "\tat ");
+    }
+
+    @Test
+    void positionIsRequiredOnlyWhenNeeded() throws IOException {
+        Path in = file("t.txt", "2460000.5\n");
+        assertThat(run(in.toString(), "--from", "JD_UTC", "--to", "HJD_UTC")).isEqualTo(2);
+        assertThat(err.toString()).contains("--ra and --dec");
+        assertThat(run(in.toString(), "--from", "JD_UTC", "--to", "HJD_UTC", "--ra", "25:00:00", "--dec", "0"))
+                .isEqualTo(2);
+        assertThat(err.toString()).contains("option --ra", "outside");
+        assertThat(run(in.toString(), "--from", "JD_UTC", "--to", "MJD_TDB")).isZero();
+    }
+
+    @Test
+    void badRowsAreReportedByLineNumber() throws IOException {
+        Path in = file("bad.txt", "time mag\n2460000.5 12\n2460000.6 12\nnan? 12\n2460000.7 12\n\n- 3\n");
+        assertThat(run(in.toString(), "--from", "JD_UTC", "--to", "JD_TT")).isEqualTo(2);
+        assertThat(err.toString()).contains("bad.txt", "lines 4, 7", "column 'time'", "expected a time");
+    }
+
+    @Test
+    void utcBefore1972IsRefusedNamingTheLine() throws IOException {
+        Path in = file("old.txt", "2441317.5\n2441000.5\n");
+        assertThat(run(in.toString(), "--from", "JD_UTC", "--to", "JD_TT")).isEqualTo(2);
+        assertThat(err.toString()).contains("old.txt", "line 2", "before 1972");
+    }
+
+    @Test
+    void offsetTimesAreRefusedForBarycentricCorrection() throws IOException {
+        Path in = file("btjd.txt", "1500.25\n");
+        assertThat(run(in.toString(), "--from", "BJD_TDB", "--to", "HJD_UTC", "--ra", "10", "--dec", "-5")).isEqualTo(2);
+        assertThat(err.toString()).contains("line 1", "1800–2050");
+    }
+
+    @Test
+    void inputFileIsNeverOverwritten() throws IOException {
+        Path in = file("t.txt", "2460000.5\n");
+        assertThat(run(in.toString(), "--from", "JD_UTC", "--to", "JD_TT", "--out", in.toString())).isEqualTo(2);
+        assertThat(err.toString()).contains("never overwritten");
+        assertThat(Files.readString(in)).isEqualTo("2460000.5\n");
+    }
+
+    @Test
+    void columnChoiceErrorsNameTheColumn() throws IOException {
+        Path noHeader = file("a.txt", "2460000.5 1\n");
+        assertThat(run(noHeader.toString(), "--from", "JD_UTC", "--to", "JD_TT", "--column", "time")).isEqualTo(2);
+        assertThat(err.toString()).contains("no header row");
+        Path header = file("b.txt", "hjd,mag\n2460000.5,1\n");
+        assertThat(run(header.toString(), "--from", "JD_UTC", "--to", "JD_TT", "--column", "bjd")).isEqualTo(2);
+        assertThat(err.toString()).contains("no such column", "hjd, mag");
+        assertThat(run(header.toString(), "--from", "JD_UTC", "--to", "JD_TT", "--column", "3")).isEqualTo(2);
+        assertThat(err.toString()).contains("line 2", "column 3");
+        Path empty = file("c.txt", "# nothing\n");
+        assertThat(run(empty.toString(), "--from", "JD_UTC", "--to", "JD_TT")).isEqualTo(2);
+        assertThat(err.toString()).contains("no times found");
+    }
+}
