@@ -17,6 +17,7 @@ import picocli.CommandLine.Option;
             SimulateCommand.class,
             FitCommand.class,
             BenchCommand.class,
+            TimeCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 
