@@ -54,7 +54,6 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
         private final double e;
         private final double sinOmega;
         private final double cosOmega;
-        private final double sin2i;
         private final double cos2i;
         private final double meanAnomalyAtEpoch;
         private final double sqrtOnePlusE;
@@ -69,8 +68,6 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
             sinOmega = Math.sin(w);
             cosOmega = Math.cos(w);
             double inc = Math.toRadians(o.inclinationDeg);
-            double si = Math.sin(inc);
-            sin2i = si * si;
             double ci = Math.cos(inc);
             cos2i = ci * ci;
             meanAnomalyAtEpoch = KeplerEquation.meanAnomalyOfTrueAnomaly(Math.PI / 2 - w, e);
@@ -105,7 +102,9 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
             double sinNu = 2 * x * y / n2;
             double r = oneMinusE2 / (1 + e * cosNu);
             double sinArg = sinNu * cosOmega + cosNu * sinOmega; // sin(ν+ω)
-            double d = r * Math.sqrt(Math.max(0.0, 1 - sin2i * sinArg * sinArg));
+            double cosArg = cosNu * cosOmega - sinNu * sinOmega; // cos(ν+ω)
+            // √(cos² + cos²i sin²) rather than √(1 − sin²i sin²): no cancellation near conjunction
+            double d = r * Math.sqrt(cosArg * cosArg + cos2i * sinArg * sinArg);
             return sinArg >= 0 ? d : -d;
         }
 
