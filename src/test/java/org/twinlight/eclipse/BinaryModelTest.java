@@ -1,0 +1,69 @@
+package org.twinlight.eclipse;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import org.apache.commons.math3.analysis.integration.IterativeLegendreGaussIntegrator;
+import org.junit.jupiter.api.Test;
+
+class BinaryModelTest {
+    private static final LimbDarkening LD1 = LimbDarkening.quadratic(0.4, 0.25);
+    private static final LimbDarkening LD2 = LimbDarkening.of(LimbDarkeningLaw.POWER_2, 0.6, 0.6);
+
+    private static BinaryParameters edgeOn(double r1, double r2, double j, double l3) {
+        return new BinaryParameters(2.0, 0.0, r1, r2, 90.0, 0, 90, j, l3, LD1, LD2, 0, 1);
+    }
+
+    @Test
+    void totalOccultationRemovesExactlyTheLightOfTheSmallerStar() {
+        // definition of a total eclipse: the whole of star 2 is hidden, F = L₁/(L₁+L₂)
+        BinaryParameters p = edgeOn(0.12, 0.07, 0.7, 0);
+        BinaryModel m = new BinaryModel(p);
+        double lr = p.lightRatio();
+        assertThat(m.flux(1.0)).isCloseTo(1 / (1 + lr), within(1e-12));
+    }
+
+    @Test
+    void centralTransitOfUniformDiscRemovesTheAreaRatio() {
+        // uniform source, z ≤ 1 − p: λᵉ = p² (Mandel & Agol 2002, ApJ 580, L171, sect. 2)
+        BinaryParameters p = edgeOn(0.12, 0.05, 0.5, 0).withLimbDarkening(LimbDarkening.uniform(), LD2);
+        BinaryModel m = new BinaryModel(p);
+        double k = 0.05 / 0.12;
+        double w1 = 1 / (1 + p.lightRatio());
+        assertThat(1 - m.flux(0.0)).isCloseTo(w1 * k * k, within(1e-12));
+    }
+
+    @Test
+    void thirdLightDilutesEveryDepth() {
+        // F = F₀(1 − ℓ₃) + ℓ₃ (contract definition of third light)
+        BinaryModel plain = new BinaryModel(edgeOn(0.12, 0.08, 0.6, 0));
+        BinaryModel diluted = new BinaryModel(edgeOn(0.12, 0.08, 0.6, 0.3));
+        for (double t = -0.05; t < 0.05; t += 0.003) {
+            assertThat(1 - diluted.flux(t)).isCloseTo((1 - plain.flux(t)) * 0.7, within(1e-14));
+        }
+    }
+
+    @Test
+    void circularEclipsesAreSymmetricAndFluxNeverExceedsOne() {
+        BinaryModel m = new BinaryModel(new BinaryParameters(2.0, 0.0, 0.15, 0.11, 86.0, 0, 90, 0.8, 0.05, LD1, LD2, 0, 1));
+        for (double dt = 0; dt < 1.0; dt += 0.0017) {
+            assertThat(m.flux(dt)).isLessThanOrEqualTo(1.0);
+            assertThat(m.flux(dt)).isCloseTo(m.flux(-dt), within(1e-13));
+            assertThat(m.flux(1.0 + dt)).isCloseTo(m.flux(1.0 - dt), within(1e-13));
+        }
+    }
+
+    @Test
+    void exposureSmearingApproachesTheTimeAverageOfTheFlux() {
+        // independent: Commons Math quadrature of the instantaneous flux over the exposure
+        BinaryParameters p = new BinaryParameters(2.0, 0.0, 0.15, 0.11, 88.0, 0, 90, 0.8, 0, LD1, LD2, 0.02, 200);
+        BinaryModel smeared = new BinaryModel(p);
+        BinaryModel sharp = new BinaryModel(p.withExposure(0, 1));
+        IterativeLegendreGaussIntegrator gl = new IterativeLegendreGaussIntegrator(16, 1e-12, 1e-13);
+        for (double t : new double[] {-0.06, -0.03, 0.0, 0.021, 0.05}) {
+            double mean = gl.integrate(100000, sharp::flux, t - 0.01, t + 0.01) / 0.02;
+            // midpoint rule with 200 sub-exposures: error ~ (T/N)² |F''|/24 (Press et al. 2007, §4.1)
+            assertThat(smeared.flux(t)).as("t=%s", t).isCloseTo(mean, within(2e-6));
+        }
+    }
+}
