@@ -14,10 +14,8 @@ import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
 import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
 import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.RealMatrix;
 import org.apache.commons.math3.linear.SingularValueDecomposition;
-import org.apache.commons.math3.util.Pair;
 import org.twinlight.WorkFailedException;
 import org.twinlight.eclipse.BandValues;
 import org.twinlight.eclipse.BinaryModel;
@@ -72,15 +70,11 @@ public final class EclipseFitter {
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .start(x0)
                 .target(new double[m])
-                .model(point -> {
-                    double[] x = point.toArray();
-                    double[] r = residuals.evaluate(x);
-                    double[][] jac = jacobian(residuals::evaluate, x, r, steps, true, m);
-                    return new Pair<>(new ArrayRealVector(r, false), new Array2DRowRealMatrix(jac, false));
-                })
+                // the Jacobian is computed only for points the solver accepts (lazy evaluation)
+                .model(residuals::evaluate, x -> jacobian(residuals::evaluate, x, null, steps, true, m))
                 .maxIterations(settings.maxIterations())
                 .maxEvaluations(settings.maxIterations() * 4)
-                .lazyEvaluation(false)
+                .lazyEvaluation(true)
                 .build();
         LeastSquaresOptimizer.Optimum optimum;
         try {
