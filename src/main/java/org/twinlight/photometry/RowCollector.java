@@ -140,9 +140,16 @@ final class RowCollector {
             int total = allRejected.values().stream().mapToInt(Integer::intValue).sum();
             throw BadInputException.at(file, null, null, total == 0
                     ? "no data rows found; expected rows of numbers (time, flux or magnitude, optional error)"
-                    : "no usable rows: all " + total + " data rows were rejected " + allRejected);
+                    : "no usable rows: all " + total + " data rows were rejected (" + reasons(allRejected) + ")");
         }
         return out;
+    }
+
+    /** Rejection counts as people read them: {@code "not a number: 2, quality flag set: 5"}. */
+    static String reasons(Map<String, Integer> rejected) {
+        StringBuilder sb = new StringBuilder();
+        rejected.forEach((k, v) -> sb.append(sb.length() == 0 ? "" : ", ").append(k).append(": ").append(v));
+        return sb.toString();
     }
 
     private void checkOrder(BandRows r, String band) {

@@ -24,8 +24,8 @@ import org.twinlight.time.TimeScale;
  *   <li>Delimiter: tab, semicolon or comma when every one of the first data lines splits into
  *       two or more fields on it (tried in that order), else white space.</li>
  *   <li>{@code #} starts a comment, on its own line or after the data. Blank lines are skipped.</li>
- *   <li>Header: the first non-comment line is a header when one of its fields is not a number
- *       where the next line has a number (or, for a one-line file, when it has any non-number).
+ *   <li>Header: the first non-comment line is a header when none of its fields is a number, or
+ *       when one of them is not a number where the next line has a number.
  *       Without one, the last comment line before the data is taken as the header when it has
  *       as many fields as the data, none of them numbers, and names a time and a value column
  *       ({@code # time flux err}). With no header at all the columns are time, value and, when
@@ -203,6 +203,9 @@ final class TextTableReader {
     }
 
     private static boolean isHeader(List<String> first, List<String> second, boolean decimalComma) {
+        if (first.stream().allMatch(f -> !f.isEmpty() && isNotANumber(f, decimalComma))) {
+            return true;
+        }
         for (int j = 0; j < first.size(); j++) {
             boolean text = !first.get(j).isEmpty() && isNotANumber(first.get(j), decimalComma);
             if (text && (second == null || (j < second.size() && !isNotANumber(second.get(j), decimalComma)))) {
