@@ -137,21 +137,31 @@ record ColumnChoice(int time, int value, int error, int band, int quality) {
     private static int findError(List<String> norm, String valueName, String timeName) {
         List<String> paired = List.of(valueName + "_err", valueName + "_error", "e_" + valueName, valueName + "err",
                 "err_" + valueName, valueName + "_sigma");
-        for (List<String> list : List.of(paired, ERROR_NAMES)) {
-            for (String c : list) {
-                int i = norm.indexOf(c);
-                if (i >= 0) {
-                    return i;
-                }
+        for (String c : paired) {
+            int i = norm.indexOf(c);
+            if (i >= 0) {
+                return i;
+            }
+        }
+        for (String c : ERROR_NAMES) {
+            int i = norm.indexOf(c);
+            if (i >= 0 && !belongsToOther(norm, c, valueName)) {
+                return i;
             }
         }
         for (int i = 0; i < norm.size(); i++) {
             String n = norm.get(i);
-            if (isErrorName(n) && !n.startsWith(timeName) && !n.contains("time")) {
+            if (isErrorName(n) && !n.startsWith(timeName) && !n.contains("time") && !belongsToOther(norm, n, valueName)) {
                 return i;
             }
         }
         return -1;
+    }
+
+    /** Whether an error column is the twin of a column other than the value column ("flux_err" of "flux"). */
+    private static boolean belongsToOther(List<String> norm, String errorName, String valueName) {
+        String base = errorName.replaceAll("(_err|_error|_sigma|err)$", "").replaceAll("^(e_|err_)", "");
+        return !base.equals(errorName) && !base.equals(valueName) && norm.contains(base);
     }
 
     private static int firstFree(int... used) {

@@ -64,7 +64,7 @@ final class FitsTableReader {
             return fits.readHDU();
         } catch (IOException | RuntimeException e) {
             if (index == 0) {
-                throw BadInputException.at(file, "HDU 0", null, "not a readable FITS file (" + e.getMessage()
+                throw BadInputException.at(file, "HDU 0", null, "not a readable FITS file, damaged or truncated (" + e.getMessage()
                         + "); expected a FITS file with a binary table");
             }
             throw BadInputException.at(file, "HDU " + index, null, "the FITS file is damaged or truncated ("
