@@ -17,11 +17,13 @@ import org.twinlight.time.TimeScale;
  *       practice, no source), counted, with the longest interval.</li>
  *   <li>Segments: the parts left after splitting at intervals longer than the segment gap
  *       ({@link Segments}).</li>
- *   <li>Scatter and outliers: residuals from an {@value RunningMedianResiduals#WINDOW_POINTS}-point
- *       running median within each segment; scatter σ = 1.4826 × MAD of the residuals; outliers are
- *       the points more than {@value #OUTLIER_SIGMAS} σ from the running median (Hampel 1974,
- *       J. Am. Stat. Assoc. 69, 383; Rousseeuw &amp; Croux 1993, J. Am. Stat. Assoc. 88, 1273).
- *       Nothing is removed.</li>
+ *   <li>Scatter and outliers: each point's residual from the median of up to
+ *       {@value RunningMedianResiduals#HALF_WINDOW_POINTS} neighbours on each side in its segment,
+ *       scaled for the median's own noise; scatter σ = 1.4826 × MAD of the scaled residuals, an
+ *       estimate of the point-to-point noise; outliers are the points more than
+ *       {@value #OUTLIER_SIGMAS} σ from the running median (a Hampel filter: Hampel 1974, J. Am.
+ *       Stat. Assoc. 69, 383; Rousseeuw &amp; Croux 1993, J. Am. Stat. Assoc. 88, 1273). Details in
+ *       {@code RunningMedianResiduals}. Nothing is removed.</li>
  * </ul>
  *
  * @param source where the data came from
