@@ -106,7 +106,7 @@ public final class InspectCommand implements Callable<Integer> {
             sb.append(row("Flux", fmt("min %.6g, median %.6g, max %.6g", s.minFlux(), s.medianFlux(), s.maxFlux())));
             sb.append(row("Errors", s.hasErrors() ? fmt("median %.3g (%.3g of the median flux)",
                     s.medianErrorFlux(), s.medianErrorFlux() / Math.abs(s.medianFlux())) : "none in the file"));
-            sb.append(row("Scatter", fmt("%.3g (1.4826 x MAD of residuals from a running median)", s.scatterFlux())));
+            sb.append(row("Scatter", fmt("%.3g (point-to-point noise: 1.4826 x MAD of residuals from a running median)", s.scatterFlux())));
             sb.append(row("Outliers", s.outlierCount() + " more than " + fmt("%.0f", LightCurveSummary.OUTLIER_SIGMAS)
                     + " sigma from the running median (counted, not removed)"));
         }
@@ -117,7 +117,7 @@ public final class InspectCommand implements Callable<Integer> {
         if (s.rejectedRows().isEmpty()) {
             return "";
         }
-        return ": " + s.rejectedRows().entrySet().stream().map(e -> e.getKey() + " " + e.getValue())
+        return ": " + s.rejectedRows().entrySet().stream().map(e -> e.getKey() + ": " + e.getValue())
                 .collect(Collectors.joining(", "));
     }
 
