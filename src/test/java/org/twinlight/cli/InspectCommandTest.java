@@ -12,6 +12,7 @@ import java.nio.file.Path;
 import java.util.Locale;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.twinlight.photometry.FitsFixture;
 import picocli.CommandLine;
 
 class InspectCommandTest {
@@ -82,6 +83,23 @@ class InspectCommandTest {
         out.getBuffer().setLength(0);
         assertThat(run("inspect", p.toString(), "--json")).isZero();
         assertThat(out.toString()).contains("\"band\" : \"B\"").contains("\"band\" : \"V\"");
+    }
+
+    @Test
+    void readsAFitsTableWithItsTimeKeywords() throws IOException {
+        Path p = dir.resolve("lc.fits");
+        new FitsFixture().table(new FitsFixture.Table()
+                .column("TIME", new double[] {100.0, 100.01, 100.02, 100.03})
+                .column("FLUX", new float[] {1f, 0.99f, 1.01f, 1f})
+                .column("FLUX_ERR", new float[] {0.01f, 0.01f, 0.01f, 0.01f})
+                .column("QUALITY", new int[] {0, 0, 1, 0})
+                .key("TIMESYS", "TDB").key("TIMEREF", "SOLARSYSTEM").key("TIMEUNIT", "d").key("BJDREFI", 2457000))
+                .write(p);
+        assertThat(run("inspect", p.toString())).as(err.toString()).isZero();
+        assertThat(out.toString()).contains("BJD_TDB").contains("3 used, 1 rejected: quality flag set: 1")
+                .contains("2457100.000000 to 2457100.030000");
+        assertThat(run("inspect", p.toString(), "--hdu", "3")).isEqualTo(2);
+        assertThat(err.toString()).contains("lc.fits").contains("HDU 3").contains("no such HDU");
     }
 
     @Test

@@ -14,19 +14,19 @@ import nom.tam.fits.Header;
 import nom.tam.fits.ImageHDU;
 
 /** Writes small FITS files for tests with nom-tam-fits: an empty primary HDU, then the tables. */
-final class FitsFixture {
+public final class FitsFixture {
 
     /** One binary table: named columns (arrays of one primitive type each) and header keywords. */
-    static final class Table {
+    public static final class Table {
         final Map<String, Object> columns = new LinkedHashMap<>();
         final Map<String, Object> keywords = new LinkedHashMap<>();
 
-        Table column(String name, Object array) {
+        public Table column(String name, Object array) {
             columns.put(name, array);
             return this;
         }
 
-        Table key(String key, Object value) {
+        public Table key(String key, Object value) {
             keywords.put(key, value);
             return this;
         }
@@ -34,17 +34,17 @@ final class FitsFixture {
 
     private final List<Object> hdus = new ArrayList<>();
 
-    FitsFixture table(Table t) {
+    public FitsFixture table(Table t) {
         hdus.add(t);
         return this;
     }
 
-    FitsFixture image(float[][] data) {
+    public FitsFixture image(float[][] data) {
         hdus.add(data);
         return this;
     }
 
-    void write(Path file) throws IOException {
+    public void write(Path file) throws IOException {
         try (Fits fits = new Fits()) {
             fits.addHDU(BasicHDU.getDummyHDU());
             for (Object h : hdus) {
