@@ -3,7 +3,6 @@ package org.twinlight.photometry;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -17,9 +16,7 @@ class BadTextInputTest {
     Path dir;
 
     private Path file(String name, String content) throws IOException {
-        Path p = dir.resolve(name);
-        Files.writeString(p, content, StandardCharsets.UTF_8);
-        return p;
+        return TestFiles.text(dir, name, content);
     }
 
     private static ReadOptions column(String time, String value) {

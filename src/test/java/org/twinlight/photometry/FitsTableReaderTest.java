@@ -10,6 +10,8 @@ import java.nio.file.Path;
 import java.util.Arrays;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
 import org.twinlight.BadInputException;
 import org.twinlight.time.TimeReference;
 import org.twinlight.time.TimeScale;
@@ -171,24 +173,15 @@ class FitsTableReaderTest {
                 .hasMessageContaining("no binary table").hasMessageContaining("HDU 1 an image");
     }
 
-    @Test
-    void truncatedFile() throws IOException {
+    /** Cut inside the table's header, inside its data, and (from the end) inside its last data block. */
+    @ParameterizedTest
+    @ValueSource(ints = {2880 + 1000, -2880 + 10})
+    void truncatedFile(int cut) throws IOException {
         Path whole = write("lc.fits", new FitsFixture().table(barycentricTable()));
         byte[] bytes = Files.readAllBytes(whole);
-        Path cut = dir.resolve("cut.fits");
-        Files.write(cut, Arrays.copyOf(bytes, 2880 + 1000));
-        assertThatThrownBy(() -> LightCurveReader.read(cut, ReadOptions.defaults()))
-                .isInstanceOf(BadInputException.class).hasMessageContaining("cut.fits")
-                .hasMessageContaining("HDU 1").hasMessageContaining("truncated");
-    }
-
-    @Test
-    void truncatedData() throws IOException {
-        Path whole = write("lc.fits", new FitsFixture().table(barycentricTable()));
-        byte[] bytes = Files.readAllBytes(whole);
-        Path cut = dir.resolve("cut.fits");
-        Files.write(cut, Arrays.copyOf(bytes, bytes.length - 2880 + 10));
-        assertThatThrownBy(() -> LightCurveReader.read(cut, ReadOptions.defaults()))
+        Path cutFile = dir.resolve("cut.fits");
+        Files.write(cutFile, Arrays.copyOf(bytes, cut > 0 ? cut : bytes.length + cut));
+        assertThatThrownBy(() -> LightCurveReader.read(cutFile, ReadOptions.defaults()))
                 .isInstanceOf(BadInputException.class).hasMessageContaining("cut.fits")
                 .hasMessageContaining("HDU 1").hasMessageContaining("truncated");
     }

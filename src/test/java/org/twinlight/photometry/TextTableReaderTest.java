@@ -5,7 +5,6 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import static org.assertj.core.api.Assertions.within;
 
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Map;
@@ -20,9 +19,7 @@ class TextTableReaderTest {
     Path dir;
 
     private Path file(String name, String content) throws IOException {
-        Path p = dir.resolve(name);
-        Files.writeString(p, content, StandardCharsets.UTF_8);
-        return p;
+        return TestFiles.text(dir, name, content);
     }
 
     private static ReadOptions options(String time, String value, String error) {
