@@ -16,7 +16,8 @@ import org.twinlight.time.TimeScale;
  *
  * <p>Rows are checked in this order, the first failing check naming the reason: quality flag
  * (non-zero), NaN or infinite time, value or error, error ≤ 0, magnitude |m| ≥
- * {@value RowRejection#MAGNITUDE_LIMIT}. Zero and negative fluxes are kept: detrended or
+ * {@value RowRejection#MAGNITUDE_LIMIT}. A band of a several-band file with no usable row is an
+ * error naming the band. Zero and negative fluxes are kept: detrended or
  * background-subtracted flux can legitimately be ≤ 0 for faint targets, and the model is fitted
  * to flux linearly.
  */
@@ -121,10 +122,14 @@ final class RowCollector {
         }
         for (Map.Entry<String, BandRows> e : bands.entrySet()) {
             BandRows r = e.getValue();
+            String band = e.getKey().isEmpty() ? fixedBand : e.getKey();
+            if (r.size == 0 && bandColumn != null && bands.size() > 1) {
+                throw BadInputException.at(file, null, bandColumn, "band '" + band + "' has no usable rows ("
+                        + reasons(r.rejected) + "); remove its rows or fix them: a band cannot be read empty");
+            }
             if (r.size == 0) {
                 continue;
             }
-            String band = e.getKey().isEmpty() ? fixedBand : e.getKey();
             checkOrder(r, band);
             double[] t = new double[r.size];
             for (int i = 0; i < r.size; i++) {

@@ -127,4 +127,13 @@ class BadTextInputTest {
                 .isInstanceOf(BadInputException.class).hasMessageContaining("blob.bin")
                 .hasMessageContaining("binary file that is not FITS");
     }
+
+    @Test
+    void bandWithoutUsableRowsIsNamed() throws IOException {
+        Path p = file("bands.csv", "time,band,mag\n1,V,10\n2,I,99.999\n3,V,10.1\n4,I,99.999\n");
+        assertThatThrownBy(() -> LightCurveReader.readBands(p, ReadOptions.defaults()))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("bands.csv")
+                .hasMessageContaining("column 'band'").hasMessageContaining("band 'I' has no usable rows")
+                .hasMessageContaining("magnitude out of range: 2");
+    }
 }
