@@ -12,6 +12,7 @@ import nom.tam.fits.BinaryTable;
 import nom.tam.fits.BinaryTableHDU;
 import nom.tam.fits.Fits;
 import nom.tam.fits.Header;
+import nom.tam.util.Quantizer;
 import org.twinlight.BadInputException;
 import org.twinlight.time.TimeScale;
 
@@ -147,25 +148,33 @@ final class FitsTableReader {
         RowCollector rows = new RowCollector(file, RowPlace.fitsRow(index), names.get(c.time()), bandName, kind,
                 c.error() >= 0);
         int nrows = table.getNRows();
-        double typicalTime = Double.NaN;
+        double[] times;
+        double[] values;
+        double[] errors;
+        double[] flags;
+        Object[] bands;
         try {
-            for (int r = 0; r < nrows; r++) {
-                double t = table.getDouble(r, c.time());
-                if (Double.isNaN(typicalTime) && Double.isFinite(t)) {
-                    typicalTime = t;
-                }
-                String band = c.band() >= 0 ? String.valueOf(table.get(r, c.band())).trim() : null;
-                if (band != null && band.isEmpty()) {
-                    rows.reject(null, RowRejection.MISSING_FIELD);
-                    continue;
-                }
-                rows.add(r + 1, band, t, table.getDouble(r, c.value()),
-                        c.error() >= 0 ? table.getDouble(r, c.error()) : Double.NaN,
-                        c.quality() >= 0 ? table.getDouble(r, c.quality()) : 0.0);
-            }
+            times = column(table, c.time());
+            values = column(table, c.value());
+            errors = c.error() >= 0 ? column(table, c.error()) : null;
+            flags = c.quality() >= 0 ? column(table, c.quality()) : null;
+            bands = c.band() >= 0 ? bandColumn(table, c.band(), nrows) : null;
         } catch (RuntimeException e) {
             throw BadInputException.at(file, where, null, "cannot read the table rows; the file may be truncated ("
                     + e.getMessage() + ")");
+        }
+        double typicalTime = Double.NaN;
+        for (int r = 0; r < nrows; r++) {
+            if (Double.isNaN(typicalTime) && Double.isFinite(times[r])) {
+                typicalTime = times[r];
+            }
+            String band = bands == null ? null : String.valueOf(bands[r]).trim();
+            if (band != null && band.isEmpty()) {
+                rows.reject(null, RowRejection.MISSING_FIELD);
+                continue;
+            }
+            rows.add(r + 1, band, times[r], values[r], errors == null ? Double.NaN : errors[r],
+                    flags == null ? 0.0 : flags[r]);
         }
         FitsTime time = FitsTime.of(file, index, hdu.getHeader(), primary, hdu.getColumnMeta(c.time(), "TUNIT"),
                 typicalTime);
@@ -179,6 +188,59 @@ final class FitsTableReader {
         double offset = options.timeOffsetDays() == null ? 0.0 : options.timeOffsetDays();
         String fixedBand = bandKeyword(hdu.getHeader(), primary);
         return rows.build(file.getFileName().toString(), fixedBand, scale, toDays, offset);
+    }
+
+    /**
+     * A scalar numeric column as doubles: integers through the column's TSCALn, TZEROn and TNULLn
+     * (a null value becomes NaN), unsigned bytes as 0..255, floating-point values as stored.
+     */
+    static double[] column(BinaryTable table, int col) {
+        Object data = table.getFlattenedColumn(col);
+        Quantizer q = table.getDescriptor(col).getQuantizer();
+        if (data instanceof double[] d) {
+            return d.clone();
+        }
+        if (data instanceof float[] f) {
+            double[] out = new double[f.length];
+            for (int i = 0; i < f.length; i++) {
+                out[i] = f[i];
+            }
+            return out;
+        }
+        long[] raw;
+        if (data instanceof long[] l) {
+            raw = l;
+        } else if (data instanceof int[] a) {
+            raw = new long[a.length];
+            for (int i = 0; i < a.length; i++) {
+                raw[i] = a[i];
+            }
+        } else if (data instanceof short[] a) {
+            raw = new long[a.length];
+            for (int i = 0; i < a.length; i++) {
+                raw[i] = a[i];
+            }
+        } else if (data instanceof byte[] a) {
+            raw = new long[a.length];
+            for (int i = 0; i < a.length; i++) {
+                raw[i] = a[i] & 0xff;
+            }
+        } else {
+            throw new IllegalStateException("unexpected column data " + (data == null ? "null" : data.getClass()));
+        }
+        double[] out = new double[raw.length];
+        for (int i = 0; i < raw.length; i++) {
+            out[i] = q == null ? raw[i] : q.toDouble(raw[i]);
+        }
+        return out;
+    }
+
+    private static Object[] bandColumn(BinaryTable table, int col, int nrows) {
+        Object[] out = new Object[nrows];
+        for (int r = 0; r < nrows; r++) {
+            out[r] = table.get(r, col);
+        }
+        return out;
     }
 
     private static boolean isNumericScalar(BinaryTable table, int col) {

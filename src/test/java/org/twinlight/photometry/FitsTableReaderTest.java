@@ -226,4 +226,17 @@ class FitsTableReaderTest {
                 .isInstanceOf(BadInputException.class).hasMessageContaining("column 'FLUX'")
                 .hasMessageContaining("single numbers");
     }
+
+    @Test
+    void scaledIntegerColumnsAndNullValues() throws IOException {
+        // FITS standard 4.0 (Pence et al. 2010, A&A 524, A42), sect. 7.3.2: physical = TZEROn + TSCALn x stored;
+        // a stored value equal to TNULLn is undefined.
+        FitsFixture.Table t = new FitsFixture.Table()
+                .column("TIME", new double[] {1, 2, 3})
+                .column("FLUX", new short[] {-32768, 100, 7})
+                .key("TZERO2", 32768).key("TSCAL2", 0.5).key("TNULL2", 7);
+        LightCurve lc = LightCurveReader.read(write("scaled.fits", new FitsFixture().table(t)), ReadOptions.defaults());
+        assertThat(lc.fluxes()).containsExactly(16384.0, 32818.0);
+        assertThat(lc.rejectedRows()).containsEntry("NaN or infinite", 1);
+    }
 }
