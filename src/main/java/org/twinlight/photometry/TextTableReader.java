@@ -188,18 +188,42 @@ final class TextTableReader {
 
     /** Splits on {@code delimiter} ({@code ' '} = runs of white space), trims and unquotes the fields. */
     static List<String> split(String line, char delimiter) {
-        String t = line.trim();
-        String[] parts = delimiter == ' ' ? (t.isEmpty() ? new String[0] : t.split("\\s+"))
-                : t.split(java.util.regex.Pattern.quote(String.valueOf(delimiter)), -1);
-        List<String> out = new ArrayList<>(parts.length);
-        for (String p : parts) {
-            String s = p.trim();
-            if (s.length() >= 2 && (s.charAt(0) == '"' || s.charAt(0) == '\'') && s.charAt(s.length() - 1) == s.charAt(0)) {
-                s = s.substring(1, s.length() - 1).trim();
+        List<String> out = new ArrayList<>();
+        int n = line.length();
+        if (delimiter == ' ') {
+            int i = 0;
+            while (i < n) {
+                while (i < n && Character.isWhitespace(line.charAt(i))) {
+                    i++;
+                }
+                int start = i;
+                while (i < n && !Character.isWhitespace(line.charAt(i))) {
+                    i++;
+                }
+                if (i > start) {
+                    out.add(unquote(line.substring(start, i)));
+                }
             }
-            out.add(s);
+            return out;
         }
-        return out;
+        String t = line.trim();
+        int start = 0;
+        while (true) {
+            int end = t.indexOf(delimiter, start);
+            if (end < 0) {
+                out.add(unquote(t.substring(start).trim()));
+                return out;
+            }
+            out.add(unquote(t.substring(start, end).trim()));
+            start = end + 1;
+        }
+    }
+
+    private static String unquote(String s) {
+        if (s.length() >= 2 && (s.charAt(0) == '"' || s.charAt(0) == '\'') && s.charAt(s.length() - 1) == s.charAt(0)) {
+            return s.substring(1, s.length() - 1).trim();
+        }
+        return s;
     }
 
     private static boolean isHeader(List<String> first, List<String> second, boolean decimalComma) {
