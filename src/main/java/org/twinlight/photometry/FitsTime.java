@@ -31,12 +31,16 @@ import org.twinlight.time.TimeStandard;
  *       GEOCENTER → JD; HELIOCENTER → HJD; SOLARSYSTEM, BARYCENTER → BJD. Any other clock or
  *       place (TCB, GPS, EMBARYCENTER, ...) gives an unknown time scale; the times are still
  *       turned into Julian dates.</li>
- *   <li>A table with none of these keywords has times as given and an unknown scale. One that
+ *   <li>A table with no clock ({@code TIMESYS}), place ({@code TIMEREF}) or reference keyword
+ *       has times as given (in days, {@code TIMEUNIT} and {@code TIMEZERO} unused) and an unknown
+ *       scale. One that
  *       names a clock or place but no reference takes the standard's default MJDREF = 0, unless
  *       its times are already full Julian dates (≥ 2,000,000 days), which such files commonly
  *       hold (common practice, no source).</li>
  * </ul>
- * Keywords are looked up in the table's header, then in the primary header.
+ * Keywords are looked up in the table's header, then in the primary header. The defaults named
+ * above (TIMESYS UTC, TIMEREF TOPOCENTER, unit seconds, MJDREF 0) are those of the standard as
+ * recalled from memory.
  *
  * @param referenceWholeDays whole-day part of the reference JD
  * @param referenceFractionDays fractional part of the reference JD
@@ -54,8 +58,9 @@ record FitsTime(double referenceWholeDays, double referenceFractionDays, double 
     /** Times at or above this are taken as full Julian dates when no reference is given. */
     static final double FULL_JD_THRESHOLD = 2_000_000.0;
 
+    /** Keywords that declare a clock, a place or a reference: without any of them times are taken as given. */
     private static final List<String> KEYWORDS = List.of("TIMESYS", "TIMEREF", "MJDREFI", "MJDREFF", "MJDREF",
-            "JDREFI", "JDREFF", "JDREF", "BJDREFI", "BJDREFF", "DATEREF", "TIMEUNIT", "TIMEZERO");
+            "JDREFI", "JDREFF", "JDREF", "BJDREFI", "BJDREFF", "DATEREF");
     private static final Pattern ISO_DATE = Pattern.compile(
             "(-?\\d{4})-(\\d{2})-(\\d{2})(?:T(\\d{2}):(\\d{2}):(\\d{2}(?:\\.\\d*)?))?");
 

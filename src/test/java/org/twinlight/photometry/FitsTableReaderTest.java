@@ -107,7 +107,8 @@ class FitsTableReaderTest {
     void noTimeKeywordsLeavesTimesAsGivenAndScaleUnknown() throws IOException {
         FitsFixture.Table t = new FitsFixture.Table()
                 .column("BJD", new double[] {2459000.1, 2459000.2})
-                .column("FLUX", new double[] {1, 1});
+                .column("FLUX", new double[] {1, 1})
+                .key("TIMEUNIT", "d");
         LightCurve lc = LightCurveReader.read(write("plain.fits", new FitsFixture().table(t)), ReadOptions.defaults());
         assertThat(lc.timesDays()).containsExactly(2459000.1, 2459000.2);
         assertThat(lc.timeScale()).isEqualTo(TimeScale.UNKNOWN);
@@ -238,5 +239,32 @@ class FitsTableReaderTest {
         LightCurve lc = LightCurveReader.read(write("scaled.fits", new FitsFixture().table(t)), ReadOptions.defaults());
         assertThat(lc.fluxes()).containsExactly(16384.0, 32818.0);
         assertThat(lc.rejectedRows()).containsEntry("NaN or infinite", 1);
+    }
+
+    @Test
+    void clockWithoutReferenceTakesMjdZeroUnlessTimesAreFullJulianDates() throws IOException {
+        // Rots et al. 2015, sect. 4.1.2: without a reference keyword MJDREF = 0 (from memory).
+        FitsFixture.Table mjd = new FitsFixture.Table()
+                .column("TIME", new double[] {59000.0, 59000.5}).column("FLUX", new double[] {1, 1})
+                .key("TIMESYS", "UTC").key("TIMEUNIT", "d");
+        LightCurve a = LightCurveReader.read(write("mjd.fits", new FitsFixture().table(mjd)), ReadOptions.defaults());
+        assertThat(a.timesDays()).containsExactly(2459000.5, 2459001.0);
+        assertThat(a.timeScale()).isEqualTo(TimeScale.JD_UTC);
+        FitsFixture.Table jd = new FitsFixture.Table()
+                .column("TIME", new double[] {2459000.5, 2459001.0}).column("FLUX", new double[] {1, 1})
+                .key("TIMESYS", "UTC").key("TIMEREF", "HELIOCENTER").key("TIMEUNIT", "d");
+        LightCurve b = LightCurveReader.read(write("jd.fits", new FitsFixture().table(jd)), ReadOptions.defaults());
+        assertThat(b.timesDays()).containsExactly(2459000.5, 2459001.0);
+        assertThat(b.timeScale()).isEqualTo(TimeScale.HJD_UTC);
+    }
+
+    @Test
+    void otherClocksGiveJulianDatesOfUnknownScale() throws IOException {
+        FitsFixture.Table t = new FitsFixture.Table()
+                .column("TIME", new double[] {0.0, 1.0}).column("FLUX", new double[] {1, 1})
+                .key("TIMESYS", "TCB").key("TIMEREF", "SOLARSYSTEM").key("MJDREF", 50000.0).key("TIMEUNIT", "d");
+        LightCurve lc = LightCurveReader.read(write("tcb.fits", new FitsFixture().table(t)), ReadOptions.defaults());
+        assertThat(lc.timesDays()).containsExactly(2450000.5, 2450001.5);
+        assertThat(lc.timeScale()).isEqualTo(TimeScale.UNKNOWN);
     }
 }
