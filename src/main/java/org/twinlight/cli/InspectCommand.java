@@ -16,6 +16,7 @@ import org.twinlight.BadInputException;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.photometry.LightCurveReader;
 import org.twinlight.photometry.LightCurveSummary;
+import org.twinlight.photometry.Magnitudes;
 import org.twinlight.photometry.ValueKind;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -103,14 +104,28 @@ public final class InspectCommand implements Callable<Integer> {
             if (s.segments().size() > SEGMENTS_LISTED) {
                 sb.append(row("", "... and " + (s.segments().size() - SEGMENTS_LISTED) + " more (see --json)"));
             }
-            sb.append(row("Flux", fmt("min %.6g, median %.6g, max %.6g", s.minFlux(), s.medianFlux(), s.maxFlux())));
-            sb.append(row("Errors", s.hasErrors() ? fmt("median %.3g (%.3g of the median flux)",
-                    s.medianErrorFlux(), s.medianErrorFlux() / Math.abs(s.medianFlux())) : "none in the file"));
-            sb.append(row("Scatter", fmt("%.3g (point-to-point noise: 1.4826 x MAD of residuals from a running median)", s.scatterFlux())));
+            String magnitudes = s.valueKind() == ValueKind.MAGNITUDE && s.minFlux() > 0
+                    ? fmt(" (magnitudes %.4f to %.4f)", Magnitudes.fromRelativeFlux(s.maxFlux()),
+                            Magnitudes.fromRelativeFlux(s.minFlux())) : "";
+            sb.append(row("Flux", fmt("min %.6g, median %.6g, max %.6g", s.minFlux(), s.medianFlux(), s.maxFlux())
+                    + magnitudes));
+            sb.append(row("Errors", s.hasErrors() ? fmt("median %.3g", s.medianErrorFlux())
+                    + relative(s.medianErrorFlux(), s.medianFlux()) : "none in the file"));
+            sb.append(row("Scatter", fmt("%.3g", s.scatterFlux()) + relative(s.scatterFlux(), s.medianFlux())
+                    + ", robust point-to-point noise"));
             sb.append(row("Outliers", s.outlierCount() + " more than " + fmt("%.0f", LightCurveSummary.OUTLIER_SIGMAS)
                     + " sigma from the running median (counted, not removed)"));
         }
         return sb.toString();
+    }
+
+    /** " (0.37 % of the median flux, 0.0040 mag)" for a flux-unit spread, when the median flux is positive. */
+    private static String relative(double spreadFlux, double medianFlux) {
+        if (!(medianFlux > 0) || !Double.isFinite(spreadFlux)) {
+            return "";
+        }
+        return fmt(" (%.3g %% of the median flux, %.2g mag)", 100 * spreadFlux / medianFlux,
+                Magnitudes.toMagnitudeError(medianFlux, spreadFlux));
     }
 
     private static String reasons(LightCurveSummary s) {

@@ -46,6 +46,10 @@ final class TextTableReader {
 
     /** Reads every band of {@code file}. */
     static Map<String, LightCurve> read(Path file, ReadOptions options) {
+        if (options.hdu() != null) {
+            throw BadInputException.at(file, null, null, "option --hdu applies to FITS files; this file is read as "
+                    + "delimited text (it does not start with 'SIMPLE  =')");
+        }
         List<String> lines = lines(file);
         List<Integer> dataLines = new ArrayList<>();
         for (int i = 0; i < lines.size(); i++) {

@@ -136,4 +136,12 @@ class BadTextInputTest {
                 .hasMessageContaining("column 'band'").hasMessageContaining("band 'I' has no usable rows")
                 .hasMessageContaining("magnitude out of range: 2");
     }
+
+    @Test
+    void hduOptionOnTextIsRefused() throws IOException {
+        Path p = file("lc.csv", "time,flux\n1,1\n");
+        assertThatThrownBy(() -> LightCurveReader.read(p, new ReadOptions(null, null, null, null, null, null, null,
+                null, 1))).isInstanceOf(BadInputException.class).hasMessageContaining("lc.csv")
+                .hasMessageContaining("--hdu applies to FITS files");
+    }
 }
