@@ -108,10 +108,11 @@ class FitsTableReaderTest {
         FitsFixture.Table t = new FitsFixture.Table()
                 .column("BJD", new double[] {2459000.1, 2459000.2})
                 .column("FLUX", new double[] {1, 1})
-                .key("TIMEUNIT", "d");
+                .key("TIMEUNIT", "d").key("FILTER", "Ic");
         LightCurve lc = LightCurveReader.read(write("plain.fits", new FitsFixture().table(t)), ReadOptions.defaults());
         assertThat(lc.timesDays()).containsExactly(2459000.1, 2459000.2);
         assertThat(lc.timeScale()).isEqualTo(TimeScale.UNKNOWN);
+        assertThat(lc.band()).isEqualTo("Ic");
     }
 
     @Test

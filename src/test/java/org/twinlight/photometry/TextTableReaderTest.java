@@ -180,4 +180,29 @@ class TextTableReaderTest {
         assertThat(Files.readAllBytes(p)).isEqualTo(before);
         assertThat(Files.getLastModifiedTime(p).toMillis()).isEqualTo(modified);
     }
+
+    @Test
+    void aCommentLineThatNamesNoColumnsIsNotAHeader() throws IOException {
+        Path p = file("lc.txt", "# clear sky tonight\n1.0 0.99 0.01\n2.0 1.01 0.01\n");
+        LightCurve lc = LightCurveReader.read(p, ReadOptions.defaults());
+        assertThat(lc.fluxes()).containsExactly(0.99, 1.01);
+        assertThat(lc.fluxErrors()).containsExactly(0.01, 0.01);
+    }
+
+    @Test
+    void quotedFieldsFortranExponentsAndTextNanAreRead() throws IOException {
+        Path p = file("lc.csv", "\"time\",\"flux\",\"band\"\n\"1.0\",9.9D-01,\"V\"\n2.0,NaN,\"V\"\n3.0,1.0E+00,V\n");
+        LightCurve lc = LightCurveReader.read(p, ReadOptions.defaults());
+        assertThat(lc.fluxes()).containsExactly(0.99, 1.0);
+        assertThat(lc.band()).isEqualTo("V");
+        assertThat(lc.rejectedRows()).containsEntry("NaN or infinite", 1);
+    }
+
+    @Test
+    void rowsWithoutTheirBandCountInEveryBand() throws IOException {
+        Path p = file("lc.csv", "time,band,flux\n1,B,1\n2,V,1\n3,,1\n4,B,1\n5,V,1\n");
+        Map<String, LightCurve> bands = LightCurveReader.readBands(p, ReadOptions.defaults());
+        assertThat(bands.get("B").rejectedRows()).containsEntry("missing field", 1);
+        assertThat(bands.get("V").rejectedRows()).containsEntry("missing field", 1);
+    }
 }
