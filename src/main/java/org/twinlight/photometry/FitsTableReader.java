@@ -49,8 +49,9 @@ final class FitsTableReader {
             BasicHDU<?> h;
             while ((h = nextHdu(fits, file, hdus.size())) != null) {
                 hdus.add(h);
-                if (options.hdu() != null && hdus.size() > options.hdu()) {
-                    break;
+                boolean found = options.hdu() != null ? hdus.size() > options.hdu() : h instanceof BinaryTableHDU;
+                if (found) {
+                    break; // HDUs after the one wanted are not read, so damage there does not matter
                 }
             }
             int index = chooseHdu(file, hdus, options.hdu());
