@@ -9,25 +9,25 @@ import picocli.CommandLine.Option;
 /** The options every command that reads photometry shares (a picocli mixin). */
 public final class PhotometryOptions {
 
-    @Option(names = "--time-column", paramLabel = "NAME|N", description = "Time column, by header name or 1-based number.")
+    @Option(names = "--time-column", paramLabel = "NAME|N", description = "Time column, by header name or 1-based number (default: a column named time, bjd, hjd, jd, mjd, btjd or date; without a header row, column 1).")
     String timeColumn;
 
-    @Option(names = "--value-column", paramLabel = "NAME|N", description = "Flux or magnitude column.")
+    @Option(names = "--value-column", paramLabel = "NAME|N", description = "Flux or magnitude column, by name or number (default: pdcsap_flux, flux, rel_flux, sap_flux, mag, magnitude or value; without a header row, column 2).")
     String valueColumn;
 
-    @Option(names = "--error-column", paramLabel = "NAME|N", description = "Error column of the values.")
+    @Option(names = "--error-column", paramLabel = "NAME|N", description = "1-sigma error column of the values, by name or number (default: the value column's _err twin, else err, error, sigma, ...; without a header row, column 3 when there is one).")
     String errorColumn;
 
-    @Option(names = "--band-column", paramLabel = "NAME|N", description = "Column naming the band of each row.")
+    @Option(names = "--band-column", paramLabel = "NAME|N", description = "Column naming the band of each row, by name or number (default: a column named band or filter). A file with several bands is read band by band where the command allows it.")
     String bandColumn;
 
-    @Option(names = "--quality-column", paramLabel = "NAME", description = "Quality-flag column; rows with a non-zero flag are dropped and counted.")
+    @Option(names = "--quality-column", paramLabel = "NAME|N", description = "Quality-flag column, by name or number; rows with a non-zero flag are dropped and counted (default: a column named quality or flag).")
     String qualityColumn;
 
-    @Option(names = "--values", paramLabel = "flux|magnitude", description = "What the value column holds (default: from the header, else flux).")
+    @Option(names = "--values", paramLabel = "flux|magnitude", description = "What the value column holds (default: magnitude when its name contains 'mag', else flux). Magnitudes become relative flux 10^(-0.4 m).")
     String values;
 
-    @Option(names = "--time-scale", paramLabel = "SCALE", description = "Time scale of the times, e.g. BJD_TDB, HJD_UTC, JD_UTC, MJD_UTC (default: from the file, else unknown).")
+    @Option(names = "--time-scale", paramLabel = "SCALE", description = "Time scale of the times, e.g. BJD_TDB, HJD_UTC, JD_UTC, MJD_UTC (default: FITS time keywords, or a text header such as BJD_TDB; else unknown).")
     String timeScale;
 
     @Option(names = "--time-offset", paramLabel = "DAYS", description = "Days added to every time (e.g. 2457000 for times given as BJD−2457000).")

@@ -1,9 +1,19 @@
 package org.twinlight.photometry;
 
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
+import java.util.Map;
+import java.util.stream.Collectors;
+import org.twinlight.BadInputException;
 
 /**
- * Reads a light curve from a delimited text file or a FITS binary table, whichever the file is.
+ * Reads a light curve from a delimited text file or a FITS binary table, whichever the file is
+ * (a FITS file starts with {@code SIMPLE  =}; gzip-compressed {@code .fits.gz} is read too).
+ * The file is never modified. See {@code docs/reading-photometry.md} for the columns, keywords
+ * and rejection rules.
  */
 public final class LightCurveReader {
 
@@ -11,12 +21,52 @@ public final class LightCurveReader {
     }
 
     /**
-     * Reads {@code file} with {@code options}.
+     * Reads {@code file} with {@code options}. A file whose band column holds several bands is
+     * refused: read it with {@link #readBands}.
      *
      * @throws org.twinlight.BadInputException naming the file, row or HDU and column when the
      *     file cannot be used
      */
     public static LightCurve read(Path file, ReadOptions options) {
-        return SimpleTextReader.read(file, options);
+        Map<String, LightCurve> bands = readBands(file, options);
+        if (bands.size() > 1) {
+            String list = bands.entrySet().stream()
+                    .map(e -> e.getKey() + " (" + e.getValue().size() + " points)")
+                    .collect(Collectors.joining(", "));
+            String column = options.bandColumn();
+            throw BadInputException.at(file, null, column, "the file holds " + bands.size() + " bands: " + list
+                    + "; a light curve must be one band. Give one file per band (or read it as several bands "
+                    + "where the command offers that)");
+        }
+        return bands.values().iterator().next();
+    }
+
+    /**
+     * Reads every band of {@code file}: one light curve per value of the band column, in order of
+     * first appearance, or a single entry (keyed by the band, or {@code ""} when there is none)
+     * when the file has no band column. Times must be strictly increasing within each band.
+     *
+     * @throws org.twinlight.BadInputException naming the file, row or HDU and column when the
+     *     file cannot be used
+     */
+    public static Map<String, LightCurve> readBands(Path file, ReadOptions options) {
+        ReadOptions o = options == null ? ReadOptions.defaults() : options;
+        if (Files.isDirectory(file)) {
+            throw BadInputException.at(file, null, null, "a directory; expected a photometry file");
+        }
+        byte[] head = new byte[16];
+        int n;
+        try (InputStream in = Files.newInputStream(file)) {
+            n = in.readNBytes(head, 0, head.length);
+        } catch (NoSuchFileException e) {
+            throw BadInputException.at(file, null, null, "no such file");
+        } catch (IOException e) {
+            throw BadInputException.at(file, null, null, "cannot read the file (" + e.getMessage() + ")");
+        }
+        byte[] start = java.util.Arrays.copyOf(head, n);
+        if (FitsTableReader.looksLikeFits(start, file.getFileName().toString())) {
+            return FitsTableReader.read(file, o);
+        }
+        return TextTableReader.read(file, o);
     }
 }
