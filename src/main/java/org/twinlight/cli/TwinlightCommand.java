@@ -18,6 +18,7 @@ import picocli.CommandLine.Option;
             FitCommand.class,
             BenchCommand.class,
             TimeCommand.class,
+            InspectCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 

@@ -8,6 +8,7 @@ import java.util.regex.Pattern;
 import nom.tam.fits.Header;
 import nom.tam.fits.HeaderCard;
 import org.twinlight.BadInputException;
+import org.twinlight.time.CalendarDate;
 import org.twinlight.time.TimeReference;
 import org.twinlight.time.TimeScale;
 import org.twinlight.time.TimeStandard;
@@ -166,27 +167,27 @@ record FitsTime(double referenceWholeDays, double referenceFractionDays, double 
     }
 
     /**
-     * Julian date of a Gregorian calendar date-time, as whole day and fraction. The day number is
-     * Fliegel &amp; Van Flandern (1968), Comm. ACM 11, 657 (integer arithmetic); JD starts at noon,
-     * so 0 h is JDN − 0.5.
+     * Julian date of a Gregorian calendar date-time, as the Julian date of 0 h and the fraction of
+     * the day (Meeus 1998, <i>Astronomical Algorithms</i>, ch. 7, via {@link CalendarDate}).
      */
     static double[] calendarToJulianDate(String iso, Keys k) {
         Matcher m = ISO_DATE.matcher(iso.trim());
         if (!m.matches()) {
             throw k.error("DATEREF", "expected an ISO-8601 date such as 2000-01-01T00:00:00, got '" + iso + "'");
         }
-        long y = Long.parseLong(m.group(1));
-        long mo = Long.parseLong(m.group(2));
-        long d = Long.parseLong(m.group(3));
-        long a = (mo - 14) / 12;
-        long jdn = (1461 * (y + 4800 + a)) / 4 + (367 * (mo - 2 - 12 * a)) / 12 - (3 * ((y + 4900 + a) / 100)) / 4
-                + d - 32075;
+        double dayStart;
+        try {
+            dayStart = new CalendarDate(Integer.parseInt(m.group(1)), Integer.parseInt(m.group(2)),
+                    Integer.parseInt(m.group(3))).toJulianDay(true);
+        } catch (IllegalArgumentException e) {
+            throw k.error("DATEREF", "not a calendar date: '" + iso + "' (" + e.getMessage() + ")");
+        }
         double seconds = 0;
         if (m.group(4) != null) {
             seconds = Integer.parseInt(m.group(4)) * 3600.0 + Integer.parseInt(m.group(5)) * 60.0
                     + Double.parseDouble(m.group(6));
         }
-        return new double[] {jdn, seconds / 86400.0 - 0.5};
+        return new double[] {dayStart, seconds / 86400.0};
     }
 
     /** Keyword lookup in the table header, then the primary header. */

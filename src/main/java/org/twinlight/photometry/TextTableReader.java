@@ -23,7 +23,9 @@ import org.twinlight.time.TimeScale;
  * <ul>
  *   <li>Delimiter: tab, semicolon or comma when every one of the first data lines splits into
  *       two or more fields on it (tried in that order), else white space.</li>
- *   <li>{@code #} starts a comment, on its own line or after the data. Blank lines are skipped.</li>
+ *   <li>{@code #} starts a comment, on its own line or after the data. Blank lines are skipped.
+ *       A comment {@code # time scale: LABEL} before the data declares the time scale (unless
+ *       {@code --time-scale} is given).</li>
  *   <li>Header: the first non-comment line is a header when none of its fields is a number, or
  *       when one of them is not a number where the next line has a number.
  *       Without one, the last comment line before the data is taken as the header when it has
@@ -95,6 +97,9 @@ final class TextTableReader {
                         : ValueKind.FLUX;
         TimeScale scale = options.timeScale();
         if (scale == null) {
+            scale = declaredTimeScale(file, lines, dataLines.get(0));
+        }
+        if (scale == null) {
             scale = header == null ? TimeScale.UNKNOWN : TimeScale.parse(timeName).orElse(TimeScale.UNKNOWN);
         }
         String bandName = ColumnChoice.label(header, columns.band());
@@ -106,6 +111,28 @@ final class TextTableReader {
         }
         double offset = options.timeOffsetDays() == null ? 0.0 : options.timeOffsetDays();
         return rows.build(file.getFileName().toString(), null, scale, DoubleUnaryOperator.identity(), offset);
+    }
+
+    private static final java.util.regex.Pattern TIME_SCALE_COMMENT =
+            java.util.regex.Pattern.compile("^\\s*#\\s*time[ _-]?scale\\s*[:=]\\s*(\\S+)",
+                    java.util.regex.Pattern.CASE_INSENSITIVE);
+
+    /**
+     * The scale declared by a comment line {@code # time scale: BJD_TDB} before the data (as
+     * twinlight's own CSV files carry), or null when there is none.
+     */
+    private static TimeScale declaredTimeScale(Path file, List<String> lines, int firstData) {
+        for (int i = 0; i < firstData; i++) {
+            java.util.regex.Matcher m = TIME_SCALE_COMMENT.matcher(lines.get(i));
+            if (m.find()) {
+                String label = m.group(1).replaceAll("[;,.]+$", "");
+                int line = i + 1;
+                return TimeScale.parse(label).orElseThrow(() -> BadInputException.at(file, "line " + line, null,
+                        "unknown time scale '" + label + "' in the comment; expected one of "
+                                + TimeScale.acceptedLabels()));
+            }
+        }
+        return null;
     }
 
     private static void readRow(RowCollector rows, int lineNumber, List<String> f, int need, ColumnChoice c,

@@ -54,6 +54,18 @@ class TextTableReaderTest {
     }
 
     @Test
+    void timeScaleCommentDeclaresTheScaleUnlessTheOptionDoes() throws IOException {
+        Path p = file("own.csv", "# time scale: HJD_UTC\n# made by a test\ntime,flux\n2460000.1,1.0\n2460000.2,0.9\n");
+        assertThat(LightCurveReader.read(p, ReadOptions.defaults()).timeScale()).isEqualTo(TimeScale.HJD_UTC);
+        assertThat(LightCurveReader.read(p, ReadOptions.defaults().withTimeScale(TimeScale.BJD_TDB)).timeScale())
+                .isEqualTo(TimeScale.BJD_TDB);
+        Path bad = file("bad.csv", "# time scale: HJD_XYZ\ntime,flux\n2460000.1,1.0\n");
+        assertThatThrownBy(() -> LightCurveReader.read(bad, ReadOptions.defaults()))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("bad.csv").hasMessageContaining("line 1")
+                .hasMessageContaining("HJD_XYZ");
+    }
+
+    @Test
     void whiteSpaceWithoutHeaderTakesTimeValueError() throws IOException {
         Path p = file("lc.dat", "  2460000.1   1.00  0.01  1.3\n2460000.2 0.98 0.01 1.4 # airmass last\n\n"
                 + "2460000.3\t0.97   0.01 1.5\n");
