@@ -204,7 +204,7 @@ public final class EclipseFitter {
             for (int b = a + 1; b < corr.length; b++) {
                 if (Math.abs(corr[a][b]) > 0.98) {
                     notes.add(String.format(java.util.Locale.ROOT, "%s and %s are strongly correlated (%.3f): their "
-                            + "individual values are poorly determined", freeNames.get(a), freeNames.get(b), corr[a][b]));
+                            + "errors are not independent; use the correlation matrix when propagating them", freeNames.get(a), freeNames.get(b), corr[a][b]));
                 }
             }
         }
