@@ -1,0 +1,108 @@
+package org.twinlight.eclipse;
+
+/**
+ * Closed-form occultation of a star with a uniform, linear or quadratic limb-darkening law by an
+ * opaque disc, after K. Mandel &amp; E. Agol 2002, "Analytic light curves for planetary transit
+ * searches", ApJ 580, L171 (their Table 1 and eq. 1–8 of section 3).
+ *
+ * <p>Lengths in units of the occulted star's radius: p is the radius of the occulting disc and z
+ * the distance between the centres. With a = (z−p)², b = (z+p)², q = p²−z² and
+ * k² = (1−a)/(4zp), the hidden fraction of the quadratic law 1 − u₁(1−μ) − u₂(1−μ)² is
+ * <pre>
+ *   [(1−c₂) λᵉ + c₂ (λᵈ + ⅔ Θ(p−z)) − c₄ ηᵈ] / (4Ω),
+ *   c₂ = u₁ + 2u₂,  c₄ = −u₂,  Ω = (1−u₁−u₂)/4 + c₂/6 + c₄/8,
+ * </pre>
+ * where λᵉ is the overlap area over π, and λᵈ, ηᵈ are the piecewise functions λ₁, λ₂, η₁, η₂ of
+ * MA02 Table 1 written with complete elliptic integrals. The special lines of that table
+ * (z = p, z = 1−p, z = 0, p = ½) are not used: there, and in a band around each of them where the
+ * general expressions lose digits to cancellation or divergent factors, {@link #hiddenFraction}
+ * returns NaN so that the caller falls back to quadrature.
+ */
+final class MandelAgol {
+    /** Half-width of the band around z = p where q/a and Π((a−1)/a, k) diverge against each
+     *  other; chosen from a scan of the closed form against quadrature (see the tests). */
+    static final double NEAR_P = 1e-4;
+    /** Half-width of the band around z = |1−p| (contact of the limbs), where k → 1. */
+    static final double NEAR_CONTACT = 1e-4;
+    /** Below this z the λ₂ expression loses digits (k → ∞). */
+    static final double NEAR_CENTRE = 1e-4;
+
+    private MandelAgol() {
+    }
+
+    /**
+     * Fraction of the star's flux hidden, for the quadratic law with coefficients u₁, u₂ (u₂ = 0
+     * is the linear law, u₁ = u₂ = 0 the uniform disc); NaN where the closed form is not trusted.
+     * Requires p &gt; 0 and |1−p| &lt; z &lt; 1+p or z &lt; 1−p (the caller handles no overlap and
+     * full cover).
+     */
+    static double hiddenFraction(double u1, double u2, double p, double z) {
+        double zMinusP = z - p;
+        double zPlusP = z + p;
+        if (Math.abs(zMinusP) < NEAR_P * Math.max(1.0, p) || z < NEAR_CENTRE
+                || Math.abs(zPlusP - 1) < NEAR_CONTACT || Math.abs(z - Math.abs(1 - p)) < NEAR_CONTACT) {
+            return Double.NaN;
+        }
+        double c2 = u1 + 2 * u2;
+        double c4 = -u2;
+        double omega = (1 - u1 - u2) / 4 + c2 / 6 + c4 / 8;
+        double a = zMinusP * zMinusP;
+        double b = zPlusP * zPlusP;
+        double q = (p - z) * (p + z); // p² − z² as a product: no cancellation when z ≈ p
+        double oneMinusA = (1 - zMinusP) * (1 + zMinusP);
+        double oneMinusB = (1 - zPlusP) * (1 + zPlusP);
+        double lambdaE;
+        double lambdaD;
+        double etaD;
+        if (zPlusP < 1) {
+            // the disc lies inside the stellar disc (MA02 Table 1, cases 3 and 9)
+            lambdaE = p * p;
+            if (c2 == 0 && c4 == 0) {
+                return lambdaE;
+            }
+            lambdaD = lambda2(p, z, a, b, q, oneMinusA, oneMinusB);
+            etaD = 0.5 * p * p * (p * p + 2 * z * z);
+        } else {
+            // the limbs cross (MA02 Table 1, cases 2 and 8)
+            double root = Math.sqrt(oneMinusA * -oneMinusB); // √((1−a)(b−1)) = √(4z² − (1+z²−p²)²)
+            double kappa1 = Math.atan2(root, 1 - q);
+            double kappa0 = Math.atan2(root, p * p + (z - 1) * (z + 1));
+            lambdaE = DiscOverlap.lensOverPi(p, kappa0, kappa1, root);
+            if (c2 == 0 && c4 == 0) {
+                return lambdaE;
+            }
+            lambdaD = lambda1(p, z, a, b, q, oneMinusA, oneMinusB);
+            double eta2 = 0.5 * p * p * (p * p + 2 * z * z);
+            etaD = (kappa1 + 2 * eta2 * kappa0 - 0.25 * (1 + 5 * p * p + z * z) * root) / (2 * Math.PI);
+        }
+        double theta = p > z ? 2.0 / 3.0 : 0.0;
+        return ((1 - c2) * lambdaE + c2 * (lambdaD + theta) - c4 * etaD) / (4 * omega);
+    }
+
+    /** λ₁ of MA02 Table 1, for |1−p| &lt; z &lt; 1+p (modulus k &lt; 1). */
+    private static double lambda1(double p, double z, double a, double b, double q, double oneMinusA,
+            double oneMinusB) {
+        double fourPz = 4 * p * z;
+        double kc = Math.sqrt(-oneMinusB / fourPz); // √(1−k²) = √((b−1)/(4pz))
+        double bigK = EllipticIntegrals.completeFirstKind(kc);
+        double bigE = EllipticIntegrals.completeSecondKind(kc);
+        double bigPi = EllipticIntegrals.completeThirdKind(1 / a, kc); // Π((a−1)/a, k): 1 − n = 1/a
+        double termK = (oneMinusB * (2 * b + a - 3) - 3 * q * (b - 2)) * bigK;
+        double termE = fourPz * (z * z + 7 * p * p - 4) * bigE;
+        double termPi = -3 * (q / a) * bigPi;
+        return (termK + termE + termPi) / (9 * Math.PI * Math.sqrt(p * z));
+    }
+
+    /** λ₂ of MA02 Table 1, for z + p &lt; 1 (the elliptic integrals take the modulus 1/k &lt; 1). */
+    private static double lambda2(double p, double z, double a, double b, double q, double oneMinusA,
+            double oneMinusB) {
+        double kc = Math.sqrt(oneMinusB / oneMinusA); // √(1 − 1/k²) = √((1−b)/(1−a))
+        double bigK = EllipticIntegrals.completeFirstKind(kc);
+        double bigE = EllipticIntegrals.completeSecondKind(kc);
+        double bigPi = EllipticIntegrals.completeThirdKind(b / a, kc); // Π((a−b)/a, 1/k): 1 − n = b/a
+        double termK = (1 - 5 * z * z + p * p + q * q) * bigK;
+        double termE = oneMinusA * (z * z + 7 * p * p - 4) * bigE;
+        double termPi = -3 * (q / a) * bigPi;
+        return 2 * (termK + termE + termPi) / (9 * Math.PI * Math.sqrt(oneMinusA));
+    }
+}
