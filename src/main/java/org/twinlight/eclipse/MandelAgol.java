@@ -14,18 +14,29 @@ package org.twinlight.eclipse;
  * </pre>
  * where λᵉ is the overlap area over π, and λᵈ, ηᵈ are the piecewise functions λ₁, λ₂, η₁, η₂ of
  * MA02 Table 1 written with complete elliptic integrals. The special lines of that table
- * (z = p, z = 1−p, z = 0, p = ½) are not used: there, and in a band around each of them where the
- * general expressions lose digits to cancellation or divergent factors, {@link #hiddenFraction}
- * returns NaN so that the caller falls back to quadrature.
+ * (z = p, z = 1−p, z = 0, p = ½) are not used: on them and in a narrow band around each, near
+ * z = 0 and for p &gt; 100, where the general expressions are 0/0 or lose digits to cancellation,
+ * {@link #hiddenFraction} returns NaN so that the caller falls back to quadrature. Differences of
+ * nearly equal numbers are formed as products: z²−p² = (z−p)(z+p), 1−a = (1−z+p)(1+z−p),
+ * 1−b = (1−z−p)(1+z+p), and the complementary moduli are passed to the elliptic integrals
+ * directly, so the closed form keeps about 1e-14 right up to the special lines.
  */
 final class MandelAgol {
-    /** Half-width of the band around z = p where q/a and Π((a−1)/a, k) diverge against each
-     *  other; chosen from a scan of the closed form against quadrature (see the tests). */
-    static final double NEAR_P = 1e-4;
-    /** Half-width of the band around z = |1−p| (contact of the limbs), where k → 1. */
-    static final double NEAR_CONTACT = 1e-4;
-    /** Below this z the λ₂ expression loses digits (k → ∞). */
+    /**
+     * Width of the bands around the lines z = p and z = |1−p| where the quadrature is used. With
+     * q, a, 1−a and 1−b formed as products the closed form keeps about 1e-14 right up to these
+     * lines (a scan down to distances of 1e-14 is in the tests); on them it is 0/0, and within
+     * this band the characteristic 1/a or b/a and the modulus approach their limits so closely
+     * that little is gained by trusting it.
+     */
+    static final double NEAR_LINE = 1e-9;
+    /**
+     * Below this z the factor 1/√(pz) of λ₁ (reached only for p close to 1) multiplies the
+     * rounding of its bracket: the error grows like 1e-16/√z (4e-9 at z = 1e-8).
+     */
     static final double NEAR_CENTRE = 1e-4;
+    /** Above this p the terms of λ₁ grow like p³ and cancel: the error grows like 1e-15 p³ (1e-9 at p = 100). */
+    static final double LARGE_P = 100;
 
     private MandelAgol() {
     }
@@ -39,15 +50,25 @@ final class MandelAgol {
     static double hiddenFraction(double u1, double u2, double p, double z) {
         double zMinusP = z - p;
         double zPlusP = z + p;
-        if (Math.abs(zMinusP) < NEAR_P * Math.max(1.0, p) || z < NEAR_CENTRE
-                || Math.abs(zPlusP - 1) < NEAR_CONTACT || Math.abs(z - Math.abs(1 - p)) < NEAR_CONTACT) {
+        if (Math.abs(zMinusP) < NEAR_LINE * Math.max(1.0, p) || z < NEAR_CENTRE || p > LARGE_P
+                || Math.abs(zPlusP - 1) < NEAR_LINE || Math.abs(z - Math.abs(1 - p)) < NEAR_LINE) {
             return Double.NaN;
         }
+        return hiddenFractionUnguarded(u1, u2, p, z);
+    }
+
+    /** {@link #hiddenFraction} without the bands of ill-conditioning (for the scans of the tests). */
+    static double hiddenFractionUnguarded(double u1, double u2, double p, double z) {
+        double zMinusP = z - p;
+        double zPlusP = z + p;
         double c2 = u1 + 2 * u2;
         double c4 = -u2;
         double omega = (1 - u1 - u2) / 4 + c2 / 6 + c4 / 8;
         double a = zMinusP * zMinusP;
         double b = zPlusP * zPlusP;
+        if (a == 0 || z == 0 || zPlusP == 1) {
+            return Double.NaN; // the general expressions are 0/0 on these lines
+        }
         double q = (p - z) * (p + z); // p² − z² as a product: no cancellation when z ≈ p
         double oneMinusA = (1 - zMinusP) * (1 + zMinusP);
         double oneMinusB = (1 - zPlusP) * (1 + zPlusP);
