@@ -77,7 +77,7 @@ public final class Occultation {
         double lens = DiscOverlap.areaOverPi(p, z);
         switch (ld.law()) {
             case UNIFORM:
-                return lens;
+                return clamp(lens);
             case LINEAR:
             case QUADRATIC: {
                 double u2 = ld.law() == LimbDarkeningLaw.QUADRATIC ? ld.coefficient(1) : 0.0;
