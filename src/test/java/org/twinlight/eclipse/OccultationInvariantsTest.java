@@ -87,6 +87,21 @@ class OccultationInvariantsTest {
     }
 
     @Test
+    void arccosOfTheQuadratureMatchesTheJavaLibrary() {
+        // against java.lang.StrictMath.acos (fdlibm), over [−1, 1] and near both ends
+        for (int i = 0; i <= 200_000; i++) {
+            double c = -1 + 2.0 * i / 200_000;
+            assertThat(Occultation.arccos(c)).as("c=%s", c).isCloseTo(StrictMath.acos(c), within(2e-15));
+        }
+        for (double d = 1e-16; d < 0.1; d *= 3) {
+            assertThat(Occultation.arccos(1 - d)).isCloseTo(StrictMath.acos(1 - d), within(1e-15 * StrictMath.acos(1 - d)));
+            assertThat(Occultation.arccos(-1 + d)).isCloseTo(StrictMath.acos(-1 + d), within(1e-15));
+        }
+        assertThat(Occultation.arccos(1.0000001)).isZero();
+        assertThat(Occultation.arccos(-1.0000001)).isEqualTo(Math.PI);
+    }
+
+    @Test
     void badArgumentsAreRejectedAndANullDiscHidesNothing() {
         LimbDarkening ld = LimbDarkening.quadratic(0.4, 0.26);
         assertThat(Occultation.hiddenFraction(ld, 0.0, 0.2)).isZero();
