@@ -23,14 +23,18 @@ import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactor
  * smooth at the limb) after a cosine substitution that removes the square-root behaviour of α at
  * the ends of the interval. Subtracting the central intensity makes the integrand vanish like r³
  * at the disc centre, so the rapid turn of α(r) near r = |z−p| when the occulting limb passes
- * close to the centre costs nothing.</li>
+ * close to the centre costs no accuracy. The rule has 8, 12 or 16 nodes by radius ratio;
+ * half-integer powers of μ are products of s, and arccos goes through arcsin.</li>
  * </ul>
+ *
+ * <p>Accuracy: within 1e-7 of an independent adaptive integration for every law and geometry
+ * tested (largest difference found 6e-9); see {@code docs/occultation.md}.
  */
 public final class Occultation {
-    /** Node counts of the precomputed Gauss–Legendre rules. */
-    /** Index of the finest rule, for tests. */
-    static final int FINEST_RULE = 7;
-    static final int[] NODE_COUNTS = {8, 12, 16, 20, 24, 32, 48, 64};
+    /** Node counts of the precomputed Gauss–Legendre rules; the last one only serves the tests. */
+    static final int[] NODE_COUNTS = {8, 12, 16, 64};
+    /** Index of the finest rule, accurate to about 1e-13, against which the tests compare. */
+    static final int FINEST_RULE = 3;
     private static final int RULE_8 = 0;
     private static final int RULE_12 = 1;
     private static final int RULE_16 = 2;
