@@ -15,7 +15,7 @@ package org.twinlight.eclipse;
  * where λᵉ is the overlap area over π, and λᵈ, ηᵈ are the piecewise functions λ₁, λ₂, η₁, η₂ of
  * MA02 Table 1 written with complete elliptic integrals. The special lines of that table
  * (z = p, z = 1−p, z = 0, p = ½) are not used: on them and in a narrow band around each, near
- * z = 0 and for p &gt; 100, where the general expressions are 0/0 or lose digits to cancellation,
+ * z = 0, for p &gt; 100 and for p &lt; 0.001, where the general expressions are 0/0 or lose digits to cancellation,
  * {@link #hiddenFraction} returns NaN so that the caller falls back to quadrature. Differences of
  * nearly equal numbers are formed as products: z²−p² = (z−p)(z+p), 1−a = (1−z+p)(1+z−p),
  * 1−b = (1−z−p)(1+z+p), and the complementary moduli are passed to the elliptic integrals
@@ -37,6 +37,12 @@ final class MandelAgol {
     static final double NEAR_CENTRE = 1e-4;
     /** Above this p the terms of λ₁ grow like p³ and cancel: the error grows like 1e-15 p³ (1e-9 at p = 100). */
     static final double LARGE_P = 100;
+    /**
+     * Below this p, λ₁ and λ₂ are O(p²) sums of O(1) terms: the absolute error stays at rounding
+     * level but the relative error grows like 1e-16/p² (1e-6 at p = 1e-4), while the quadrature
+     * keeps its relative accuracy.
+     */
+    static final double SMALL_P = 1e-3;
 
     private MandelAgol() {
     }
@@ -50,7 +56,7 @@ final class MandelAgol {
     static double hiddenFraction(double u1, double u2, double p, double z) {
         double zMinusP = z - p;
         double zPlusP = z + p;
-        if (Math.abs(zMinusP) < NEAR_LINE * Math.max(1.0, p) || z < NEAR_CENTRE || p > LARGE_P
+        if (Math.abs(zMinusP) < NEAR_LINE * Math.max(1.0, p) || z < NEAR_CENTRE || p > LARGE_P || p < SMALL_P
                 || Math.abs(zPlusP - 1) < NEAR_LINE || Math.abs(z - Math.abs(1 - p)) < NEAR_LINE) {
             return Double.NaN;
         }

@@ -108,6 +108,7 @@ class MandelAgolTest {
         assertThat(MandelAgol.hiddenFraction(0.4, 0.26, 0.5, 0.5)).isNaN();
         assertThat(MandelAgol.hiddenFraction(0.4, 0.26, 1.0, 5e-5)).isNaN();
         assertThat(MandelAgol.hiddenFraction(0.4, 0.26, 300.0, 300.5)).isNaN();
+        assertThat(MandelAgol.hiddenFraction(0.4, 0.26, 1e-4, 0.5)).isNaN();
         assertThat(MandelAgol.hiddenFraction(0.4, 0.26, 0.3, 0.5)).isBetween(0.0, 1.0);
     }
 }
