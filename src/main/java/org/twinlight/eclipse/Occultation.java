@@ -66,11 +66,16 @@ public final class Occultation {
      * @param p radius of the occulting disc in units of the occulted star's radius, p &gt; 0
      *     (p ≤ 0 hides nothing)
      * @param z projected distance between the centres, same unit, z ≥ 0
-     * @throws IllegalArgumentException when p or z is NaN or z is negative
+     * @return the hidden fraction, or NaN when p or z is NaN (so that a model evaluated at
+     *     undefined parameters is undefined rather than an error deep inside a fit)
+     * @throws IllegalArgumentException when z is negative
      */
     public static double hiddenFraction(LimbDarkening ld, double p, double z) {
-        if (!(z >= 0) || Double.isNaN(p)) {
-            throw new IllegalArgumentException("occultation needs z >= 0 and a number p, got p=" + p + ", z=" + z);
+        if (Double.isNaN(p) || Double.isNaN(z)) {
+            return Double.NaN;
+        }
+        if (z < 0) {
+            throw new IllegalArgumentException("occultation needs a centre distance z >= 0, got z=" + z + " (p=" + p + ")");
         }
         if (z >= 1 + p || p <= 0) {
             return 0.0;
