@@ -38,6 +38,15 @@ final class EllipticIntegrals {
     }
 
     /**
+     * α K(k) + β E(k) in one evaluation: cel is linear in its last two arguments, and
+     * K = cel(kc, 1, 1, 1), E = cel(kc, 1, 1, kc²), so the combination is
+     * cel(kc, 1, α + β, α + β kc²) (Bulirsch 1969, section 1).
+     */
+    static double combinationOfFirstAndSecondKind(double kc, double alpha, double beta) {
+        return cel(kc, 1.0, alpha + beta, alpha + beta * kc * kc);
+    }
+
+    /**
      * Π(n, k) as a function of 1 − n (which must be non-zero) and kc = √(1−k²). Passing 1 − n
      * rather than n keeps its digits when n is large and negative.
      */

@@ -111,25 +111,23 @@ final class MandelAgol {
             double oneMinusB) {
         double fourPz = 4 * p * z;
         double kc = Math.sqrt(-oneMinusB / fourPz); // √(1−k²) = √((b−1)/(4pz))
-        double bigK = EllipticIntegrals.completeFirstKind(kc);
-        double bigE = EllipticIntegrals.completeSecondKind(kc);
+        double coefficientK = oneMinusB * (2 * b + a - 3) - 3 * q * (b - 2);
+        double coefficientE = fourPz * (z * z + 7 * p * p - 4);
+        double termsKE = EllipticIntegrals.combinationOfFirstAndSecondKind(kc, coefficientK, coefficientE);
         double bigPi = EllipticIntegrals.completeThirdKind(1 / a, kc); // Π((a−1)/a, k): 1 − n = 1/a
-        double termK = (oneMinusB * (2 * b + a - 3) - 3 * q * (b - 2)) * bigK;
-        double termE = fourPz * (z * z + 7 * p * p - 4) * bigE;
         double termPi = -3 * (q / a) * bigPi;
-        return (termK + termE + termPi) / (9 * Math.PI * Math.sqrt(p * z));
+        return (termsKE + termPi) / (9 * Math.PI * Math.sqrt(p * z));
     }
 
     /** λ₂ of MA02 Table 1, for z + p &lt; 1 (the elliptic integrals take the modulus 1/k &lt; 1). */
     private static double lambda2(double p, double z, double a, double b, double q, double oneMinusA,
             double oneMinusB) {
         double kc = Math.sqrt(oneMinusB / oneMinusA); // √(1 − 1/k²) = √((1−b)/(1−a))
-        double bigK = EllipticIntegrals.completeFirstKind(kc);
-        double bigE = EllipticIntegrals.completeSecondKind(kc);
+        double coefficientK = 1 - 5 * z * z + p * p + q * q;
+        double coefficientE = oneMinusA * (z * z + 7 * p * p - 4);
+        double termsKE = EllipticIntegrals.combinationOfFirstAndSecondKind(kc, coefficientK, coefficientE);
         double bigPi = EllipticIntegrals.completeThirdKind(b / a, kc); // Π((a−b)/a, 1/k): 1 − n = b/a
-        double termK = (1 - 5 * z * z + p * p + q * q) * bigK;
-        double termE = oneMinusA * (z * z + 7 * p * p - 4) * bigE;
         double termPi = -3 * (q / a) * bigPi;
-        return 2 * (termK + termE + termPi) / (9 * Math.PI * Math.sqrt(oneMinusA));
+        return 2 * (termsKE + termPi) / (9 * Math.PI * Math.sqrt(oneMinusA));
     }
 }

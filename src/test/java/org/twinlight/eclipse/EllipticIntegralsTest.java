@@ -39,6 +39,20 @@ class EllipticIntegralsTest {
     }
 
     @Test
+    void combinationOfFirstAndSecondKindIsTheSumOfItsParts() {
+        // linearity of cel in its last two arguments (Bulirsch 1969, Numer. Math. 13, 305, section 1)
+        for (double k : MODULI) {
+            double kc = kc(k);
+            double bigK = EllipticIntegrals.completeFirstKind(kc);
+            double bigE = EllipticIntegrals.completeSecondKind(kc);
+            for (double[] ab : new double[][] {{1, 0}, {0, 1}, {2.5, -1.5}, {-3, 7}}) {
+                assertThat(EllipticIntegrals.combinationOfFirstAndSecondKind(kc, ab[0], ab[1])).as("k=%s", k)
+                        .isCloseTo(ab[0] * bigK + ab[1] * bigE, within(1e-13 * (Math.abs(ab[0]) * bigK + Math.abs(ab[1]) * bigE)));
+            }
+        }
+    }
+
+    @Test
     void thirdKindMatchesItsDefiningIntegral() {
         // Π(n, k) = ∫ dφ / [(1 − n sin²φ) √(1−k² sin²φ)] over [0, π/2]: Abramowitz & Stegun 1964,
         // 17.7.2 (written there with the characteristic as −n; the sign used here is that of
