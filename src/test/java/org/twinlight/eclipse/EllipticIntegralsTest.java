@@ -28,7 +28,8 @@ class EllipticIntegralsTest {
     @Test
     void firstAndSecondKindMatchTheirDefiningIntegrals() {
         // definitions K(k) = ∫ dφ/√(1−k² sin²φ), E(k) = ∫ √(1−k² sin²φ) dφ over [0, π/2]:
-        // Abramowitz & Stegun 1964, Handbook of Mathematical Functions, 17.3.1 and 17.3.3
+        // Abramowitz & Stegun 1964, Handbook of Mathematical Functions, 17.3.1 and 17.3.3 (equation
+        // numbers from memory)
         for (double k : MODULI) {
             double k2 = k * k;
             double bigK = quadrature(phi -> 1 / Math.sqrt(1 - k2 * Math.sin(phi) * Math.sin(phi)));
@@ -55,7 +56,7 @@ class EllipticIntegralsTest {
     @Test
     void thirdKindMatchesItsDefiningIntegral() {
         // Π(n, k) = ∫ dφ / [(1 − n sin²φ) √(1−k² sin²φ)] over [0, π/2]: Abramowitz & Stegun 1964,
-        // 17.7.2 (written there with the characteristic as −n; the sign used here is that of
+        // 17.7.2 (from memory; written there with the characteristic as −n; the sign used here is that of
         // Mandel & Agol 2002, ApJ 580, L171, section 3)
         for (double k : MODULI) {
             for (double n : CHARACTERISTICS) {
@@ -78,7 +79,7 @@ class EllipticIntegralsTest {
         assertThat(EllipticIntegrals.completeSecondKind(1.0)).isCloseTo(0.5 * Math.PI, within(1e-15));
         assertThat(EllipticIntegrals.completeThirdKind(4.0, 1.0)).isCloseTo(0.25 * Math.PI, within(1e-15));
         assertThat(EllipticIntegrals.completeSecondKind(1e-300)).isCloseTo(1.0, within(1e-15));
-        // Legendre's relation E K' + E' K − K K' = π/2: Abramowitz & Stegun 1964, 17.3.13
+        // Legendre's relation E K' + E' K − K K' = π/2: Abramowitz & Stegun 1964, 17.3.13 (from memory)
         for (double k : new double[] {0.01, 0.2, 0.5, 0.8, 0.99, 0.999999}) {
             double kc = kc(k);
             double bigK = EllipticIntegrals.completeFirstKind(kc);
@@ -91,7 +92,7 @@ class EllipticIntegralsTest {
 
     @Test
     void firstKindGrowsLogarithmicallyAtUnitModulus() {
-        // K(k) → ln(4/kc) as kc → 0: Abramowitz & Stegun 1964, 17.3.26
+        // K(k) → ln(4/kc) as kc → 0: Abramowitz & Stegun 1964, 17.3.26 (from memory)
         double kc = 1e-9;
         assertThat(EllipticIntegrals.completeFirstKind(kc)).isCloseTo(Math.log(4 / kc), within(1e-15));
     }
