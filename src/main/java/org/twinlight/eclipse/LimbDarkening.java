@@ -20,6 +20,13 @@ public final class LimbDarkening {
     private final double[] weights;
     private final double logWeight;
     private final double totalFlux;
+    // how each power of μ is evaluated from s = √μ without Math.pow where possible
+    private final int[] powerKinds;
+    private static final int POWER_HALF = 1;
+    private static final int POWER_ONE = 2;
+    private static final int POWER_THREE_HALVES = 3;
+    private static final int POWER_TWO = 4;
+    private static final int POWER_OTHER = 0;
 
     private LimbDarkening(LimbDarkeningLaw law, double[] coefficients) {
         this.law = law;
@@ -72,6 +79,12 @@ public final class LimbDarkening {
             default -> throw new IllegalStateException(law.name());
         }
         this.totalFlux = centralFlux(0.0);
+        this.powerKinds = new int[powers.length];
+        for (int j = 0; j < powers.length; j++) {
+            double a = powers[j];
+            powerKinds[j] = a == 0.5 ? POWER_HALF : a == 1 ? POWER_ONE : a == 1.5 ? POWER_THREE_HALVES
+                    : a == 2 ? POWER_TWO : POWER_OTHER;
+        }
     }
 
     /**
@@ -140,6 +153,31 @@ public final class LimbDarkening {
         }
         if (logWeight != 0 && mu > 0) {
             v += logWeight * mu * Math.log(mu);
+        }
+        return v;
+    }
+
+    /**
+     * I(μ) − 1 evaluated from s = √μ (0 ≤ s ≤ 1): the deficit of intensity below the disc
+     * centre. Half-integer powers of μ are products of s, so only the power-2 law with a general
+     * exponent and the logarithmic law call a transcendental function.
+     */
+    double intensityDeficitAtRootMu(double s) {
+        double mu = s * s;
+        double v = constant - 1.0;
+        for (int j = 0; j < powerKinds.length; j++) {
+            double term = switch (powerKinds[j]) {
+                case POWER_HALF -> s;
+                case POWER_ONE -> mu;
+                case POWER_THREE_HALVES -> mu * s;
+                case POWER_TWO -> mu * mu;
+                default -> Math.pow(mu, powers[j]);
+            };
+            v += weights[j] * term;
+        }
+        if (logWeight != 0 && s > 0) {
+            // μ ln μ = 2 s² ln s
+            v += logWeight * 2 * mu * Math.log(s);
         }
         return v;
     }
