@@ -25,7 +25,6 @@ class InspectCommandTest {
 
     private int run(String... args) {
         CommandLine cl = TwinlightCommand.commandLine();
-        cl.addSubcommand(new InspectCommand());
         cl.setOut(new PrintWriter(out));
         cl.setErr(new PrintWriter(err));
         return cl.execute(args);

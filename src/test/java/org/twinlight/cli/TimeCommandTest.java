@@ -26,7 +26,6 @@ class TimeCommandTest {
 
     private int run(String... args) {
         CommandLine cl = TwinlightCommand.commandLine();
-        cl.addSubcommand("time", new TimeCommand());
         cl.setOut(new PrintWriter(out));
         cl.setErr(new PrintWriter(err));
         String[] all = new String[args.length + 1];
