@@ -132,7 +132,7 @@ public final class MinimumFinder {
         if (candidates.isEmpty()) {
             return;
         }
-        MinimumTemplate template = buildTemplate(candidates, t, f, branch, half);
+        MinimumTemplate template = buildTemplate(candidates, t, f, w, branch, half);
         for (Candidate c : candidates) {
             int count = c.to() - c.from();
             if (template == null) {
@@ -158,8 +158,8 @@ public final class MinimumFinder {
                         significance, settings.minDepthSignificance())));
                 continue;
             }
-            double kvwError = replicaError(x, fc, wc, fit, search, half, MIN_REFLECT_FRACTION * duration, settings,
-                    c.cycle());
+            double kvwError = replicaError(x, fc, wc, fit, c.kvw().trialStepDays(), search, half,
+                    MIN_REFLECT_FRACTION * duration, settings, c.cycle());
             minima.add(new MinimumTime(c.cycle(), type, c.centre() + c.kvw().timeDays(), kvwError, MinimumMethod.KVW,
                     count, c.kvw().classicErrorDays()));
             minima.add(new MinimumTime(c.cycle(), type, c.centre() + fit.timeDays(), fit.errorDays(),
@@ -203,11 +203,12 @@ public final class MinimumFinder {
     }
 
     /** The template from all candidates of one type, each folded on its own reflection minimum. */
-    private static MinimumTemplate buildTemplate(List<Candidate> candidates, double[] t, double[] f, double branch,
-            double half) {
+    private static MinimumTemplate buildTemplate(List<Candidate> candidates, double[] t, double[] f, double[] w,
+            double branch, double half) {
         int total = candidates.stream().mapToInt(c -> c.to() - c.from()).sum();
         double[] offsets = new double[total];
         double[] depths = new double[total];
+        double[] depthWeights = new double[total];
         double global = MinimumProfileEstimate.median(f.clone());
         int k = 0;
         for (Candidate c : candidates) {
@@ -224,19 +225,23 @@ public final class MinimumFinder {
             for (int i = c.from(); i < c.to(); i++) {
                 offsets[k] = t[i] - minimum;
                 depths[k] = 1 - f[i] / baseline;
+                // σ(depth) = σ(flux)/baseline; unit weights stay unit (no errors in the data).
+                depthWeights[k] = w[i] == 1.0 ? 1.0 : w[i] * baseline * baseline;
                 k++;
             }
         }
-        return MinimumTemplate.build(offsets, depths, half);
+        return MinimumTemplate.build(offsets, depths, depthWeights, half);
     }
 
     /**
      * Error of the reflection method: it is applied to replicas made of the template model plus the
      * template fit's residuals (standardised by the point errors) drawn with replacement and
-     * inflated by √(n/(n − 3)) for the three fitted parameters.
+     * inflated by √(n/(n − 3)) for the three fitted parameters; the replicas are measured with the
+     * same spacing of trial times as the eclipse itself, and the error is the standard deviation of
+     * their minima.
      */
     private static double replicaError(double[] x, double[] f, double[] w, MinimumTemplateFit.Result fit,
-            double search, double reflectMax, double reflectMin, MinimumSettings settings, double cycle) {
+            double trialStep, double search, double reflectMax, double reflectMin, MinimumSettings settings, double cycle) {
         int n = x.length;
         double[] standardised = new double[n];
         double inflate = Math.sqrt(n / (n - 3.0));
@@ -244,30 +249,33 @@ public final class MinimumFinder {
             standardised[i] = (f[i] - fit.model()[i]) * Math.sqrt(w[i]) * inflate;
         }
         // The replicas scatter by about the template error: a narrower search is enough and faster.
-        double narrow = Math.min(search, Math.max(10 * fit.errorDays(), 3 * MinimumKweeVanWoerden.medianSpacing(x)));
+        double narrow = Math.min(search, Math.max(20 * fit.errorDays(), 3 * MinimumKweeVanWoerden.medianSpacing(x)));
         SplittableRandom random = new SplittableRandom(settings.seed() * 1_000_003L + Double.hashCode(cycle));
         double[] replica = new double[n];
-        double sum = 0;
-        double sumSq = 0;
+        double[] found = new double[settings.bootstrapSamples()];
         int good = 0;
         for (int b = 0; b < settings.bootstrapSamples(); b++) {
             for (int i = 0; i < n; i++) {
                 replica[i] = fit.model()[i] + standardised[random.nextInt(n)] / Math.sqrt(w[i]);
             }
             MinimumKweeVanWoerden.Result r = MinimumKweeVanWoerden.measure(x, replica, fit.timeDays(), narrow,
-                    reflectMax, reflectMin);
+                    reflectMax, reflectMin, trialStep);
             if (r.ok()) {
-                double d = r.timeDays() - fit.timeDays();
-                sum += d;
-                sumSq += d * d;
-                good++;
+                found[good++] = r.timeDays();
             }
         }
         if (good < settings.bootstrapSamples() / 2) {
             return Double.NaN;
         }
-        double mean = sum / good;
-        return Math.sqrt(Math.max(0, sumSq / good - mean * mean) * good / (good - 1.0));
+        double mean = 0;
+        for (int b = 0; b < good; b++) {
+            mean += found[b] / good;
+        }
+        double ss = 0;
+        for (int b = 0; b < good; b++) {
+            ss += (found[b] - mean) * (found[b] - mean);
+        }
+        return Math.sqrt(ss / (good - 1));
     }
 
     /** Weights 1/σ² from the flux errors, or all 1 when the light curve has none (or a bad one). */

@@ -17,7 +17,7 @@ import org.apache.commons.math3.linear.LUDecomposition;
  * <p>As Deeg (2021, Galaxies 9, 1) remarks, that error is unreliable; twinlight keeps it for
  * comparison only and estimates the error by re-measuring synthetic replicas (see
  * {@link MinimumFinder}). Following Deeg, S(T) is fitted through more than three trial times
- * (five, spaced by half the cadence).
+ * (five), spaced widely enough for the rise of S(T) to stand above its noise.
  */
 final class MinimumKweeVanWoerden {
 
@@ -30,11 +30,12 @@ final class MinimumKweeVanWoerden {
      * @param timeDays time of minimum, in the coordinates of the input
      * @param classicErrorDays the original error formula, NaN when 4AC − B² ≤ 0
      * @param pointsUsed N, the interpolated points used on both sides
+     * @param trialStepDays final spacing of the trial times of the quadratic, days
      * @param failure reason for people when no time was found, else null
      */
-    record Result(double timeDays, double classicErrorDays, int pointsUsed, String failure) {
+    record Result(double timeDays, double classicErrorDays, int pointsUsed, double trialStepDays, String failure) {
         static Result failed(String why) {
-            return new Result(Double.NaN, Double.NaN, 0, why);
+            return new Result(Double.NaN, Double.NaN, 0, Double.NaN, why);
         }
 
         boolean ok() {
@@ -57,6 +58,16 @@ final class MinimumKweeVanWoerden {
      */
     static Result measure(double[] x, double[] f, double guess, double searchHalfDays, double reflectMaxDays,
             double reflectMinDays) {
+        return measure(x, f, guess, searchHalfDays, reflectMaxDays, reflectMinDays, 0.0);
+    }
+
+    /**
+     * As {@link #measure(double[], double[], double, double, double, double)}, with the trial
+     * times of the quadratic spaced by at least {@code minTrialStepDays} (so that replicas of an
+     * eclipse are measured the same way as the eclipse).
+     */
+    static Result measure(double[] x, double[] f, double guess, double searchHalfDays, double reflectMaxDays,
+            double reflectMinDays, double minTrialStepDays) {
         int n = x.length;
         if (n < 6) {
             return Result.failed("too few points for Kwee–van Woerden (" + n + ")");
@@ -64,9 +75,10 @@ final class MinimumKweeVanWoerden {
         double step = medianSpacing(x);
         double lo = guess - searchHalfDays;
         double hi = guess + searchHalfDays;
-        // Trial times reach at most two coarse steps beyond the search range.
+        // Trial times stay within the search range ± two quarter-ranges.
         double coarseStep = Math.min(step, searchHalfDays / 5);
-        double reflect = Math.min(reflectMaxDays, Math.min(x[n - 1] - hi, lo - x[0]) - 2 * coarseStep);
+        double reach = Math.max(2 * coarseStep, searchHalfDays / 2);
+        double reflect = Math.min(reflectMaxDays, Math.min(x[n - 1] - hi, lo - x[0]) - reach);
         if (reflect < reflectMinDays) {
             return Result.failed(String.format(Locale.ROOT,
                     "one-sided coverage: only %.1f min of data on one side of the minimum, need %.1f min",
@@ -92,43 +104,54 @@ final class MinimumKweeVanWoerden {
             return Result.failed(String.format(Locale.ROOT,
                     "minimum not found within ±%.1f min of the expected time", searchHalfDays * 1440));
         }
-        double trialStep = coarseStep / 2;
+        // The quadratic needs trial times far enough apart for the rise of S(T) to stand above
+        // its noise, whose wiggles (pairs changing partners from one cadence to the next) are
+        // about S_min/√Z while the rise over δT is A·δT² = S_min·(δT/σ)²/(Z − 1): so
+        // δT ≳ σ·Z^¼. Start at a twelfth of the search range and widen the spacing until it
+        // is (at most a quarter of the search range); re-centre while the minimum lies outside.
+        double maxStep = Math.max(searchHalfDays / 4, minTrialStepDays);
+        double trialStep = Math.max(Math.max(coarseStep / 2, searchHalfDays / 12), minTrialStepDays);
+        double t0 = lo + bestCoarse * coarseStep;
         int half = FOLDS / 2;
         double[] s = new double[FOLDS];
-        int best = half;
-        double t0 = lo + bestCoarse * coarseStep;
-        for (int j = 0; j < FOLDS; j++) {
-            s[j] = sumOfSquares(x, f, t0 + (j - half) * trialStep, step, pairs);
-            if (s[j] < s[best]) {
-                best = j;
-            }
-        }
-        if (best != half) {
-            // Re-centre once on the better fine trial time.
-            t0 += (best - half) * trialStep;
+        int used = 2 * pairs;
+        double z = used / 4.0;
+        for (int round = 0; round < 8; round++) {
             for (int j = 0; j < FOLDS; j++) {
                 s[j] = sumOfSquares(x, f, t0 + (j - half) * trialStep, step, pairs);
             }
+            // Quadratic least squares S = A u² + B u + C through the trial times, u measured from
+            // the middle one so the normal equations stay well conditioned.
+            double[] coeff = fitQuadratic(s, half, half, trialStep);
+            double a = coeff[0];
+            double b = coeff[1];
+            double c = coeff[2];
+            if (!(a > 0)) {
+                if (trialStep >= maxStep) {
+                    return Result.failed("the reflection sum has no minimum (flat or noisy eclipse)");
+                }
+                trialStep = Math.min(2 * trialStep, maxStep);
+                continue;
+            }
+            double u0 = -b / (2 * a);
+            if (Math.abs(u0) > half * trialStep) {
+                t0 += Math.signum(u0) * half * trialStep;
+                if (t0 < lo || t0 > hi) {
+                    break;
+                }
+                continue;
+            }
+            double disc = 4 * a * c - b * b;
+            double classic = disc > 0 && z > 1 ? Math.sqrt(disc / (4 * a * a * (z - 1))) : Double.NaN;
+            double needed = Double.isNaN(classic) ? 0 : classic * Math.pow(z, 0.25);
+            if (trialStep < needed && trialStep < maxStep) {
+                trialStep = Math.min(needed, maxStep);
+                t0 += u0;
+                continue;
+            }
+            return new Result(t0 + u0, classic, used, trialStep, null);
         }
-        best = half;
-        // Quadratic least squares S = A u² + B u + C through the trial times around the best one,
-        // u measured from the best trial time so the normal equations stay well conditioned.
-        double[] coeff = fitQuadratic(s, best, half, trialStep);
-        double a = coeff[0];
-        double b = coeff[1];
-        double c = coeff[2];
-        if (!(a > 0)) {
-            return Result.failed("the reflection sum has no minimum (flat or noisy eclipse)");
-        }
-        double u0 = -b / (2 * a);
-        if (Math.abs(u0) > half * trialStep) {
-            return Result.failed("the reflection sum has no well-defined minimum");
-        }
-        int used = 2 * pairs;
-        double z = used / 4.0;
-        double disc = 4 * a * c - b * b;
-        double classic = disc > 0 && z > 1 ? Math.sqrt(disc / (4 * a * a * (z - 1))) : Double.NaN;
-        return new Result(t0 + u0, classic, used, null);
+        return Result.failed("the reflection sum has no well-defined minimum");
     }
 
     /** S(T): sum over k of [f(T + (k−½)Δ) − f(T − (k−½)Δ)]², f linearly interpolated. */
