@@ -32,7 +32,6 @@ import org.twinlight.timing.MinimumSearchResult;
 import org.twinlight.timing.MinimumSettings;
 import org.twinlight.timing.MinimumSkip;
 import org.twinlight.timing.MinimumTime;
-import org.twinlight.timing.MinimumType;
 import org.twinlight.timing.OcAnalysis;
 import org.twinlight.timing.OcPoint;
 import org.twinlight.timing.OcResult;
@@ -232,14 +231,14 @@ public final class MinimaCommand implements Callable<Integer> {
         for (MinimumTime t : search.minima(chosen)) {
             MinimumTime a = find(tpl, t);
             MinimumTime b = find(kvw, t);
-            o.printf(Locale.ROOT, "%-9s %-9s %-17.6f %-10.1f %-10.1f %-10.1f %d%n", cycleText(t.cycle()),
+            o.printf(Locale.ROOT, "%-9s %-9s %-17.6f %-10.1f %-10.1f %-10.1f %d%n", MinimaCsv.cycleText(t.cycle()),
                     t.type().label(), t.timeDays(), a.errorDays() * 86400, b.errorDays() * 86400,
                     (b.timeDays() - a.timeDays()) * 86400, t.nPoints());
         }
         if (!search.skipped().isEmpty()) {
             o.printf("skipped %d eclipse(s):%n", search.skipped().size());
             for (MinimumSkip s : search.skipped()) {
-                o.printf(Locale.ROOT, "  cycle %-8s %-9s near %.5f (%d points): %s%n", cycleText(s.cycle()),
+                o.printf(Locale.ROOT, "  cycle %-8s %-9s near %.5f (%d points): %s%n", MinimaCsv.cycleText(s.cycle()),
                         s.type().label(), s.predictedTimeDays(), s.nPoints(), s.reason());
             }
         }
@@ -284,10 +283,6 @@ public final class MinimaCommand implements Callable<Integer> {
     private static MinimumTime find(List<MinimumTime> list, MinimumTime like) {
         return list.stream().filter(m -> m.cycle() == like.cycle() && m.type() == like.type()).findFirst()
                 .orElse(like);
-    }
-
-    private static String cycleText(double cycle) {
-        return cycle == Math.rint(cycle) ? Long.toString((long) cycle) : String.format(Locale.ROOT, "%.1f", cycle);
     }
 
     private static String sha256(Path file) {

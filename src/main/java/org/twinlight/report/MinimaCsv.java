@@ -36,7 +36,7 @@ public final class MinimaCsv {
     }
 
     /** "12" for a primary cycle, "12.5" for a secondary one. */
-    static String cycleText(double cycle) {
+    public static String cycleText(double cycle) {
         return cycle == Math.rint(cycle) ? Long.toString((long) cycle) : String.format(Locale.ROOT, "%.1f", cycle);
     }
 }

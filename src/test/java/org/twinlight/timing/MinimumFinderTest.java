@@ -20,12 +20,18 @@ class MinimumFinderTest {
 
     /** Pull spreads (template, reflection replicas) over {@code seeds} light curves of 8 eclipses. */
     private static double[] pullSpreads(double cadenceMinutes, double noise, int seeds) {
+        return pullSpreads(cadenceMinutes, noise, seeds, SyntheticEclipses::dip);
+    }
+
+    private static double[] pullSpreads(double cadenceMinutes, double noise, int seeds,
+            java.util.function.DoubleBinaryOperator shape) {
         List<Double> template = new ArrayList<>();
         List<Double> kvw = new ArrayList<>();
         for (long seed = 1; seed <= seeds; seed++) {
             SyntheticEclipses sim = new SyntheticEclipses();
             sim.cadenceDays = cadenceMinutes / 1440;
             sim.noise = noise;
+            sim.shape = shape;
             java.util.Random jitter = new java.util.Random(1000 + seed);
             double[] oc = new double[40];
             for (int i = 0; i < oc.length; i++) {
@@ -61,6 +67,10 @@ class MinimumFinderTest {
         double[] dense = pullSpreads(0.5, 0.01, 12);
         assertThat(dense[0]).as("template, 30-s cadence").isBetween(0.8, 1.25);
         assertThat(dense[1]).as("reflection, 30-s cadence").isBetween(0.8, 1.25);
+        // A total eclipse: flat bottom and sharp contacts, far from the template's smooth start.
+        double[] flat = pullSpreads(2.0, 0.002, 12, (x, h) -> Math.min(1, 2.5 * Math.max(0, 1 - Math.abs(x) / h)));
+        assertThat(flat[0]).as("template, flat-bottomed").isBetween(0.8, 1.25);
+        assertThat(flat[1]).as("reflection, flat-bottomed").isBetween(0.8, 1.25);
     }
 
     /** The light curve without the points for which {@code drop} is true. */

@@ -23,6 +23,8 @@ final class SyntheticEclipses {
     double noise = 0.002;
     /** Displacement (days) of the minimum of cycle E (E integer primary, n + 0.5 secondary). */
     DoubleUnaryOperator ocDays = e -> 0.0;
+    /** Fractional dip (0 out of eclipse, 1 at the deepest) at time x from minimum, half-duration h. */
+    java.util.function.DoubleBinaryOperator shape = SyntheticEclipses::dip;
 
     static double dip(double x, double half) {
         double u = x / half;
@@ -41,8 +43,8 @@ final class SyntheticEclipses {
         long n = Math.round(c);
         double f = 1.0;
         for (long k = n - 1; k <= n + 1; k++) {
-            f -= primaryDepth * dip(t - trueTime(k), halfDurationDays);
-            f -= secondaryDepth * dip(t - trueTime(k + 0.5), halfDurationDays);
+            f -= primaryDepth * shape.applyAsDouble(t - trueTime(k), halfDurationDays);
+            f -= secondaryDepth * shape.applyAsDouble(t - trueTime(k + 0.5), halfDurationDays);
         }
         return f;
     }
