@@ -67,7 +67,7 @@ public final class MinimaCommand implements Callable<Integer> {
     double periodDays;
 
     @Option(names = "--epoch", required = true, paramLabel = "T0",
-            description = "Time of a primary minimum (cycle 0), days, in the time scale of the data.")
+            description = "Time of a primary minimum (cycle 0), days, in the time scale of the data (after --time-offset is added).")
     double epochDays;
 
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Directory for the results (created if missing).")
@@ -261,7 +261,8 @@ public final class MinimaCommand implements Callable<Integer> {
         }
         if (oc.lightTime() != null) {
             EphemerisFit lt = oc.lightTime();
-            o.printf(Locale.ROOT, "light-time orbit: P3 = %.1f ± %.1f d, semi-amplitude %.2f min, e = %.2f%n",
+            o.printf(Locale.ROOT, "light-time orbit%s: P3 = %.1f ± %.1f d, semi-amplitude %.2f min, e = %.2f%n",
+                    oc.preferred() == lt.model() ? "" : " (not preferred)",
                     lt.parameter("lightTimePeriod").orElseThrow().value(),
                     lt.parameter("lightTimePeriod").orElseThrow().uncertainty(),
                     lt.parameter("semiAmplitude").orElseThrow().value() * 1440,
