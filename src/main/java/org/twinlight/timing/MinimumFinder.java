@@ -79,7 +79,7 @@ public final class MinimumFinder {
         List<MinimumSkip> skipped = new ArrayList<>();
         measureType(MinimumType.PRIMARY, 0.0, pWindow, pDuration, pShift, t, f, w, eph, settings, minima, skipped);
         measureType(MinimumType.SECONDARY, sp, sWindow, sDuration, sShift, t, f, w, eph, settings, minima, skipped);
-        minima.sort(Comparator.comparingDouble(MinimumTime::timeDays).thenComparing(MinimumTime::method));
+        minima.sort(Comparator.comparingDouble(MinimumTime::cycle).thenComparing(MinimumTime::method));
         skipped.sort(Comparator.comparingDouble(MinimumSkip::predictedTimeDays));
         return new MinimumSearchResult(minima, skipped, pWindow, sWindow, pDuration, sDuration, lc.timeScale());
     }

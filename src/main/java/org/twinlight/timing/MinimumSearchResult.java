@@ -6,7 +6,7 @@ import org.twinlight.time.TimeScale;
 /**
  * Outcome of the search for times of minimum in one light curve.
  *
- * @param minima every measured minimum, once per method, in time order
+ * @param minima every measured minimum, once per method, in cycle order
  * @param skipped eclipses in the data that were not measured, with the reason
  * @param primaryWindowDays full width of the window cut around primary eclipses, days
  * @param secondaryWindowDays the same for secondary eclipses
@@ -22,7 +22,7 @@ public record MinimumSearchResult(List<MinimumTime> minima, List<MinimumSkip> sk
         skipped = List.copyOf(skipped);
     }
 
-    /** The minima measured with one method, in time order. */
+    /** The minima measured with one method, in cycle order. */
     public List<MinimumTime> minima(MinimumMethod method) {
         return minima.stream().filter(m -> m.method() == method).toList();
     }
