@@ -218,7 +218,7 @@ public final class MinimaCommand implements Callable<Integer> {
         return String.join(", ", parts);
     }
 
-    private static void printSummary(PrintWriter o, LightCurve lc, MinimumSearchResult search, MinimumMethod chosen,
+    private void printSummary(PrintWriter o, LightCurve lc, MinimumSearchResult search, MinimumMethod chosen,
             OcResult oc) {
         String scale = lc.timeScale().label();
         o.printf(Locale.ROOT, "%s: %d points, time scale %s%n", lc.source(), lc.size(), scale);
@@ -234,6 +234,12 @@ public final class MinimaCommand implements Callable<Integer> {
             o.printf(Locale.ROOT, "%-9s %-9s %-17.6f %-10.1f %-10.1f %-10.1f %d%n", MinimaCsv.cycleText(t.cycle()),
                     t.type().label(), t.timeDays(), a.errorDays() * 86400, b.errorDays() * 86400,
                     (b.timeDays() - a.timeDays()) * 86400, t.nPoints());
+        }
+        if (search.secondaryDeeperThanPrimary()) {
+            o.printf(Locale.ROOT, "warning: the eclipses at phase %.3f (depth %.3f) are deeper than those at phase 0 "
+                    + "(depth %.3f): the epoch may be a secondary minimum; add %.6f d to --epoch to count the deeper "
+                    + "eclipses as primary%n", secondaryPhase, search.secondaryDepth(), search.primaryDepth(),
+                    secondaryPhase * periodDays);
         }
         if (!search.skipped().isEmpty()) {
             o.printf("skipped %d eclipse(s):%n", search.skipped().size());

@@ -81,7 +81,9 @@ public final class MinimumFinder {
         measureType(MinimumType.SECONDARY, sp, sWindow, sDuration, sShift, t, f, w, eph, settings, minima, skipped);
         minima.sort(Comparator.comparingDouble(MinimumTime::cycle).thenComparing(MinimumTime::method));
         skipped.sort(Comparator.comparingDouble(MinimumSkip::predictedTimeDays));
-        return new MinimumSearchResult(minima, skipped, pWindow, sWindow, pDuration, sDuration, lc.timeScale());
+        return new MinimumSearchResult(minima, skipped, pWindow, sWindow, pDuration, sDuration,
+                primary == null ? Double.NaN : primary.depth(), secondary == null ? Double.NaN : secondary.depth(),
+                lc.timeScale());
     }
 
     private static double clampShift(double shift, double duration) {

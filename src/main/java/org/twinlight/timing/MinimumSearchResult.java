@@ -12,14 +12,22 @@ import org.twinlight.time.TimeScale;
  * @param secondaryWindowDays the same for secondary eclipses
  * @param primaryDurationDays eclipse duration used for the coverage checks, days
  * @param secondaryDurationDays the same for secondary eclipses
+ * @param primaryDepth fractional depth of the primary eclipse in the folded light curve, NaN when not seen
+ * @param secondaryDepth the same for the secondary eclipse
  * @param timeScale time scale of every time here
  */
 public record MinimumSearchResult(List<MinimumTime> minima, List<MinimumSkip> skipped, double primaryWindowDays,
-        double secondaryWindowDays, double primaryDurationDays, double secondaryDurationDays, TimeScale timeScale) {
+        double secondaryWindowDays, double primaryDurationDays, double secondaryDurationDays, double primaryDepth,
+        double secondaryDepth, TimeScale timeScale) {
 
     public MinimumSearchResult {
         minima = List.copyOf(minima);
         skipped = List.copyOf(skipped);
+    }
+
+    /** True when the eclipses at the secondary phase are clearly deeper than those at phase 0. */
+    public boolean secondaryDeeperThanPrimary() {
+        return secondaryDepth > 1.1 * primaryDepth || (Double.isNaN(primaryDepth) && !Double.isNaN(secondaryDepth));
     }
 
     /** The minima measured with one method, in cycle order. */

@@ -94,7 +94,19 @@ class MinimaCommandTest {
         String table = Files.readString(out.resolve("minima-submission.txt"));
         assertThat(table).contains("Time scale: BJD_TDB").contains("OBSERVER").contains("A. Nonymous")
                 .contains("FILTER");
-        assertThat(o.toString()).contains("skipped").contains("cycle 4 ").contains("preferred: quadratic");
+        assertThat(o.toString()).contains("skipped").contains("cycle 4 ").contains("preferred: quadratic")
+                .doesNotContain("warning");
+    }
+
+    @Test
+    void epochAtTheShallowerEclipseIsWarnedAbout(@TempDir Path dir) throws IOException {
+        Path file = writeLightCurve(dir);
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
+                "--epoch", String.valueOf(EPOCH + PERIOD / 2), "--out", dir.resolve("out").toString());
+        assertThat(code).as(e.toString()).isZero();
+        assertThat(o.toString()).contains("warning").contains("epoch may be a secondary minimum");
     }
 
     @Test
