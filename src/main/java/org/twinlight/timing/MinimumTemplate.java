@@ -1,6 +1,7 @@
 package org.twinlight.timing;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import org.apache.commons.math3.analysis.interpolation.SplineInterpolator;
 import org.apache.commons.math3.analysis.polynomials.PolynomialSplineFunction;
@@ -54,7 +55,7 @@ final class MinimumTemplate {
         }
         // Noise scale from the finest template when the weights are not absolute (all 1).
         double scale = 1;
-        boolean unit = java.util.Arrays.stream(weights).allMatch(w -> w == 1.0);
+        boolean unit = Arrays.stream(weights).allMatch(w -> w == 1.0);
         if (unit) {
             scale = finest.chi2(offsets, depths, weights) / Math.max(1, n - most);
             if (!(scale > 0)) {

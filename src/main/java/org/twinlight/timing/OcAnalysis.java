@@ -1,11 +1,14 @@
 package org.twinlight.timing;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.Comparator;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Set;
 import org.twinlight.BadInputException;
 import org.twinlight.WorkFailedException;
 
@@ -77,7 +80,7 @@ public final class OcAnalysis {
             sigma[i] = m.errorDays();
             points.add(new OcPoint(m.cycle(), m.type(), m.timeDays(), m.errorDays(), oc[i]));
         }
-        long distinct = java.util.Arrays.stream(cycle).distinct().count();
+        long distinct = Arrays.stream(cycle).distinct().count();
         if (distinct < 2) {
             throw new WorkFailedException("an ephemeris needs timings from at least two cycles; found " + distinct);
         }
@@ -187,14 +190,14 @@ public final class OcAnalysis {
 
     /** Straight lines through each series around the common mean cycle; null without two cycles of each. */
     private static OcSeriesDifference seriesDifference(double[] cycle, boolean[] secondary, double[] oc, double[] sigma) {
-        double meanCycle = java.util.Arrays.stream(cycle).average().orElse(0);
+        double meanCycle = Arrays.stream(cycle).average().orElse(0);
         double[][] lines = new double[2][];
         int[] counts = new int[2];
         for (int type = 0; type < 2; type++) {
             List<double[]> rows = new ArrayList<>();
             List<Double> ys = new ArrayList<>();
             List<Double> ss = new ArrayList<>();
-            java.util.Set<Double> cycles = new java.util.HashSet<>();
+            Set<Double> cycles = new HashSet<>();
             for (int i = 0; i < cycle.length; i++) {
                 if (secondary[i] == (type == 1)) {
                     rows.add(new double[] {1, cycle[i] - meanCycle});

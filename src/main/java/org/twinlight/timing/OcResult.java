@@ -2,6 +2,7 @@ package org.twinlight.timing;
 
 import java.util.List;
 import java.util.Objects;
+import java.util.stream.Stream;
 
 /**
  * An O−C diagram with the ephemeris models fitted to it.
@@ -34,6 +35,6 @@ public record OcResult(Ephemeris reference, List<OcPoint> points, EphemerisFit l
 
     /** Every fitted model, linear first. */
     public List<EphemerisFit> fits() {
-        return java.util.stream.Stream.of(linear, quadratic, lightTime).filter(Objects::nonNull).toList();
+        return Stream.of(linear, quadratic, lightTime).filter(Objects::nonNull).toList();
     }
 }

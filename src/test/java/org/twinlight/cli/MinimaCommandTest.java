@@ -1,6 +1,7 @@
 package org.twinlight.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
@@ -96,6 +97,37 @@ class MinimaCommandTest {
                 .contains("FILTER");
         assertThat(o.toString()).contains("skipped").contains("cycle 4 ").contains("preferred: quadratic")
                 .doesNotContain("warning");
+        List<String> rows = table.lines().filter(l -> !l.startsWith("#")).toList();
+        assertThat(rows).hasSize((int) csv.stream().filter(l -> l.contains(",template,")).count());
+        for (String row : rows) {
+            String[] f = row.trim().split("\\s+", 9);
+            assertThat(Double.parseDouble(f[0])).isBetween(EPOCH - 1, EPOCH + 21);
+            assertThat(Double.parseDouble(f[1])).isPositive();
+            assertThat(f[2]).isIn("P", "S");
+            assertThat(f[5]).isEqualTo("TPL");
+            assertThat(f[7]).isEqualTo("V");
+            assertThat(f[8]).isEqualTo("A. Nonymous");
+        }
+    }
+
+    @Test
+    void reflectionTimingsAgainstTheFittedEphemeris(@TempDir Path dir) throws IOException {
+        Path file = writeLightCurve(dir);
+        Path out = dir.resolve("out");
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
+                "--epoch", String.valueOf(EPOCH), "--out", out.toString(), "--method", "kvw", "--oc-reference",
+                "fitted", "--window", "300min");
+        assertThat(code).as(e.toString()).isZero();
+        JsonNode json = new ObjectMapper().readTree(out.resolve("ephemeris.json").toFile());
+        assertThat(json.get("method").asText()).isEqualTo("kvw");
+        assertThat(json.get("timeScale").asText()).isEqualTo("unknown");
+        assertThat(json.at("/windowDays/primary").asDouble()).isCloseTo(300.0 / 1440, within(1e-12));
+        // Against the fitted linear ephemeris the linear fit's own corrections vanish.
+        assertThat(json.at("/ocReference/period").asDouble()).isCloseTo(json.at("/period/value").asDouble(),
+                within(1e-6));
+        assertThat(Files.readString(out.resolve("minima-submission.txt"))).contains("KVW").contains("Time scale: unknown");
     }
 
     @Test

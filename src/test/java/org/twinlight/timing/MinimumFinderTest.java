@@ -5,7 +5,13 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import static org.assertj.core.api.Assertions.within;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
+import java.util.Map;
+import java.util.Random;
+import java.util.function.DoubleBinaryOperator;
+import java.util.function.DoublePredicate;
+import java.util.stream.IntStream;
 import org.junit.jupiter.api.Test;
 import org.twinlight.BadInputException;
 import org.twinlight.photometry.LightCurve;
@@ -24,7 +30,7 @@ class MinimumFinderTest {
     }
 
     private static double[] pullSpreads(double cadenceMinutes, double noise, int seeds,
-            java.util.function.DoubleBinaryOperator shape) {
+            DoubleBinaryOperator shape) {
         List<Double> template = new ArrayList<>();
         List<Double> kvw = new ArrayList<>();
         for (long seed = 1; seed <= seeds; seed++) {
@@ -32,7 +38,7 @@ class MinimumFinderTest {
             sim.cadenceDays = cadenceMinutes / 1440;
             sim.noise = noise;
             sim.shape = shape;
-            java.util.Random jitter = new java.util.Random(1000 + seed);
+            Random jitter = new Random(1000 + seed);
             double[] oc = new double[40];
             for (int i = 0; i < oc.length; i++) {
                 oc[i] = (jitter.nextDouble() - 0.5) * 6.0 / 1440;
@@ -74,15 +80,15 @@ class MinimumFinderTest {
     }
 
     /** The light curve without the points for which {@code drop} is true. */
-    private static LightCurve without(LightCurve lc, java.util.function.DoublePredicate drop) {
+    private static LightCurve without(LightCurve lc, DoublePredicate drop) {
         double[] t = lc.timesDays();
         double[] f = lc.fluxes();
         double[] e = lc.fluxErrors();
-        int[] keep = java.util.stream.IntStream.range(0, t.length).filter(i -> !drop.test(t[i])).toArray();
+        int[] keep = IntStream.range(0, t.length).filter(i -> !drop.test(t[i])).toArray();
         return new LightCurve(lc.source(), null, lc.timeScale(), lc.originalKind(),
-                java.util.Arrays.stream(keep).mapToDouble(i -> t[i]).toArray(),
-                java.util.Arrays.stream(keep).mapToDouble(i -> f[i]).toArray(),
-                java.util.Arrays.stream(keep).mapToDouble(i -> e[i]).toArray(), java.util.Map.of());
+                Arrays.stream(keep).mapToDouble(i -> t[i]).toArray(),
+                Arrays.stream(keep).mapToDouble(i -> f[i]).toArray(),
+                Arrays.stream(keep).mapToDouble(i -> e[i]).toArray(), Map.of());
     }
 
     private static MinimumSkip skipOf(MinimumSearchResult r, double cycle) {
