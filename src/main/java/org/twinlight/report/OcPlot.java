@@ -42,12 +42,13 @@ public final class OcPlot {
      */
     public static void write(Path target, List<OcPoint> points, OcResult result, String referenceText,
             TimeScale timeScale, String method) {
-        XYChart chart = new XYChartBuilder().width(960).height(600)
+        XYChart chart = new XYChartBuilder().width(960).height(680)
                 .title("O−C against " + referenceText + " (" + timeScale.label() + ")")
                 .xAxisTitle("cycle E").yAxisTitle("O−C (minutes)").build();
         PlotFiles.style(chart);
-        chart.getStyler().setLegendPosition(Styler.LegendPosition.InsideNW);
-        chart.getStyler().setLegendBackgroundColor(new Color(255, 255, 255, 220));
+        // Outside the plot: O−C points can lie anywhere, an inside legend would hide some.
+        chart.getStyler().setLegendPosition(Styler.LegendPosition.OutsideS);
+        chart.getStyler().setLegendLayout(Styler.LegendLayout.Vertical);
         chart.getStyler().setMarkerSize(7);
         chart.getStyler().setErrorBarsColorSeriesColor(true);
         chart.getStyler().setYAxisDecimalPattern("0.##");
