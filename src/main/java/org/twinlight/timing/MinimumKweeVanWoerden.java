@@ -75,14 +75,15 @@ final class MinimumKweeVanWoerden {
         double step = medianSpacing(x);
         double lo = guess - searchHalfDays;
         double hi = guess + searchHalfDays;
-        // Trial times stay within the search range ± two quarter-ranges.
+        // Trial times stay within the search range ± two of the widest trial steps.
         double coarseStep = Math.min(step, searchHalfDays / 5);
-        double reach = Math.max(2 * coarseStep, searchHalfDays / 2);
+        double reach = Math.max(2 * coarseStep, Math.max(searchHalfDays / 2, 2 * minTrialStepDays));
         double reflect = Math.min(reflectMaxDays, Math.min(x[n - 1] - hi, lo - x[0]) - reach);
         if (reflect < reflectMinDays) {
             return Result.failed(String.format(Locale.ROOT,
-                    "one-sided coverage: only %.1f min of data on one side of the minimum, need %.1f min",
-                    Math.max(0, reflect + searchHalfDays) * 1440, (reflectMinDays + searchHalfDays) * 1440));
+                    "one-sided coverage: only %.1f min of data on one side of the expected minimum, need %.1f min",
+                    Math.max(0, Math.min(x[n - 1] - guess, guess - x[0])) * 1440,
+                    (reflectMinDays + searchHalfDays + reach) * 1440));
         }
         int pairs = (int) Math.floor(reflect / step);
         if (pairs < 4) {
