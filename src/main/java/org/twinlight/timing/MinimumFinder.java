@@ -162,8 +162,14 @@ public final class MinimumFinder {
             }
             double kvwError = replicaError(x, fc, wc, fit, c.kvw().trialStepDays(), search, half,
                     MIN_REFLECT_FRACTION * duration, settings, c.cycle());
-            minima.add(new MinimumTime(c.cycle(), type, c.centre() + c.kvw().timeDays(), kvwError, MinimumMethod.KVW,
-                    count, c.kvw().classicErrorDays()));
+            if (Double.isNaN(kvwError)) {
+                skipped.add(new MinimumSkip(c.cycle(), type, c.predicted(), count,
+                        "reflection method only: most synthetic replicas had no reflection minimum, so its error "
+                                + "is unknown; the template time is kept"));
+            } else {
+                minima.add(new MinimumTime(c.cycle(), type, c.centre() + c.kvw().timeDays(), kvwError,
+                        MinimumMethod.KVW, count, c.kvw().classicErrorDays()));
+            }
             minima.add(new MinimumTime(c.cycle(), type, c.centre() + fit.timeDays(), fit.errorDays(),
                     MinimumMethod.TEMPLATE, count, Double.NaN));
         }
