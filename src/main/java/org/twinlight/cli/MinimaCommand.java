@@ -231,9 +231,10 @@ public final class MinimaCommand implements Callable<Integer> {
         for (MinimumTime t : search.minima(chosen)) {
             MinimumTime a = find(tpl, t);
             MinimumTime b = find(kvw, t);
-            o.printf(Locale.ROOT, "%-9s %-9s %-17.6f %-10.1f %-10.1f %-10.1f %d%n", MinimaCsv.cycleText(t.cycle()),
-                    t.type().label(), t.timeDays(), a.errorDays() * 86400, b.errorDays() * 86400,
-                    (b.timeDays() - a.timeDays()) * 86400, t.nPoints());
+            o.printf(Locale.ROOT, "%-9s %-9s %-17.6f %-10s %-10s %-10s %d%n", MinimaCsv.cycleText(t.cycle()),
+                    t.type().label(), t.timeDays(), seconds(a == null ? Double.NaN : a.errorDays()),
+                    seconds(b == null ? Double.NaN : b.errorDays()),
+                    seconds(a == null || b == null ? Double.NaN : b.timeDays() - a.timeDays()), t.nPoints());
         }
         if (search.secondaryDeeperThanPrimary()) {
             o.printf(Locale.ROOT, "warning: the eclipses at phase %.3f (depth %.3f) are deeper than those at phase 0 "
@@ -287,9 +288,15 @@ public final class MinimaCommand implements Callable<Integer> {
         }
     }
 
+    /** The minimum of the same eclipse in {@code list}, or null. */
     private static MinimumTime find(List<MinimumTime> list, MinimumTime like) {
         return list.stream().filter(m -> m.cycle() == like.cycle() && m.type() == like.type()).findFirst()
-                .orElse(like);
+                .orElse(null);
+    }
+
+    /** Days as seconds with one decimal, or "-" when unknown. */
+    private static String seconds(double days) {
+        return Double.isFinite(days) ? String.format(Locale.ROOT, "%.1f", days * 86400) : "-";
     }
 
     private static String sha256(Path file) {
