@@ -1,7 +1,6 @@
 package org.twinlight.timing;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import org.apache.commons.math3.analysis.interpolation.SplineInterpolator;
 import org.apache.commons.math3.analysis.polynomials.PolynomialSplineFunction;
@@ -43,7 +42,7 @@ final class MinimumTemplate {
      *
      * @param offsets time from each eclipse's own minimum, days (all eclipses together)
      * @param depths fractional depth 1 − flux/baseline at those points
-     * @param weights 1/σ² of the depths, or all 1 when the data carry no errors
+     * @param weights 1/σ² of the depths (relative weights suffice), or all 1 when the data carry no errors
      * @param halfWidthDays the template covers |x| ≤ this
      */
     static MinimumTemplate build(double[] offsets, double[] depths, double[] weights, double halfWidthDays) {
@@ -53,14 +52,11 @@ final class MinimumTemplate {
         if (finest == null) {
             return null;
         }
-        // Noise scale from the finest template when the weights are not absolute (all 1).
-        double scale = 1;
-        boolean unit = Arrays.stream(weights).allMatch(w -> w == 1.0);
-        if (unit) {
-            scale = finest.chi2(offsets, depths, weights) / Math.max(1, n - most);
-            if (!(scale > 0)) {
-                return finest;
-            }
+        // Noise scale from the finest template's residuals, so that missing (all 1) or misstated
+        // point errors do not change the choice.
+        double scale = finest.chi2(offsets, depths, weights) / Math.max(1, n - most);
+        if (!(scale > 0)) {
+            return finest;
         }
         MinimumTemplate best = null;
         double bestScore = Double.POSITIVE_INFINITY;
