@@ -31,6 +31,12 @@ class MinimumFinderTest {
 
     private static double[] pullSpreads(double cadenceMinutes, double noise, int seeds,
             DoubleBinaryOperator shape) {
+        return pullSpreads(cadenceMinutes, noise, seeds, shape, 1.0);
+    }
+
+    /** As above, with the stated point errors multiplied by {@code errorFactor} (0: no errors at all). */
+    private static double[] pullSpreads(double cadenceMinutes, double noise, int seeds,
+            DoubleBinaryOperator shape, double errorFactor) {
         List<Double> template = new ArrayList<>();
         List<Double> kvw = new ArrayList<>();
         for (long seed = 1; seed <= seeds; seed++) {
@@ -44,7 +50,13 @@ class MinimumFinderTest {
                 oc[i] = (jitter.nextDouble() - 0.5) * 6.0 / 1440;
             }
             sim.ocDays = e -> oc[(int) Math.floor(2 * e) + 4];
-            LightCurve lc = sim.sample(sim.epochDays - 0.6, sim.epochDays + 9.5, seed);
+            LightCurve sampled = sim.sample(sim.epochDays - 0.6, sim.epochDays + 9.5, seed);
+            double[] stated = sampled.fluxErrors();
+            for (int i = 0; i < stated.length; i++) {
+                stated[i] *= errorFactor;
+            }
+            LightCurve lc = new LightCurve(sampled.source(), null, sampled.timeScale(), sampled.originalKind(),
+                    sampled.timesDays(), sampled.fluxes(), errorFactor == 0 ? null : stated, Map.of());
             MinimumSearchResult r = MinimumFinder.find(lc, new Ephemeris(sim.epochDays, sim.periodDays),
                     MinimumSettings.defaults().withBootstrapSamples(60).withSeed(seed));
             assertThat(r.minima(MinimumMethod.TEMPLATE)).hasSizeGreaterThanOrEqualTo(7);
@@ -77,6 +89,17 @@ class MinimumFinderTest {
         double[] flat = pullSpreads(2.0, 0.002, 12, (x, h) -> Math.min(1, 2.5 * Math.max(0, 1 - Math.abs(x) / h)));
         assertThat(flat[0]).as("template, flat-bottomed").isBetween(0.8, 1.25);
         assertThat(flat[1]).as("reflection, flat-bottomed").isBetween(0.8, 1.25);
+    }
+
+    /** Errors stay honest when the light curve's point errors are missing or stated 2.5 times too small. */
+    @Test
+    void errorsStayHonestWithMissingOrMisstatedPointErrors() {
+        double[] none = pullSpreads(2.0, 0.004, 10, SyntheticEclipses::dip, 0.0);
+        assertThat(none[0]).as("template, no point errors").isBetween(0.8, 1.25);
+        assertThat(none[1]).as("reflection, no point errors").isBetween(0.8, 1.25);
+        double[] small = pullSpreads(2.0, 0.004, 10, SyntheticEclipses::dip, 0.4);
+        assertThat(small[0]).as("template, errors too small").isBetween(0.8, 1.25);
+        assertThat(small[1]).as("reflection, errors too small").isBetween(0.8, 1.25);
     }
 
     /** The light curve without the points for which {@code drop} is true. */
