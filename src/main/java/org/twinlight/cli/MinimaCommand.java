@@ -1,15 +1,8 @@
 package org.twinlight.cli;
 
-import java.io.IOException;
-import java.io.InputStream;
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.security.DigestInputStream;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
-import java.util.HexFormat;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -20,6 +13,7 @@ import org.twinlight.WorkFailedException;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.photometry.LightCurveReader;
 import org.twinlight.report.EphemerisJson;
+import org.twinlight.report.InputDigest;
 import org.twinlight.report.MinimaCsv;
 import org.twinlight.report.MinimaSubmissionTable;
 import org.twinlight.report.OcPlot;
@@ -163,7 +157,7 @@ public final class MinimaCommand implements Callable<Integer> {
         String source = file.getFileName().toString();
         MinimaCsv.write(out.resolve("minima.csv"), search.minima(), lc.timeScale(), source, given);
         EphemerisJson.write(out.resolve("ephemeris.json"), new EphemerisJson.Content(given, oc, search, chosen,
-                secondaryPhase, source, sha256(file), version));
+                secondaryPhase, source, InputDigest.sha256(file), version));
         OcPlot.write(out.resolve("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
                 reference.epochDays(), reference.periodDays()), lc.timeScale(), chosen.label());
         MinimaSubmissionTable.write(out.resolve("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,
@@ -297,20 +291,5 @@ public final class MinimaCommand implements Callable<Integer> {
     /** Days as seconds with one decimal, or "-" when unknown. */
     private static String seconds(double days) {
         return Double.isFinite(days) ? String.format(Locale.ROOT, "%.1f", days * 86400) : "-";
-    }
-
-    private static String sha256(Path file) {
-        try (InputStream in = new DigestInputStream(Files.newInputStream(file), MessageDigest.getInstance("SHA-256"))) {
-            byte[] buf = new byte[1 << 16];
-            DigestInputStream din = (DigestInputStream) in;
-            while (din.read(buf) >= 0) {
-                // reading updates the digest
-            }
-            return HexFormat.of().formatHex(din.getMessageDigest().digest());
-        } catch (IOException e) {
-            throw BadInputException.at(file, null, null, "cannot read the file (" + e.getMessage() + ")");
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException(e);
-        }
     }
 }

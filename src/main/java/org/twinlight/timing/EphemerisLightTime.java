@@ -1,5 +1,7 @@
 package org.twinlight.timing;
 
+import org.twinlight.orbit.KeplerEquation;
+
 /**
  * The light-travel-time delay of an eclipsing pair on an orbit around a third body, after Irwin
  * (1952, ApJ 116, 211; formula from memory):
@@ -19,8 +21,7 @@ public record EphemerisLightTime(double periodDays, double amplitudeDays, double
     public double delayDays(double timeDays) {
         double e = eccentricity;
         double meanAnomaly = 2 * Math.PI * (timeDays - periastronDays) / periodDays;
-        double ecc = eccentricAnomaly(meanAnomaly, e);
-        double nu = 2 * Math.atan2(Math.sqrt(1 + e) * Math.sin(ecc / 2), Math.sqrt(1 - e) * Math.cos(ecc / 2));
+        double nu = KeplerEquation.trueAnomaly(KeplerEquation.eccentricAnomaly(meanAnomaly, e), e);
         double w = Math.toRadians(omegaDeg);
         return amplitudeDays * ((1 - e * e) / (1 + e * Math.cos(nu)) * Math.sin(nu + w) + e * Math.sin(w));
     }
@@ -29,22 +30,5 @@ public record EphemerisLightTime(double periodDays, double amplitudeDays, double
     public double semiAmplitudeDays() {
         double c = Math.cos(Math.toRadians(omegaDeg));
         return amplitudeDays * Math.sqrt(1 - eccentricity * eccentricity * c * c);
-    }
-
-    /**
-     * Solves Kepler's equation E − e·sin E = M by Newton's method (Meeus, Astronomical
-     * Algorithms, 2nd ed., ch. 30), started from E = M + e·sin M, or from π for e &gt; 0.8.
-     */
-    static double eccentricAnomaly(double meanAnomaly, double e) {
-        double m = Math.IEEEremainder(meanAnomaly, 2 * Math.PI);
-        double ecc = e > 0.8 ? Math.PI * Math.signum(m == 0 ? 1 : m) : m + e * Math.sin(m);
-        for (int i = 0; i < 50; i++) {
-            double delta = (ecc - e * Math.sin(ecc) - m) / (1 - e * Math.cos(ecc));
-            ecc -= delta;
-            if (Math.abs(delta) < 1e-13) {
-                break;
-            }
-        }
-        return ecc;
     }
 }

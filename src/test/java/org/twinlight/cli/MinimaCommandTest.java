@@ -141,27 +141,33 @@ class MinimaCommandTest {
         assertThat(o.toString()).contains("warning").contains("epoch may be a secondary minimum");
     }
 
+    /** Exit code and standard error of one run. */
+    private record Run(int code, String err) {
+    }
+
+    /** Runs {@code minima FILE --period P --epoch 2460000.3 --out DIR/out}. */
+    private static Run runWithPeriod(Path dir, Path file, String period) {
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", period, "--epoch", "2460000.3",
+                "--out", dir.resolve("out").toString());
+        return new Run(code, e.toString());
+    }
+
     @Test
     void badFileExitsTwoNamingTheFile(@TempDir Path dir) throws IOException {
         Path file = dir.resolve("broken.csv");
         Files.writeString(file, "this is not photometry\nat all\n");
-        StringWriter o = new StringWriter();
-        StringWriter e = new StringWriter();
-        int code = commandLine(o, e).execute("minima", file.toString(), "--period", "2.5", "--epoch", "2460000.3",
-                "--out", dir.resolve("out").toString());
-        assertThat(code).isEqualTo(2);
-        assertThat(e.toString()).contains("broken.csv").doesNotContain("Exception");
+        Run r = runWithPeriod(dir, file, "2.5");
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("broken.csv").doesNotContain("Exception");
     }
 
     @Test
     void nonPositivePeriodExitsTwoNamingTheValue(@TempDir Path dir) throws IOException {
-        Path file = writeLightCurve(dir);
-        StringWriter o = new StringWriter();
-        StringWriter e = new StringWriter();
-        int code = commandLine(o, e).execute("minima", file.toString(), "--period", "-2.5", "--epoch", "2460000.3",
-                "--out", dir.resolve("out").toString());
-        assertThat(code).isEqualTo(2);
-        assertThat(e.toString()).contains("--period").contains("-2.5");
+        Run r = runWithPeriod(dir, writeLightCurve(dir), "-2.5");
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("--period").contains("-2.5");
     }
 
     @Test
