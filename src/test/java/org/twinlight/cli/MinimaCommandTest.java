@@ -57,7 +57,10 @@ class MinimaCommandTest {
 
     private static CommandLine commandLine(StringWriter out, StringWriter err) {
         CommandLine cl = TwinlightCommand.commandLine();
-        cl.addSubcommand("minima", new MinimaCommand());
+        // Until the command is registered in TwinlightCommand; afterwards the registered one is used.
+        if (!cl.getSubcommands().containsKey("minima")) {
+            cl.addSubcommand("minima", new MinimaCommand());
+        }
         cl.setOut(new PrintWriter(out));
         cl.setErr(new PrintWriter(err));
         return cl;
