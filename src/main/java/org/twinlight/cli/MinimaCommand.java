@@ -97,7 +97,8 @@ public final class MinimaCommand implements Callable<Integer> {
     @Option(names = "--observer", paramLabel = "NAME", description = "Observer, written into the submission table.")
     String observer;
 
-    @Option(names = "--filter", paramLabel = "NAME", description = "Filter or band, written into the submission table.")
+    @Option(names = "--filter", paramLabel = "NAME", description = "Filter or band: the band measured when the file holds "
+            + "several, and the filter written into the submission table (default: the file's band, if it names one).")
     String filter;
 
     @Spec
@@ -132,7 +133,8 @@ public final class MinimaCommand implements Callable<Integer> {
             settings = settings.withWindowDays(windowDays(window, periodDays));
         }
 
-        LightCurve lc = LightCurveReader.read(file, photometry.toReadOptions());
+        LightCurve lc = oneBand(LightCurveReader.readBands(file, photometry.toReadOptions()));
+        String filterName = filter != null ? filter : lc.band();
         MinimumSearchResult search = MinimumFinder.find(lc, given, settings);
         List<MinimumTime> timings = search.minima(chosen);
         if (timings.isEmpty()) {
@@ -161,11 +163,36 @@ public final class MinimaCommand implements Callable<Integer> {
         OcPlot.write(out.resolve("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
                 reference.epochDays(), reference.periodDays()), lc.timeScale(), chosen.label());
         MinimaSubmissionTable.write(out.resolve("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,
-                lc.timeScale(), source, reference, observer, filter, version));
+                lc.timeScale(), source, reference, observer, filterName, version));
 
         printSummary(o, lc, search, chosen, oc);
         o.flush();
         return 0;
+    }
+
+    /** The light curve of the band named by --filter, or the only one; several without --filter is bad input. */
+    private LightCurve oneBand(Map<String, LightCurve> bands) {
+        if (bands.size() == 1 && filter == null) {
+            return bands.values().iterator().next();
+        }
+        if (filter != null) {
+            LightCurve chosen = bands.get(filter);
+            if (chosen != null) {
+                return chosen;
+            }
+            if (bands.size() == 1) {
+                // A file without a band column: --filter only labels the table.
+                LightCurve only = bands.values().iterator().next();
+                if (only.band() == null || only.band().isEmpty()) {
+                    return only;
+                }
+            }
+            throw BadInputException.at(file, null, photometry.bandColumn, "no band '" + filter
+                    + "' in the file; it holds " + String.join(", ", bands.keySet()));
+        }
+        throw BadInputException.at(file, null, photometry.bandColumn, "the file holds " + bands.size() + " bands ("
+                + String.join(", ", bands.keySet()) + "); choose one with --filter, times of minimum are measured "
+                + "band by band");
     }
 
     /** A phase (plain number below 1) or a duration with a unit d, h or min, as days. */

@@ -173,6 +173,29 @@ class MinimaCommandTest {
         assertThat(r.err()).contains("--period").contains("-2.5");
     }
 
+    /** A two-band file is measured band by band: --filter chooses the band, without it the bands are listed. */
+    @Test
+    void severalBandsNeedAFilter(@TempDir Path dir) throws IOException {
+        List<String> lines = Files.readAllLines(writeLightCurve(dir));
+        StringBuilder sb = new StringBuilder("time,flux,flux_err,band\n");
+        for (int i = 1; i < lines.size(); i++) {
+            sb.append(lines.get(i)).append(i % 2 == 0 ? ",V" : ",R").append('\n');
+        }
+        Path file = dir.resolve("two-bands.csv");
+        Files.writeString(file, sb.toString());
+        Run without = runWithPeriod(dir, file, "2.5");
+        assertThat(without.code()).isEqualTo(2);
+        assertThat(without.err()).contains("two-bands.csv").contains("--filter").contains("V").contains("R");
+
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        Path out = dir.resolve("out-r");
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD), "--epoch",
+                String.valueOf(EPOCH), "--out", out.toString(), "--filter", "R");
+        assertThat(code).as(e.toString()).isZero();
+        assertThat(Files.readString(out.resolve("minima-submission.txt"))).contains("FILTER").contains(" R ");
+    }
+
     @Test
     void helpDescribesEveryOption() {
         StringWriter o = new StringWriter();
