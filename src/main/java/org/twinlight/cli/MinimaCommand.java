@@ -1,0 +1,322 @@
+package org.twinlight.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
+import java.util.concurrent.Callable;
+import org.twinlight.BadInputException;
+import org.twinlight.WorkFailedException;
+import org.twinlight.photometry.LightCurve;
+import org.twinlight.photometry.LightCurveReader;
+import org.twinlight.report.EphemerisJson;
+import org.twinlight.report.InputDigest;
+import org.twinlight.report.MinimaCsv;
+import org.twinlight.report.MinimaSubmissionTable;
+import org.twinlight.report.OcPlot;
+import org.twinlight.timing.Ephemeris;
+import org.twinlight.timing.EphemerisFit;
+import org.twinlight.timing.EphemerisParameter;
+import org.twinlight.timing.MinimumFinder;
+import org.twinlight.timing.MinimumMethod;
+import org.twinlight.timing.MinimumSearchResult;
+import org.twinlight.timing.MinimumSettings;
+import org.twinlight.timing.MinimumSkip;
+import org.twinlight.timing.MinimumTime;
+import org.twinlight.timing.OcAnalysis;
+import org.twinlight.timing.OcPoint;
+import org.twinlight.timing.OcResult;
+import org.twinlight.timing.OcSeriesDifference;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code minima FILE --period P --epoch T0 --out DIR}: times of minimum of every covered
+ * eclipse, O−C and ephemeris fits; writes {@code minima.csv}, {@code ephemeris.json},
+ * {@code o-c.png} and {@code minima-submission.txt}.
+ */
+@Command(name = "minima", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {
+            "Times of minimum of every primary and secondary eclipse covered by the light curve, measured by "
+                    + "Kwee & van Woerden (1956) and by a fit of a symmetric template, with honest errors; "
+                    + "O−C against the ephemeris; linear, quadratic and light-time (third body) ephemeris fits "
+                    + "compared by BIC.",
+            "Writes minima.csv, ephemeris.json, o-c.png and minima-submission.txt to --out. "
+                    + "Eclipses with too few points, one-sided or partial coverage are skipped and listed with "
+                    + "the reason."})
+public final class MinimaCommand implements Callable<Integer> {
+
+    @Parameters(index = "0", paramLabel = "FILE", description = "Photometry file (delimited text or FITS table).")
+    Path file;
+
+    @Option(names = "--period", required = true, paramLabel = "DAYS",
+            description = "Orbital period of the ephemeris, days (> 0).")
+    double periodDays;
+
+    @Option(names = "--epoch", required = true, paramLabel = "T0",
+            description = "Time of a primary minimum (cycle 0), days, in the time scale of the data (after --time-offset is added).")
+    double epochDays;
+
+    @Option(names = "--out", required = true, paramLabel = "DIR", description = "Directory for the results (created if missing).")
+    Path out;
+
+    @Mixin
+    PhotometryOptions photometry;
+
+    @Option(names = "--secondary-phase", paramLabel = "F", defaultValue = "0.5",
+            description = "Phase of the secondary minimum after the primary, 0 < F < 1 (default: ${DEFAULT-VALUE}).")
+    double secondaryPhase;
+
+    @Option(names = "--window", paramLabel = "WIDTH",
+            description = "Full width of the window cut around each eclipse: a phase (e.g. 0.06) or a duration "
+                    + "with a unit: 0.15d, 3.5h, 200min (default: 1.4 × the eclipse duration seen in the "
+                    + "folded light curve).")
+    String window;
+
+    @Option(names = "--method", paramLabel = "kvw|template", defaultValue = "template",
+            description = "Which timings the ephemeris fits, the plot and the submission table use; minima.csv "
+                    + "has both (default: ${DEFAULT-VALUE}).")
+    String method;
+
+    @Option(names = "--oc-reference", paramLabel = "given|fitted", defaultValue = "given",
+            description = "Take the O−C against the given ephemeris or against the fitted linear one "
+                    + "(default: ${DEFAULT-VALUE}).")
+    String ocReference;
+
+    @Option(names = "--min-points", paramLabel = "N", defaultValue = "12",
+            description = "Fewest data points an eclipse window must hold (default: ${DEFAULT-VALUE}).")
+    int minPoints;
+
+    @Option(names = "--observer", paramLabel = "NAME", description = "Observer, written into the submission table.")
+    String observer;
+
+    @Option(names = "--filter", paramLabel = "NAME", description = "Filter or band: the band measured when the file holds "
+            + "several, and the filter written into the submission table (default: the file's band, if it names one).")
+    String filter;
+
+    @Spec
+    CommandSpec spec;
+
+    @Override
+    public Integer call() {
+        PrintWriter o = spec.commandLine().getOut();
+        if (!(periodDays > 0) || !Double.isFinite(periodDays)) {
+            throw new BadInputException("option --period: " + periodDays + " d is not allowed; expected a period > 0 days");
+        }
+        if (!Double.isFinite(epochDays)) {
+            throw new BadInputException("option --epoch: " + epochDays + " is not a finite time in days");
+        }
+        MinimumMethod chosen = MinimumMethod.parse(method).orElseThrow(() -> new BadInputException(
+                "option --method: expected 'kvw' or 'template', got '" + method + "'"));
+        boolean fittedReference = switch (ocReference.trim().toLowerCase(Locale.ROOT)) {
+            case "given" -> false;
+            case "fitted" -> true;
+            default -> throw new BadInputException(
+                    "option --oc-reference: expected 'given' or 'fitted', got '" + ocReference + "'");
+        };
+        if (!(secondaryPhase > 0 && secondaryPhase < 1)) {
+            throw new BadInputException("option --secondary-phase: " + secondaryPhase + " is not allowed; expected 0 < F < 1");
+        }
+        if (minPoints < 6) {
+            throw new BadInputException("option --min-points: " + minPoints + " is not allowed; expected ≥ 6");
+        }
+        Ephemeris given = new Ephemeris(epochDays, periodDays);
+        MinimumSettings settings = MinimumSettings.defaults().withSecondaryPhase(secondaryPhase).withMinPoints(minPoints);
+        if (window != null) {
+            settings = settings.withWindowDays(windowDays(window, periodDays));
+        }
+
+        LightCurve lc = oneBand(LightCurveReader.readBands(file, photometry.toReadOptions()));
+        String filterName = filter != null ? filter : lc.band();
+        MinimumSearchResult search = MinimumFinder.find(lc, given, settings);
+        List<MinimumTime> timings = search.minima(chosen);
+        if (timings.isEmpty()) {
+            throw new WorkFailedException("no eclipse could be measured in " + file + " (" + search.skipped().size()
+                    + " skipped: " + reasonSummary(search.skipped()) + "); check --period/--epoch, or widen --window");
+        }
+        OcResult oc = null;
+        long cycles = timings.stream().mapToDouble(MinimumTime::cycle).distinct().count();
+        if (cycles >= 2) {
+            oc = OcAnalysis.analyse(timings, given, true);
+            if (fittedReference) {
+                oc = OcAnalysis.analyse(timings, oc.linear().linearPart(), true);
+            }
+        }
+        Ephemeris reference = oc != null ? oc.reference() : given;
+        List<OcPoint> points = oc != null ? oc.points() : timings.stream()
+                .map(m -> new OcPoint(m.cycle(), m.type(), m.timeDays(), m.errorDays(),
+                        m.timeDays() - given.timeOf(m.cycle())))
+                .toList();
+
+        String version = VersionInfo.version();
+        String source = file.getFileName().toString();
+        MinimaCsv.write(out.resolve("minima.csv"), search.minima(), lc.timeScale(), source, given);
+        EphemerisJson.write(out.resolve("ephemeris.json"), new EphemerisJson.Content(given, oc, search, chosen,
+                secondaryPhase, source, InputDigest.sha256(file), version));
+        OcPlot.write(out.resolve("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
+                reference.epochDays(), reference.periodDays()), lc.timeScale(), chosen.label());
+        MinimaSubmissionTable.write(out.resolve("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,
+                lc.timeScale(), source, reference, observer, filterName, version));
+
+        printSummary(o, lc, search, chosen, oc);
+        o.flush();
+        return 0;
+    }
+
+    /** The light curve of the band named by --filter, or the only one; several without --filter is bad input. */
+    private LightCurve oneBand(Map<String, LightCurve> bands) {
+        if (bands.size() == 1 && filter == null) {
+            return bands.values().iterator().next();
+        }
+        if (filter != null) {
+            LightCurve chosen = bands.get(filter);
+            if (chosen != null) {
+                return chosen;
+            }
+            if (bands.size() == 1) {
+                // A file without a band column: --filter only labels the table.
+                LightCurve only = bands.values().iterator().next();
+                if (only.band() == null || only.band().isEmpty()) {
+                    return only;
+                }
+            }
+            throw BadInputException.at(file, null, photometry.bandColumn, "no band '" + filter
+                    + "' in the file; it holds " + String.join(", ", bands.keySet()));
+        }
+        throw BadInputException.at(file, null, photometry.bandColumn, "the file holds " + bands.size() + " bands ("
+                + String.join(", ", bands.keySet()) + "); choose one with --filter, times of minimum are measured "
+                + "band by band");
+    }
+
+    /** A phase (plain number below 1) or a duration with a unit d, h or min, as days. */
+    static double windowDays(String text, double periodDays) {
+        String s = text.trim().toLowerCase(Locale.ROOT);
+        double factor;
+        String number;
+        if (s.endsWith("min")) {
+            factor = 1 / 1440.0;
+            number = s.substring(0, s.length() - 3);
+        } else if (s.endsWith("h")) {
+            factor = 1 / 24.0;
+            number = s.substring(0, s.length() - 1);
+        } else if (s.endsWith("d")) {
+            factor = 1;
+            number = s.substring(0, s.length() - 1);
+        } else {
+            factor = periodDays;
+            number = s;
+        }
+        double v;
+        try {
+            v = Double.parseDouble(number.trim());
+        } catch (NumberFormatException e) {
+            throw new BadInputException("option --window: '" + text + "' is not a phase (e.g. 0.06) or a duration "
+                    + "(e.g. 0.15d, 3.5h, 200min)");
+        }
+        if (!(v > 0) || !Double.isFinite(v) || (factor == periodDays && v >= 0.5)) {
+            throw new BadInputException("option --window: '" + text + "' is not allowed; expected a phase in (0, 0.5) "
+                    + "or a positive duration with a unit d, h or min");
+        }
+        return v * factor;
+    }
+
+    private static String reasonSummary(List<MinimumSkip> skipped) {
+        Map<String, Integer> byReason = new TreeMap<>();
+        for (MinimumSkip s : skipped) {
+            String r = s.reason();
+            int colon = r.indexOf(':');
+            byReason.merge(colon > 0 ? r.substring(0, colon) : r, 1, Integer::sum);
+        }
+        List<String> parts = new ArrayList<>();
+        byReason.forEach((r, n) -> parts.add(n + " × " + r));
+        return String.join(", ", parts);
+    }
+
+    private void printSummary(PrintWriter o, LightCurve lc, MinimumSearchResult search, MinimumMethod chosen,
+            OcResult oc) {
+        String scale = lc.timeScale().label();
+        o.printf(Locale.ROOT, "%s: %d points, time scale %s%n", lc.source(), lc.size(), scale);
+        o.printf(Locale.ROOT, "eclipse windows: primary %.1f min, secondary %.1f min%n",
+                search.primaryWindowDays() * 1440, search.secondaryWindowDays() * 1440);
+        o.printf(Locale.ROOT, "%-9s %-9s %-17s %-10s %-10s %-10s %s%n", "cycle", "type", "time (" + scale + ")",
+                "σ tpl (s)", "σ kvw (s)", "kvw−tpl(s)", "points");
+        List<MinimumTime> tpl = search.minima(MinimumMethod.TEMPLATE);
+        List<MinimumTime> kvw = search.minima(MinimumMethod.KVW);
+        for (MinimumTime t : search.minima(chosen)) {
+            MinimumTime a = find(tpl, t);
+            MinimumTime b = find(kvw, t);
+            o.printf(Locale.ROOT, "%-9s %-9s %-17.6f %-10s %-10s %-10s %d%n", MinimaCsv.cycleText(t.cycle()),
+                    t.type().label(), t.timeDays(), seconds(a == null ? Double.NaN : a.errorDays()),
+                    seconds(b == null ? Double.NaN : b.errorDays()),
+                    seconds(a == null || b == null ? Double.NaN : b.timeDays() - a.timeDays()), t.nPoints());
+        }
+        if (search.secondaryDeeperThanPrimary()) {
+            o.printf(Locale.ROOT, "warning: the eclipses at phase %.3f (depth %.3f) are deeper than those at phase 0 "
+                    + "(depth %.3f): the epoch may be a secondary minimum; add %.6f d to --epoch to count the deeper "
+                    + "eclipses as primary%n", secondaryPhase, search.secondaryDepth(), search.primaryDepth(),
+                    secondaryPhase * periodDays);
+        }
+        if (!search.skipped().isEmpty()) {
+            o.printf("skipped %d eclipse(s):%n", search.skipped().size());
+            for (MinimumSkip s : search.skipped()) {
+                o.printf(Locale.ROOT, "  cycle %-8s %-9s near %.5f (%d points): %s%n", MinimaCsv.cycleText(s.cycle()),
+                        s.type().label(), s.predictedTimeDays(), s.nPoints(), s.reason());
+            }
+        }
+        if (oc == null) {
+            o.println("only one cycle measured: no ephemeris fitted");
+            return;
+        }
+        EphemerisFit lin = oc.linear();
+        EphemerisParameter e0 = lin.parameter("epoch").orElseThrow();
+        EphemerisParameter p = lin.parameter("period").orElseThrow();
+        o.printf(Locale.ROOT, "linear ephemeris (%s timings): T0 = %.6f ± %.6f, P = %.9f ± %.9f d, χ²/ν = %.2f%n",
+                chosen.label(), e0.value(), e0.uncertainty(), p.value(), p.uncertainty(), lin.reducedChi2());
+        lin.parameter("secondaryOffset").ifPresent(s -> o.printf(Locale.ROOT,
+                "secondary displaced from phase 0.5 by %.2f ± %.2f min%n", s.value() * 1440, s.uncertainty() * 1440));
+        if (oc.quadratic() != null) {
+            EphemerisParameter d = oc.quadratic().parameter("dPdE").orElseThrow();
+            EphemerisParameter dt = oc.quadratic().parameter("dPdtSecondsPerYear").orElseThrow();
+            o.printf(Locale.ROOT, "quadratic: dP/dE = %.3e ± %.3e d/cycle (dP/dt = %.3f ± %.3f s/yr)%n", d.value(),
+                    d.uncertainty(), dt.value(), dt.uncertainty());
+        }
+        if (oc.lightTime() != null) {
+            EphemerisFit lt = oc.lightTime();
+            o.printf(Locale.ROOT, "light-time orbit%s: P3 = %.1f ± %.1f d, semi-amplitude %.2f min, e = %.2f%n",
+                    oc.preferred() == lt.model() ? "" : " (not preferred)",
+                    lt.parameter("lightTimePeriod").orElseThrow().value(),
+                    lt.parameter("lightTimePeriod").orElseThrow().uncertainty(),
+                    lt.parameter("semiAmplitude").orElseThrow().value() * 1440,
+                    lt.parameter("eccentricity").orElseThrow().value());
+        }
+        StringBuilder bic = new StringBuilder("BIC:");
+        for (EphemerisFit f : oc.fits()) {
+            bic.append(String.format(Locale.ROOT, " %s %.1f", f.model().label(), f.bic()));
+        }
+        o.println(bic + " → preferred: " + oc.preferred().label());
+        OcSeriesDifference d = oc.primaryMinusSecondary();
+        if (d != null) {
+            o.printf(Locale.ROOT, "primary − secondary O−C: %.2f ± %.2f min, trend %.3e ± %.3e d/cycle%n",
+                    d.meanDifferenceDays() * 1440, d.meanDifferenceErrorDays() * 1440, d.trendDaysPerCycle(),
+                    d.trendErrorDaysPerCycle());
+        }
+    }
+
+    /** The minimum of the same eclipse in {@code list}, or null. */
+    private static MinimumTime find(List<MinimumTime> list, MinimumTime like) {
+        return list.stream().filter(m -> m.cycle() == like.cycle() && m.type() == like.type()).findFirst()
+                .orElse(null);
+    }
+
+    /** Days as seconds with one decimal, or "-" when unknown. */
+    private static String seconds(double days) {
+        return Double.isFinite(days) ? String.format(Locale.ROOT, "%.1f", days * 86400) : "-";
+    }
+}

@@ -1,0 +1,117 @@
+package org.twinlight.report;
+
+import java.awt.BasicStroke;
+import java.awt.Color;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Locale;
+import org.knowm.xchart.XYChart;
+import org.knowm.xchart.XYChartBuilder;
+import org.knowm.xchart.XYSeries;
+import org.knowm.xchart.style.Styler;
+import org.knowm.xchart.style.markers.SeriesMarkers;
+import org.twinlight.time.TimeScale;
+import org.twinlight.timing.EphemerisFit;
+import org.twinlight.timing.EphemerisModel;
+import org.twinlight.timing.MinimumType;
+import org.twinlight.timing.OcPoint;
+import org.twinlight.timing.OcResult;
+
+/**
+ * The O−C diagram as a PNG: O−C in minutes against cycle number, primary minima as filled
+ * circles and secondary minima as diamonds in another colour, each with its 1σ error bar; the
+ * fitted linear ephemeris as a thin line and, when the BIC prefers it, the quadratic or
+ * light-time curve as a thicker one.
+ */
+public final class OcPlot {
+    private static final double MINUTES_PER_DAY = 1440.0;
+    private static final int CURVE_POINTS = 400;
+
+    private OcPlot() {
+    }
+
+    /**
+     * Writes the plot.
+     *
+     * @param target the PNG file
+     * @param points the O−C points (against {@code reference})
+     * @param result the fitted models, or null to plot the points alone
+     * @param referenceText the reference ephemeris, for the title (e.g. "T0 = 2460000.1234, P = 2.5 d")
+     * @param timeScale time scale of the times
+     * @param method the method of the timings, for the legend
+     */
+    public static void write(Path target, List<OcPoint> points, OcResult result, String referenceText,
+            TimeScale timeScale, String method) {
+        XYChart chart = new XYChartBuilder().width(960).height(680)
+                .title("O−C against " + referenceText + " (" + timeScale.label() + ")")
+                .xAxisTitle("cycle E").yAxisTitle("O−C (minutes)").build();
+        PlotFiles.style(chart);
+        // Outside the plot: O−C points can lie anywhere, an inside legend would hide some.
+        chart.getStyler().setLegendPosition(Styler.LegendPosition.OutsideS);
+        chart.getStyler().setLegendLayout(Styler.LegendLayout.Vertical);
+        chart.getStyler().setMarkerSize(7);
+        chart.getStyler().setErrorBarsColorSeriesColor(true);
+        chart.getStyler().setYAxisDecimalPattern("0.##");
+        double minE = points.stream().mapToDouble(OcPoint::cycle).min().orElse(0);
+        double maxE = points.stream().mapToDouble(OcPoint::cycle).max().orElse(1);
+        if (result != null) {
+            addCurve(chart, result.linear(), MinimumType.PRIMARY, minE, maxE, "linear ephemeris", Color.GRAY, 1.2f);
+            EphemerisFit preferred = result.preferredFit();
+            if (preferred.model() != EphemerisModel.LINEAR) {
+                String name = (preferred.model() == EphemerisModel.QUADRATIC ? "quadratic ephemeris"
+                        : "light-time orbit") + " (preferred by BIC)";
+                addCurve(chart, preferred, MinimumType.PRIMARY, minE, maxE, name, PlotFiles.MODEL, 2.2f);
+                if (significantSecondaryOffset(preferred)) {
+                    addCurve(chart, preferred, MinimumType.SECONDARY, minE, maxE, "same, secondary minima",
+                            PlotFiles.SECOND, 1.6f);
+                }
+            }
+        }
+        addPoints(chart, points, MinimumType.PRIMARY, "primary (" + method + ")", PlotFiles.MODEL.darker(),
+                SeriesMarkers.CIRCLE);
+        addPoints(chart, points, MinimumType.SECONDARY, "secondary (" + method + ")", PlotFiles.SECOND,
+                SeriesMarkers.DIAMOND);
+        PlotFiles.writePng(chart, target);
+    }
+
+    /** Secondaries get their own curve only when their offset from phase 0.5 exceeds 2σ. */
+    private static boolean significantSecondaryOffset(EphemerisFit fit) {
+        return fit.parameter("secondaryOffset")
+                .map(p -> Math.abs(p.value()) > 2 * p.uncertainty())
+                .orElse(false);
+    }
+
+    private static void addPoints(XYChart chart, List<OcPoint> points, MinimumType type, String name, Color color,
+            org.knowm.xchart.style.markers.Marker marker) {
+        List<OcPoint> sel = points.stream().filter(p -> p.type() == type).toList();
+        if (sel.isEmpty()) {
+            return;
+        }
+        double[] x = sel.stream().mapToDouble(OcPoint::cycle).toArray();
+        double[] y = sel.stream().mapToDouble(p -> p.ocDays() * MINUTES_PER_DAY).toArray();
+        double[] e = sel.stream().mapToDouble(p -> p.errorDays() * MINUTES_PER_DAY).toArray();
+        XYSeries s = chart.addSeries(String.format(Locale.ROOT, "%s, n = %d", name, sel.size()), x, y, e);
+        s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+        s.setMarker(marker);
+        s.setMarkerColor(color);
+        s.setLineColor(color);
+    }
+
+    private static void addCurve(XYChart chart, EphemerisFit fit, MinimumType type, double minE, double maxE,
+            String name, Color color, float width) {
+        double span = Math.max(maxE - minE, 1);
+        double from = minE - 0.03 * span;
+        double to = maxE + 0.03 * span;
+        double[] x = new double[CURVE_POINTS];
+        double[] y = new double[CURVE_POINTS];
+        for (int i = 0; i < CURVE_POINTS; i++) {
+            x[i] = from + (to - from) * i / (CURVE_POINTS - 1);
+            y[i] = fit.ocModelDays(x[i], type) * MINUTES_PER_DAY;
+        }
+        XYSeries s = chart.addSeries(name, x, y);
+        s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        s.setMarker(SeriesMarkers.NONE);
+        s.setLineColor(color);
+        s.setLineStyle(new BasicStroke(width));
+    }
+}

@@ -1,0 +1,208 @@
+package org.twinlight.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Locale;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import picocli.CommandLine;
+
+class MinimaCommandTest {
+
+    private static final double PERIOD = 2.5;
+    private static final double EPOCH = 2460000.3;
+    private static final double HALF_DURATION = 0.08;
+
+    private static double dip(double x) {
+        double u = x / HALF_DURATION;
+        return Math.abs(u) >= 1 ? 0 : Math.pow(1 - u * u, 1.5);
+    }
+
+    /**
+     * A synthetic light curve (smooth symmetric dips, 2-min cadence, noise 0.002) over 20 days,
+     * with its observations stopping in the middle of the primary eclipse of cycle 4 (partial
+     * coverage) and a period change Q = 3e-5 d.
+     */
+    static Path writeLightCurve(Path dir) throws IOException {
+        StringBuilder sb = new StringBuilder("time,flux,flux_err\n");
+        Random random = new Random(3);
+        double q = 3e-5;
+        for (double t = EPOCH - 0.5; t < EPOCH + 20; t += 2.0 / 1440) {
+            double tPrimary4 = EPOCH + 4 * PERIOD;
+            if (t > tPrimary4 - 0.02 && t < tPrimary4 + 0.3) {
+                continue;
+            }
+            long n = Math.round((t - EPOCH) / PERIOD);
+            double f = 1;
+            for (long k = n - 1; k <= n + 1; k++) {
+                f -= 0.3 * dip(t - (EPOCH + k * PERIOD + q * k * k));
+                f -= 0.12 * dip(t - (EPOCH + (k + 0.5) * PERIOD + q * k * k));
+            }
+            sb.append(String.format(Locale.ROOT, "%.7f,%.6f,0.002%n", t, f + 0.002 * random.nextGaussian()));
+        }
+        Path file = dir.resolve("synthetic-system.csv");
+        Files.writeString(file, sb.toString());
+        return file;
+    }
+
+    private static CommandLine commandLine(StringWriter out, StringWriter err) {
+        CommandLine cl = TwinlightCommand.commandLine();
+        // Until the command is registered in TwinlightCommand; afterwards the registered one is used.
+        if (!cl.getSubcommands().containsKey("minima")) {
+            cl.addSubcommand("minima", new MinimaCommand());
+        }
+        cl.setOut(new PrintWriter(out));
+        cl.setErr(new PrintWriter(err));
+        return cl;
+    }
+
+    @Test
+    void writesAllFilesAndExitsZero(@TempDir Path dir) throws IOException {
+        Path file = writeLightCurve(dir);
+        Path out = dir.resolve("out");
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
+                "--epoch", String.valueOf(EPOCH), "--out", out.toString(), "--time-scale", "BJD_TDB",
+                "--observer", "A. Nonymous", "--filter", "V");
+        assertThat(code).as(e.toString()).isZero();
+        for (String name : List.of("minima.csv", "ephemeris.json", "o-c.png", "minima-submission.txt")) {
+            assertThat(out.resolve(name)).isRegularFile();
+        }
+        List<String> csv = Files.readAllLines(out.resolve("minima.csv"));
+        assertThat(csv.get(0)).startsWith("#").contains("BJD_TDB");
+        assertThat(csv).contains("cycle,type,time,error,method,n_points");
+        assertThat(csv.stream().filter(l -> l.contains(",template,")).count()).isGreaterThanOrEqualTo(14);
+        assertThat(csv.stream().filter(l -> l.contains(",kvw,")).count()).isGreaterThanOrEqualTo(14);
+        assertThat(csv.stream().anyMatch(l -> l.startsWith("4.5,secondary,"))).isTrue();
+
+        JsonNode json = new ObjectMapper().readTree(out.resolve("ephemeris.json").toFile());
+        assertThat(json.get("timeScale").asText()).isEqualTo("BJD_TDB");
+        assertThat(json.at("/period/value").asDouble()).isBetween(PERIOD - 1e-3, PERIOD + 1e-3);
+        assertThat(json.at("/period/uncertainty").asDouble()).isPositive();
+        assertThat(json.at("/quadratic/dPdE/value").asDouble()).isBetween(3e-5, 9e-5);
+        assertThat(json.at("/bic/preferred").asText()).isEqualTo("quadratic");
+        assertThat(json.get("skipped")).isNotEmpty();
+        assertThat(json.at("/skipped/0/reason").asText()).isNotBlank();
+
+        String table = Files.readString(out.resolve("minima-submission.txt"));
+        assertThat(table).contains("Time scale: BJD_TDB").contains("OBSERVER").contains("A. Nonymous")
+                .contains("FILTER");
+        assertThat(o.toString()).contains("skipped").contains("cycle 4 ").contains("preferred: quadratic")
+                .doesNotContain("warning");
+        List<String> rows = table.lines().filter(l -> !l.startsWith("#")).toList();
+        assertThat(rows).hasSize((int) csv.stream().filter(l -> l.contains(",template,")).count());
+        for (String row : rows) {
+            String[] f = row.trim().split("\\s+", 9);
+            assertThat(Double.parseDouble(f[0])).isBetween(EPOCH - 1, EPOCH + 21);
+            assertThat(Double.parseDouble(f[1])).isPositive();
+            assertThat(f[2]).isIn("P", "S");
+            assertThat(f[5]).isEqualTo("TPL");
+            assertThat(f[7]).isEqualTo("V");
+            assertThat(f[8]).isEqualTo("A. Nonymous");
+        }
+    }
+
+    @Test
+    void reflectionTimingsAgainstTheFittedEphemeris(@TempDir Path dir) throws IOException {
+        Path file = writeLightCurve(dir);
+        Path out = dir.resolve("out");
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
+                "--epoch", String.valueOf(EPOCH), "--out", out.toString(), "--method", "kvw", "--oc-reference",
+                "fitted", "--window", "300min");
+        assertThat(code).as(e.toString()).isZero();
+        JsonNode json = new ObjectMapper().readTree(out.resolve("ephemeris.json").toFile());
+        assertThat(json.get("method").asText()).isEqualTo("kvw");
+        assertThat(json.get("timeScale").asText()).isEqualTo("unknown");
+        assertThat(json.at("/windowDays/primary").asDouble()).isCloseTo(300.0 / 1440, within(1e-12));
+        // Against the fitted linear ephemeris the linear fit's own corrections vanish.
+        assertThat(json.at("/ocReference/period").asDouble()).isCloseTo(json.at("/period/value").asDouble(),
+                within(1e-6));
+        assertThat(Files.readString(out.resolve("minima-submission.txt"))).contains("KVW").contains("Time scale: unknown");
+    }
+
+    @Test
+    void epochAtTheShallowerEclipseIsWarnedAbout(@TempDir Path dir) throws IOException {
+        Path file = writeLightCurve(dir);
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
+                "--epoch", String.valueOf(EPOCH + PERIOD / 2), "--out", dir.resolve("out").toString());
+        assertThat(code).as(e.toString()).isZero();
+        assertThat(o.toString()).contains("warning").contains("epoch may be a secondary minimum");
+    }
+
+    /** Exit code and standard error of one run. */
+    private record Run(int code, String err) {
+    }
+
+    /** Runs {@code minima FILE --period P --epoch 2460000.3 --out DIR/out}. */
+    private static Run runWithPeriod(Path dir, Path file, String period) {
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", period, "--epoch", "2460000.3",
+                "--out", dir.resolve("out").toString());
+        return new Run(code, e.toString());
+    }
+
+    @Test
+    void badFileExitsTwoNamingTheFile(@TempDir Path dir) throws IOException {
+        Path file = dir.resolve("broken.csv");
+        Files.writeString(file, "this is not photometry\nat all\n");
+        Run r = runWithPeriod(dir, file, "2.5");
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("broken.csv").doesNotContain("Exception");
+    }
+
+    @Test
+    void nonPositivePeriodExitsTwoNamingTheValue(@TempDir Path dir) throws IOException {
+        Run r = runWithPeriod(dir, writeLightCurve(dir), "-2.5");
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("--period").contains("-2.5");
+    }
+
+    /** A two-band file is measured band by band: --filter chooses the band, without it the bands are listed. */
+    @Test
+    void severalBandsNeedAFilter(@TempDir Path dir) throws IOException {
+        List<String> lines = Files.readAllLines(writeLightCurve(dir));
+        StringBuilder sb = new StringBuilder("time,flux,flux_err,band\n");
+        for (int i = 1; i < lines.size(); i++) {
+            sb.append(lines.get(i)).append(i % 2 == 0 ? ",V" : ",R").append('\n');
+        }
+        Path file = dir.resolve("two-bands.csv");
+        Files.writeString(file, sb.toString());
+        Run without = runWithPeriod(dir, file, "2.5");
+        assertThat(without.code()).isEqualTo(2);
+        assertThat(without.err()).contains("two-bands.csv").contains("--filter").contains("V").contains("R");
+
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        Path out = dir.resolve("out-r");
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD), "--epoch",
+                String.valueOf(EPOCH), "--out", out.toString(), "--filter", "R");
+        assertThat(code).as(e.toString()).isZero();
+        assertThat(Files.readString(out.resolve("minima-submission.txt"))).contains("FILTER").contains(" R ");
+    }
+
+    @Test
+    void helpDescribesEveryOption() {
+        StringWriter o = new StringWriter();
+        CommandLine cl = new CommandLine(new MinimaCommand());
+        cl.setOut(new PrintWriter(o));
+        assertThat(cl.execute("--help")).isZero();
+        assertThat(o.toString()).contains("--secondary-phase").contains("--window").contains("--method")
+                .contains("--observer").contains("--filter").contains("--time-scale");
+    }
+}
