@@ -19,6 +19,7 @@ import picocli.CommandLine.Option;
             BenchCommand.class,
             TimeCommand.class,
             InspectCommand.class,
+            MinimaCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 
