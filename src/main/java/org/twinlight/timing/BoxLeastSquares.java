@@ -297,9 +297,10 @@ final class BoxLeastSquares {
                 if (r < minR || r >= 1) {
                     continue;
                 }
-                double v = s * s / (r * (1 - r));
-                if (v > best) {
-                    best = v;
+                // s²/(r(1−r)) > best without a division in the loop.
+                double den = r * (1 - r);
+                if (s * s > best * den) {
+                    best = s * s / den;
                     if (detail != null) {
                         detail[0] = (double) width / bins;
                         detail[1] = (j + 0.5 * width) / bins % 1.0;

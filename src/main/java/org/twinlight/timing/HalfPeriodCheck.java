@@ -11,7 +11,8 @@ package org.twinlight.timing;
  * @param secondaryThresholdSnr the signal-to-noise ratio a dip needs to count as a secondary eclipse
  * @param oddEclipse the eclipse at the primary's phase folded at 2P (null when not measured)
  * @param evenEclipse the eclipse half a cycle later folded at 2P (null when not measured)
- * @param depthDifferenceSigma |depth odd − depth even| over its 1σ error
+ * @param depthDifferenceSigma |depth odd − depth even| over its 1σ error, depths measured in the inner half
+ *     of each eclipse (same box width for both)
  * @param durationDifferenceSigma |duration odd − duration even| over its 1σ error
  * @param thresholdSigma the difference in σ above which alternate eclipses count as different
  * @param explanation the decision in words, for people

@@ -60,8 +60,18 @@ final class HalfPeriodResolver {
         FoldedEclipses.Dip even0 = fold2.measure(FoldedEclipses.wrap(prim.centre() / 2 + 0.5), prim.width() / 2);
         FoldedEclipses.Dip odd = fold2.refine(fold2.measure(odd0.centre(), odd0.width(), even0), even0);
         FoldedEclipses.Dip even = fold2.refine(fold2.measure(even0.centre(), even0.width(), odd), odd);
-        odd = fold2.measure(odd.centre(), odd.width(), even);
-        double depthSigma = Math.abs(odd.depth() - even.depth()) / Math.hypot(odd.depthError(), even.depthError());
+        // Compare like with like: both boxes get the same width, each at its own centre (refining the
+        // widths separately would let noise pick different widths and so different box depths).
+        double common = 0.5 * (odd.width() + even.width());
+        FoldedEclipses.Dip oddFinal = fold2.measure(odd.centre(), common, even);
+        even = fold2.measure(even.centre(), common, oddFinal);
+        odd = fold2.measure(odd.centre(), common, even);
+        // Depths are compared in the inner half of each eclipse, where the level is flat and does not
+        // depend on small errors of the centre.
+        FoldedEclipses.Dip oddCore = fold2.measure(odd.centre(), 0.5 * common, even);
+        FoldedEclipses.Dip evenCore = fold2.measure(even.centre(), 0.5 * common, odd);
+        double depthSigma = Math.abs(oddCore.depth() - evenCore.depth())
+                / Math.hypot(oddCore.depthError(), evenCore.depthError());
         double durationSigma = Math.abs(odd.duration() - even.duration())
                 / Math.hypot(odd.durationError(), even.durationError());
         if (!Double.isFinite(durationSigma)) {

@@ -11,7 +11,7 @@ import java.util.List;
  * @param epochDays time of a primary minimum near the middle of the data, days (data time scale)
  * @param epochUncertaintyDays its 1σ uncertainty, days
  * @param significant true when the eclipse signal is significant (see {@code significanceNote})
- * @param sde signal detection efficiency of the highest periodogram peak
+ * @param sde signal detection efficiency of the highest periodogram peak (robust form, see {@link PeriodSearch})
  * @param significanceNote the detection decision in words
  * @param primary the primary (deeper) eclipse folded at the period
  * @param secondary the secondary eclipse, or null when none is seen

@@ -1,0 +1,159 @@
+package org.twinlight.timing;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.assertj.core.api.Assertions.within;
+
+import java.util.Map;
+import org.apache.commons.math3.stat.descriptive.DescriptiveStatistics;
+import org.junit.jupiter.api.Test;
+import org.twinlight.BadInputException;
+import org.twinlight.photometry.LightCurve;
+import org.twinlight.photometry.ValueKind;
+import org.twinlight.time.TimeScale;
+
+/**
+ * Closed-loop tests of the period search on synthetic eclipsing binaries (trapezoid eclipses, white
+ * noise), over several seeds each.
+ */
+class PeriodSearchTest {
+    private static final double CADENCE = 10.0 / 1440;
+    private static final double BASELINE = 16;
+    private static final double NOISE = 0.004;
+    private static final int SEEDS = 4;
+
+    private static PeriodSearchResult run(SyntheticEclipses sys, long seed) {
+        LightCurve lc = sys.sample(2460000.25, BASELINE, CADENCE, NOISE, seed, false);
+        return PeriodSearch.search(lc, PeriodSearchSettings.defaults());
+    }
+
+    @Test
+    void unequalEclipsesAreFoundAtTheTruePeriodWithTheSecondaryAtHalfPhase() {
+        // Secondary 30 % of the primary: the BLS peak sits at P itself (for a box, P/2 only wins when
+        // d2 > (√2 − 1)·d1, from SR² ∝ q·d² at P against 2q·((d1+d2)/2)² at P/2; KZM 2002 Eq. 5).
+        SyntheticEclipses sys = SyntheticEclipses.circular(2.3716, 0.12, 0.036, 0.05);
+        for (long seed = 1; seed <= SEEDS; seed++) {
+            PeriodSearchResult r = run(sys, seed);
+            assertThat(r.significant()).isTrue();
+            assertThat(r.halfPeriod().verdict()).isEqualTo(HalfPeriodVerdict.SECONDARY_AT_BLS_PERIOD);
+            assertThat(Math.abs(r.periodDays() - sys.periodDays())).isLessThan(5 * r.periodUncertaintyDays());
+            assertThat(r.secondary()).isNotNull();
+            assertThat(r.secondary().phase()).isCloseTo(0.5, within(0.005));
+            assertThat(r.secondary().duration() / r.primary().duration()).isCloseTo(1.0, within(0.15));
+            assertThat(r.primary().depth()).isCloseTo(0.12 * 0.85, within(0.02));
+        }
+    }
+
+    @Test
+    void similarButUnequalEclipsesAreResolvedFromHalfThePeriodByOddEvenDepths() {
+        // Secondary 70 % of the primary: the highest peak is P/2 and alternate eclipses differ.
+        SyntheticEclipses sys = SyntheticEclipses.circular(1.8432, 0.10, 0.07, 0.06);
+        for (long seed = 1; seed <= SEEDS; seed++) {
+            PeriodSearchResult r = run(sys, seed);
+            assertThat(r.halfPeriod().blsPeriodDays()).isCloseTo(sys.periodDays() / 2, within(0.01));
+            assertThat(r.halfPeriod().verdict()).isEqualTo(HalfPeriodVerdict.ODD_EVEN_DIFFER);
+            assertThat(r.halfPeriod().depthDifferenceSigma()).isGreaterThan(PeriodSearch.ODD_EVEN_SIGMA);
+            assertThat(Math.abs(r.periodDays() - sys.periodDays())).isLessThan(5 * r.periodUncertaintyDays());
+            assertThat(r.secondary().phase()).isCloseTo(0.5, within(0.005));
+        }
+    }
+
+    @Test
+    void equalEclipsesGiveTwiceTheHighestPeakAndSayThatPhotometryCannotDecide() {
+        SyntheticEclipses sys = SyntheticEclipses.circular(2.9071, 0.08, 0.08, 0.05);
+        for (long seed = 1; seed <= SEEDS; seed++) {
+            PeriodSearchResult r = run(sys, seed);
+            assertThat(r.halfPeriod().blsPeriodDays()).isCloseTo(sys.periodDays() / 2, within(0.01));
+            assertThat(r.halfPeriod().verdict()).isEqualTo(HalfPeriodVerdict.EQUAL_ECLIPSES_AMBIGUOUS);
+            assertThat(r.halfPeriod().ambiguous()).isTrue();
+            assertThat(r.halfPeriod().explanation()).contains("photometry alone").contains("AMBIGUOUS");
+            assertThat(Math.abs(r.periodDays() - sys.periodDays())).isLessThan(5 * r.periodUncertaintyDays());
+            assertThat(r.secondary().phase()).isCloseTo(0.5, within(0.005));
+        }
+    }
+
+    @Test
+    void eccentricOrbitShowsTheSecondaryAwayFromHalfPhaseWithItsWidthRatio() {
+        // Secondary at phase 0.41 and 1.4 times as long as the primary (e cos ω ≠ 0 and e sin ω ≠ 0).
+        SyntheticEclipses sys = new SyntheticEclipses(3.1417, 0.3, 0.10, 0.04, 0.08, 0.41, 0.056, 0.3);
+        for (long seed = 1; seed <= SEEDS; seed++) {
+            PeriodSearchResult r = run(sys, seed);
+            assertThat(r.halfPeriod().verdict()).isEqualTo(HalfPeriodVerdict.SECONDARY_AT_BLS_PERIOD);
+            assertThat(Math.abs(r.periodDays() - sys.periodDays())).isLessThan(5 * r.periodUncertaintyDays());
+            assertThat(r.secondary().phase()).isCloseTo(0.41, within(0.004));
+            assertThat(r.secondary().duration() / r.primary().duration()).isCloseTo(1.4, within(0.15));
+        }
+    }
+
+    @Test
+    void periodPullsOverSeedsHaveAboutUnitSpread() {
+        // If the uncertainty is honest, (found − true)/σ over many seeds has mean ≈ 0 and spread ≈ 1.
+        SyntheticEclipses sys = SyntheticEclipses.circular(2.3716, 0.05, 0.015, 0.05);
+        DescriptiveStatistics pulls = new DescriptiveStatistics();
+        for (long seed = 101; seed <= 116; seed++) {
+            PeriodSearchResult r = run(sys, seed);
+            pulls.addValue((r.periodDays() - sys.periodDays()) / r.periodUncertaintyDays());
+        }
+        assertThat(pulls.getMean()).isCloseTo(0, within(0.8));
+        assertThat(pulls.getStandardDeviation()).isBetween(0.5, 1.6);
+    }
+
+    @Test
+    void noiseOnlyIsReportedAsNotSignificant() {
+        SyntheticEclipses flat = SyntheticEclipses.circular(2.0, 0, 0, 0.05);
+        for (long seed = 1; seed <= 6; seed++) {
+            PeriodSearchResult r = run(flat, seed);
+            assertThat(r.significant()).as("seed %d, SDE %.2f", seed, r.sde()).isFalse();
+            assertThat(r.significanceNote()).startsWith("NOT significant");
+            assertThat(r.halfPeriod().verdict()).isEqualTo(HalfPeriodVerdict.NO_DETECTION);
+        }
+    }
+
+    @Test
+    void tooShortBaselineForTwoEclipsesIsBadInputNamingTheBaseline() {
+        SyntheticEclipses sys = SyntheticEclipses.circular(2.0, 0.1, 0.05, 0.05);
+        LightCurve lc = sys.sample(100, 0.3, 2.0 / 1440, NOISE, 1, false);
+        assertThatThrownBy(() -> PeriodSearch.search(lc, PeriodSearchSettings.defaults()))
+                .isInstanceOf(BadInputException.class)
+                .hasMessageContaining("synthetic-1").hasMessageContaining("too short")
+                .hasMessageContaining("two eclipses");
+    }
+
+    @Test
+    void maximumPeriodBeyondHalfTheBaselineIsRefused() {
+        SyntheticEclipses sys = SyntheticEclipses.circular(2.0, 0.1, 0.05, 0.05);
+        LightCurve lc = sys.sample(100, 10, CADENCE, NOISE, 1, false);
+        assertThatThrownBy(() -> PeriodSearch.search(lc, PeriodSearchSettings.defaults().withMaxPeriodDays(8.0)))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("half the baseline");
+    }
+
+    @Test
+    void fewPointsAndNonPositiveFluxAreBadInput() {
+        double[] t = new double[20];
+        double[] f = new double[20];
+        for (int i = 0; i < t.length; i++) {
+            t[i] = i;
+            f[i] = 1;
+        }
+        LightCurve few = new LightCurve("few.csv", null, TimeScale.UNKNOWN, ValueKind.FLUX, t, f, null, Map.of());
+        assertThatThrownBy(() -> PeriodSearch.search(few, PeriodSearchSettings.defaults()))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("few.csv").hasMessageContaining("at least");
+        double[] t2 = new double[200];
+        double[] m = new double[200];
+        for (int i = 0; i < t2.length; i++) {
+            t2[i] = i * 0.1;
+            m[i] = -0.5;
+        }
+        LightCurve mags = new LightCurve("mags.csv", null, TimeScale.UNKNOWN, ValueKind.FLUX, t2, m, null, Map.of());
+        assertThatThrownBy(() -> PeriodSearch.search(mags, PeriodSearchSettings.defaults()))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("magnitude");
+    }
+
+    @Test
+    void harmonicLabelsNameSimpleRatios() {
+        assertThat(PeriodSearch.harmonic(3.0, 1.0, 1e-3)).isEqualTo("3P");
+        assertThat(PeriodSearch.harmonic(0.25, 1.0, 1e-3)).isEqualTo("P/4");
+        assertThat(PeriodSearch.harmonic(1.5, 1.0, 1e-3)).isEqualTo("3P/2");
+        assertThat(PeriodSearch.harmonic(1.37, 1.0, 1e-3)).isNull();
+    }
+}
