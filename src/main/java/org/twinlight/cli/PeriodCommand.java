@@ -96,7 +96,7 @@ public final class PeriodCommand implements Callable<Integer> {
                 s.minPeriodDays(), s.maxPeriodDays());
         w.printf(Locale.ROOT, "period  %.8f ± %.8f d  (%s)%n", r.periodDays(), r.periodUncertaintyDays(),
                 r.uncertaintyMethod());
-        w.printf(Locale.ROOT, "epoch   %.6f ± %.6f (%s), primary depth %.5f, S/N %.1f%n", r.epochDays(),
+        w.printf(Locale.ROOT, "epoch   %.6f ± %.6f (time scale %s), primary depth %.5f, S/N %.1f%n", r.epochDays(),
                 r.epochUncertaintyDays(), lc.timeScale().label(), r.primary().depth(), r.primary().signalToNoise());
         w.println("signal  " + r.significanceNote());
         if (r.secondary() != null) {

@@ -65,8 +65,8 @@ public final class PeriodogramPlot {
     static XYChart periodogramChart(PeriodSearchResult result, String source) {
         Periodogram pg = result.periodogram();
         XYChart chart = new XYChartBuilder().width(WIDTH).height(TOP_HEIGHT)
-                .title(String.format(Locale.ROOT, "BLS periodogram of %s: P = %.6f ± %.6f d, SDE %.1f%s", source,
-                        result.periodDays(), result.periodUncertaintyDays(), result.sde(),
+                .title(String.format(Locale.ROOT, "BLS periodogram of %s: P = %s d, SDE %.1f%s", source,
+                        withError(result.periodDays(), result.periodUncertaintyDays()), result.sde(),
                         result.significant() ? "" : " (NOT significant)"))
                 .xAxisTitle("period (days, logarithmic)").yAxisTitle("signal residue SR").build();
         PlotFiles.style(chart);
@@ -74,7 +74,6 @@ public final class PeriodogramPlot {
         chart.getStyler().setMarkerSize(9);
         chart.getStyler().setLegendPosition(org.knowm.xchart.style.Styler.LegendPosition.InsideNW);
         chart.getStyler().setXAxisDecimalPattern("0.###");
-        chart.getStyler().setYAxisDecimalPattern("0.000");
         chart.getStyler().setAnnotationTextFont(new java.awt.Font(java.awt.Font.SANS_SERIF, java.awt.Font.PLAIN, 11));
         chart.getStyler().setAnnotationTextFontColor(Color.DARK_GRAY);
         double[][] thin = thinPeriodogram(pg);
@@ -84,6 +83,7 @@ public final class PeriodogramPlot {
         line.setLineColor(PlotFiles.DATA.darker());
         line.setLineWidth(1f);
         double maxPower = Arrays.stream(thin[1]).max().orElse(1);
+        chart.getStyler().setYAxisDecimalPattern(maxPower < 0.01 ? "0.0E0" : "0.000");
         double minPeriod = thin[0][thin[0].length - 1];
         double maxPeriod = thin[0][0];
         List<Double> rx = new ArrayList<>();
@@ -186,8 +186,8 @@ public final class PeriodogramPlot {
                 : String.format(Locale.ROOT, "secondary at phase %.4f, duration ratio %.2f",
                         result.secondary().phase(), result.secondary().duration() / result.primary().duration());
         XYChart chart = new XYChartBuilder().width(WIDTH).height(BOTTOM_HEIGHT)
-                .title(String.format(Locale.ROOT, "Folded at P = %.6f d, primary minimum at %.5f (%s); %s", p, t0,
-                        lc.timeScale().label(), secondary))
+                .title(String.format(Locale.ROOT, "Folded at P = %.7f d, primary minimum at %.5f (time scale %s); %s",
+                        p, t0, lc.timeScale().label(), secondary))
                 .xAxisTitle("phase").yAxisTitle("relative flux").build();
         PlotFiles.style(chart);
         chart.getStyler().setMarkerSize(2);
@@ -237,6 +237,15 @@ public final class PeriodogramPlot {
         chart.getStyler().setXAxisDecimalPattern("0.00");
         chart.getStyler().setYAxisDecimalPattern("0.000");
         return chart;
+    }
+
+    /** "value ± error" with two significant digits in the error and the value to the same decimal. */
+    static String withError(double value, double error) {
+        if (!(error > 0) || !Double.isFinite(error)) {
+            return String.format(Locale.ROOT, "%.6f", value);
+        }
+        int decimals = Math.max(0, Math.min(12, 1 - (int) Math.floor(Math.log10(error))));
+        return String.format(Locale.ROOT, "%." + decimals + "f ± %." + decimals + "f", value, error);
     }
 
     private static double median(double[] v) {

@@ -176,7 +176,7 @@ public final class PeriodSearch {
         boolean significant = sde >= SDE_THRESHOLD && prim1.signalToNoise() >= DETECTION_SNR;
         String note = significant
                 ? String.format(java.util.Locale.ROOT,
-                        "significant: SDE %.1f ≥ %.1f and eclipse depth S/N %.1f ≥ %.1f", sde, SDE_THRESHOLD,
+                        "significant: SDE %.1f ≥ %.1f and eclipse depth S/N %.1f ≥ %.1f at the highest peak", sde, SDE_THRESHOLD,
                         prim1.signalToNoise(), DETECTION_SNR)
                 : String.format(java.util.Locale.ROOT,
                         "NOT significant: SDE %.1f (needs ≥ %.1f), eclipse depth S/N %.1f (needs ≥ %.1f); the best"
@@ -223,6 +223,16 @@ public final class PeriodSearch {
         if (res.secondaryPhase() != null) {
             FoldedEclipses.Dip sec = fold.refine(fold.measure(primary.centre() + res.secondaryPhase(),
                     res.secondaryWidth(), primary), primary);
+            if (sec.depth() - primary.depth() > ODD_EVEN_SIGMA * Math.hypot(sec.depthError(), primary.depthError())) {
+                // The primary is the deeper eclipse; within the errors the label is a matter of choice and the
+                // timed eclipse keeps it (its epoch is the more precise).
+                FoldedEclipses.Dip deeper = sec;
+                sec = primary;
+                primary = deeper;
+                double shift = FoldedEclipses.wrap(primary.centre() - sec.centre());
+                epoch += shift * period;
+                epochError = Math.hypot(epochError, primary.width() * period / 40);
+            }
             secondary = sec.toEvent(primary.centre());
         }
 

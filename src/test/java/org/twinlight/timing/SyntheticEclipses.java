@@ -19,14 +19,14 @@ import org.twinlight.time.TimeScale;
  * @param secondaryWidth full width of the secondary, fraction of the period
  * @param ingressFraction ingress duration over the half width (1 = V shape, small = box)
  */
-record SyntheticEclipses(double periodDays, double epochDays, double primaryDepth, double primaryWidth,
+public record SyntheticEclipses(double periodDays, double epochDays, double primaryDepth, double primaryWidth,
         double secondaryDepth, double secondaryPhase, double secondaryWidth, double ingressFraction) {
 
-    static SyntheticEclipses circular(double period, double depth1, double depth2, double width) {
+    public static SyntheticEclipses circular(double period, double depth1, double depth2, double width) {
         return new SyntheticEclipses(period, 0.37 * period, depth1, width, depth2, 0.5, width, 0.3);
     }
 
-    double flux(double t) {
+    public double flux(double t) {
         double ph = (t - epochDays) / periodDays;
         ph -= Math.floor(ph);
         return 1 - primaryDepth * profile(dist(ph, 0), primaryWidth)
@@ -48,7 +48,7 @@ record SyntheticEclipses(double periodDays, double epochDays, double primaryDept
     }
 
     /** Samples every {@code cadenceDays} from {@code startDays} over {@code baselineDays} with noise σ. */
-    LightCurve sample(double startDays, double baselineDays, double cadenceDays, double noise, long seed,
+    public LightCurve sample(double startDays, double baselineDays, double cadenceDays, double noise, long seed,
             boolean withErrors) {
         int n = (int) Math.floor(baselineDays / cadenceDays) + 1;
         double[] t = new double[n];
