@@ -18,17 +18,23 @@ final class FoldedEclipses {
     private final double periodDays;
     private final double scatter;
 
-    /** A measured dip: centre and width in phase, depth and duration with errors, and the out-of-eclipse level. */
-    record Dip(double centre, double width, double depth, double depthError, double duration, double durationError,
-            int pointsIn, double level) {
+    /**
+     * A measured dip: centre and full box width in phase, the box's depth and error (for detection),
+     * the depth in the inner half of the box (the level at minimum) and its error, the equivalent
+     * duration with its error, the points in the box and the out-of-eclipse level.
+     */
+    record Dip(double centre, double width, double depth, double depthError, double coreDepth,
+            double coreDepthError, double duration, double durationError, int pointsIn, double level) {
         double signalToNoise() {
             return depthError > 0 ? depth / depthError : 0;
         }
 
+        /** As an {@link EclipseEvent}: depth at minimum (inner half of the box), phase from the primary. */
         EclipseEvent toEvent(double primaryCentre) {
             double ph = centre - primaryCentre;
             ph -= Math.floor(ph);
-            return new EclipseEvent(ph, depth, depthError, duration, durationError, signalToNoise());
+            return new EclipseEvent(ph, coreDepth, coreDepthError, duration, durationError,
+                    coreDepthError > 0 ? coreDepth / coreDepthError : 0);
         }
     }
 
@@ -171,18 +177,30 @@ final class FoldedEclipses {
         int nOut = flux.length - nExcluded;
         double sumOut = prefixFlux[flux.length] - s[0];
         if (nIn < BoxLeastSquares.MIN_POINTS_IN_BOX || nOut < 2) {
-            return new Dip(centre, width, 0, Double.POSITIVE_INFINITY, 0, Double.POSITIVE_INFINITY, nIn, Double.NaN);
+            double inf = Double.POSITIVE_INFINITY;
+            return new Dip(centre, width, 0, inf, 0, inf, 0, inf, nIn, Double.NaN);
         }
         double out = sumOut / nOut;
         double depth = out - sumIn / nIn;
         double depthError = scatter * Math.sqrt(1.0 / nIn + 1.0 / nOut);
-        // Equivalent width over the window ±width (twice the box): area = 2·width × mean deficit.
+        // The level at minimum: the inner half of the box, flat for a box-like eclipse whose edges the
+        // box brackets, so it hardly depends on the exact width and centre chosen.
+        s[0] = 0;
+        int nCore = union(new double[][] {{centre, 0.25 * width}}, s);
+        double coreDepth = depth;
+        double coreError = depthError;
+        if (nCore >= BoxLeastSquares.MIN_POINTS_IN_BOX) {
+            coreDepth = out - s[0] / nCore;
+            coreError = scatter * Math.sqrt(1.0 / nCore + 1.0 / nOut);
+        }
+        // Equivalent duration: the area of the dip over the window ±width (twice the box, so the whole
+        // eclipse) divided by the depth at minimum.
         double area = 2 * width * (out - sumWindow / nWindow);
         double areaError = 2 * width * scatter * Math.sqrt(1.0 / nWindow + 1.0 / nOut);
-        double duration = depth > 0 ? area / depth : 0;
-        double durationError = depth > 0 && area > 0
-                ? duration * Math.hypot(areaError / area, depthError / depth) : Double.POSITIVE_INFINITY;
-        return new Dip(centre, width, depth, depthError, duration, durationError, nIn, out);
+        double duration = coreDepth > 0 ? area / coreDepth : 0;
+        double durationError = coreDepth > 0 && area > 0
+                ? duration * Math.hypot(areaError / area, coreError / coreDepth) : Double.POSITIVE_INFINITY;
+        return new Dip(centre, width, depth, depthError, coreDepth, coreError, duration, durationError, nIn, out);
     }
 
     /**

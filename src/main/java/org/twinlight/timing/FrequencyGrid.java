@@ -74,10 +74,6 @@ final class FrequencyGrid {
         return g;
     }
 
-    double baselineDays() {
-        return baselineDays;
-    }
-
     int size() {
         return frequencies.length;
     }

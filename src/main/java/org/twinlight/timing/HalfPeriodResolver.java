@@ -43,8 +43,10 @@ final class HalfPeriodResolver {
         boolean found = other != null && (otherSnr >= PeriodSearch.SECONDARY_SNR
                 || half.signalToNoise() >= PeriodSearch.TARGETED_SECONDARY_SNR);
         if (found) {
-            FoldedEclipses.Dip primary = prim.depth() >= other.depth() ? prim : other;
-            FoldedEclipses.Dip secondary = primary == prim ? other : prim;
+            // The periodogram's dip measured again with the other eclipse left out of its level.
+            FoldedEclipses.Dip first = fold.measure(prim.centre(), prim.width(), other);
+            FoldedEclipses.Dip primary = first.coreDepth() >= other.coreDepth() ? first : other;
+            FoldedEclipses.Dip secondary = primary == first ? other : first;
             double phase = FoldedEclipses.wrap(secondary.centre() - primary.centre());
             String why = String.format(Locale.ROOT,
                     "a second eclipse (depth S/N %.1f; needed %.1f anywhere or %.1f at phase 0.5) shows at phase %.4f"
@@ -66,18 +68,16 @@ final class HalfPeriodResolver {
         FoldedEclipses.Dip oddFinal = fold2.measure(odd.centre(), common, even);
         even = fold2.measure(even.centre(), common, oddFinal);
         odd = fold2.measure(odd.centre(), common, even);
-        // Depths are compared in the inner half of each eclipse, where the level is flat and does not
-        // depend on small errors of the centre.
-        FoldedEclipses.Dip oddCore = fold2.measure(odd.centre(), 0.5 * common, even);
-        FoldedEclipses.Dip evenCore = fold2.measure(even.centre(), 0.5 * common, odd);
-        double depthSigma = Math.abs(oddCore.depth() - evenCore.depth())
-                / Math.hypot(oddCore.depthError(), evenCore.depthError());
+        // Depths are compared at minimum (inner half of each box), where the level is flat and does not
+        // depend on small errors of the centre or width.
+        double depthSigma = Math.abs(odd.coreDepth() - even.coreDepth())
+                / Math.hypot(odd.coreDepthError(), even.coreDepthError());
         double durationSigma = Math.abs(odd.duration() - even.duration())
                 / Math.hypot(odd.durationError(), even.durationError());
         if (!Double.isFinite(durationSigma)) {
             durationSigma = 0;
         }
-        FoldedEclipses.Dip primary = odd.depth() >= even.depth() ? odd : even;
+        FoldedEclipses.Dip primary = odd.coreDepth() >= even.coreDepth() ? odd : even;
         FoldedEclipses.Dip secondary = primary == odd ? even : odd;
         double phase = FoldedEclipses.wrap(secondary.centre() - primary.centre());
         EclipseEvent oddEvent = odd.toEvent(odd.centre());

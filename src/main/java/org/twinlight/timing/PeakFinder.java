@@ -5,7 +5,10 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.stream.IntStream;
 
-/** Distinct peaks of a periodogram: local maxima, strongest first, none within a given frequency distance of a stronger one. */
+/**
+ * Distinct peaks of a periodogram: local maxima, strongest first, none within a given frequency
+ * distance of a stronger one.
+ */
 final class PeakFinder {
     private PeakFinder() {
     }

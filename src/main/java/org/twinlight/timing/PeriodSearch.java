@@ -138,6 +138,13 @@ public final class PeriodSearch {
             maxP = halfBaseline;
         }
         if (!(maxP > minP)) {
+            if (settings.minPeriodDays() != null || settings.maxPeriodDays() != null) {
+                throw new BadInputException(String.format(java.util.Locale.ROOT,
+                        "%s: nothing to search: the shortest trial period %.6g d%s is not below the longest %.6g d%s",
+                        lc.source(), minP, settings.minPeriodDays() != null ? " (--min-period)" : "", maxP,
+                        settings.maxPeriodDays() != null ? " (--max-period)"
+                                : String.format(java.util.Locale.ROOT, " (half the baseline of %.6g d)", baseline)));
+            }
             throw new BadInputException(String.format(java.util.Locale.ROOT,
                     "%s: the baseline of %.6g d is too short: two eclipses must be covered, so the longest period"
                             + " that can be searched is %.6g d, which is not above the shortest trial period %.6g d",
@@ -176,8 +183,8 @@ public final class PeriodSearch {
         boolean significant = sde >= SDE_THRESHOLD && prim1.signalToNoise() >= DETECTION_SNR;
         String note = significant
                 ? String.format(java.util.Locale.ROOT,
-                        "significant: SDE %.1f ≥ %.1f and eclipse depth S/N %.1f ≥ %.1f at the highest peak", sde, SDE_THRESHOLD,
-                        prim1.signalToNoise(), DETECTION_SNR)
+                        "significant: SDE %.1f ≥ %.1f and eclipse depth S/N %.1f ≥ %.1f at the highest peak", sde,
+                        SDE_THRESHOLD, prim1.signalToNoise(), DETECTION_SNR)
                 : String.format(java.util.Locale.ROOT,
                         "NOT significant: SDE %.1f (needs ≥ %.1f), eclipse depth S/N %.1f (needs ≥ %.1f); the best"
                                 + " peak is probably noise", sde, SDE_THRESHOLD, prim1.signalToNoise(), DETECTION_SNR);
@@ -223,7 +230,11 @@ public final class PeriodSearch {
         if (res.secondaryPhase() != null) {
             FoldedEclipses.Dip sec = fold.refine(fold.measure(primary.centre() + res.secondaryPhase(),
                     res.secondaryWidth(), primary), primary);
-            if (sec.depth() - primary.depth() > ODD_EVEN_SIGMA * Math.hypot(sec.depthError(), primary.depthError())) {
+            // Each eclipse's out-of-eclipse level must leave the other eclipse out.
+            primary = fold.refine(fold.measure(primary.centre(), primary.width(), sec), sec);
+            sec = fold.measure(sec.centre(), sec.width(), primary);
+            if (sec.coreDepth() - primary.coreDepth()
+                    > ODD_EVEN_SIGMA * Math.hypot(sec.coreDepthError(), primary.coreDepthError())) {
                 // The primary is the deeper eclipse; within the errors the label is a matter of choice and the
                 // timed eclipse keeps it (its epoch is the more precise).
                 FoldedEclipses.Dip deeper = sec;

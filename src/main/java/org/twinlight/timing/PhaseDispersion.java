@@ -5,7 +5,8 @@ package org.twinlight.timing;
  * Θ = s²/σ², with σ² = Σ(x<sub>i</sub> − x̄)²/(N − 1) the total variance and
  * s² = Σ<sub>j</sub>(n<sub>j</sub> − 1)s<sub>j</sub>² / (Σ<sub>j</sub>n<sub>j</sub> − M) the pooled
  * variance inside the M phase bins (bins with fewer than two points are left
- * out), pooled over shifted covers. Θ ≈ 1 for a wrong period and falls towards the noise share of the variance at the true one.
+ * out), pooled over shifted covers. Θ ≈ 1 for a wrong period and falls towards the noise share of
+ * the variance at the true one.
  * It is independent of the box model of BLS: it uses no eclipse shape at all.
  */
 final class PhaseDispersion {

@@ -40,7 +40,9 @@ class PeriodSearchTest {
             assertThat(r.secondary()).isNotNull();
             assertThat(r.secondary().phase()).isCloseTo(0.5, within(0.005));
             assertThat(r.secondary().duration() / r.primary().duration()).isCloseTo(1.0, within(0.15));
-            assertThat(r.primary().depth()).isCloseTo(0.12 * 0.85, within(0.02));
+            // Depths at minimum: the flat bottoms of the trapezoids.
+            assertThat(r.primary().depth()).isCloseTo(0.12, within(5 * r.primary().depthError()));
+            assertThat(r.secondary().depth()).isCloseTo(0.036, within(5 * r.secondary().depthError()));
         }
     }
 
@@ -69,6 +71,9 @@ class PeriodSearchTest {
             assertThat(r.halfPeriod().explanation()).contains("photometry alone").contains("AMBIGUOUS");
             assertThat(Math.abs(r.periodDays() - sys.periodDays())).isLessThan(5 * r.periodUncertaintyDays());
             assertThat(r.secondary().phase()).isCloseTo(0.5, within(0.005));
+            assertThat(r.secondary().depth()).isCloseTo(r.primary().depth(),
+                    within(4 * Math.hypot(r.primary().depthError(), r.secondary().depthError())));
+            assertThat(r.secondary().duration() / r.primary().duration()).isCloseTo(1.0, within(0.1));
         }
     }
 
