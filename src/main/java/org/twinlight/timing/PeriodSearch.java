@@ -92,6 +92,13 @@ public final class PeriodSearch {
         }
         double[] t = lc.timesDays();
         double[] raw = lc.fluxes();
+        for (int i = 0; i < n; i++) {
+            if (!Double.isFinite(raw[i]) || !Double.isFinite(t[i])) {
+                throw new BadInputException(String.format(java.util.Locale.ROOT,
+                        "%s: point %d (time %s) has a time or flux that is not a finite number", lc.source(), i + 1,
+                        t[i]));
+            }
+        }
         double[] sorted = raw.clone();
         Arrays.sort(sorted);
         double median = FoldedEclipses.median(sorted);
