@@ -159,6 +159,19 @@ class PeriodSearchTest {
     }
 
     @Test
+    void aFluxThatIsNotANumberIsBadInputNamingThePoint() {
+        double[] t = new double[300];
+        double[] f = new double[300];
+        for (int i = 0; i < t.length; i++) {
+            t[i] = i * 0.05;
+            f[i] = i == 123 ? Double.NaN : 1;
+        }
+        LightCurve lc = new LightCurve("nan.csv", null, TimeScale.UNKNOWN, ValueKind.FLUX, t, f, null, Map.of());
+        assertThatThrownBy(() -> PeriodSearch.search(lc, PeriodSearchSettings.defaults()))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("nan.csv").hasMessageContaining("point 124");
+    }
+
+    @Test
     void harmonicLabelsNameSimpleRatios() {
         assertThat(PeriodSearch.harmonic(3.0, 1.0, 1e-3)).isEqualTo("3P");
         assertThat(PeriodSearch.harmonic(0.25, 1.0, 1e-3)).isEqualTo("P/4");
