@@ -67,7 +67,8 @@ public final class PeriodogramPlot {
         XYChart chart = new XYChartBuilder().width(WIDTH).height(TOP_HEIGHT)
                 .title(String.format(Locale.ROOT, "BLS periodogram of %s: P = %s d, SDE %.1f%s", source,
                         withError(result.periodDays(), result.periodUncertaintyDays()), result.sde(),
-                        result.significant() ? "" : " (NOT significant)"))
+                        !result.significant() ? " (NOT significant)"
+                                : result.halfPeriod().ambiguous() ? " (P or P/2: ambiguous)" : ""))
                 .xAxisTitle("period (days, logarithmic)").yAxisTitle("signal residue SR").build();
         PlotFiles.style(chart);
         chart.getStyler().setXAxisLogarithmic(true);
@@ -185,9 +186,10 @@ public final class PeriodogramPlot {
         String secondary = result.secondary() == null ? "no secondary seen"
                 : String.format(Locale.ROOT, "secondary at phase %.4f, duration ratio %.2f",
                         result.secondary().phase(), result.secondary().duration() / result.primary().duration());
+        String scale = lc.timeScale().isKnown() ? lc.timeScale().label() : "time scale unknown";
         XYChart chart = new XYChartBuilder().width(WIDTH).height(BOTTOM_HEIGHT)
-                .title(String.format(Locale.ROOT, "Folded at P = %.7f d, primary minimum at %.5f (time scale %s); %s",
-                        p, t0, lc.timeScale().label(), secondary))
+                .title(String.format(Locale.ROOT, "Folded at P = %.7f d, T0 = %.5f (%s); %s", p, t0, scale,
+                        secondary))
                 .xAxisTitle("phase").yAxisTitle("relative flux").build();
         PlotFiles.style(chart);
         chart.getStyler().setMarkerSize(2);
