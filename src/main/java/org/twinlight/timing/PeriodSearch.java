@@ -90,73 +90,15 @@ public final class PeriodSearch {
             throw new BadInputException(lc.source() + ": only " + n + " usable points; a period search needs at least "
                     + MIN_POINTS);
         }
-        double[] t = lc.timesDays();
-        double[] raw = lc.fluxes();
-        for (int i = 0; i < n; i++) {
-            if (!Double.isFinite(raw[i]) || !Double.isFinite(t[i])) {
-                throw new BadInputException(String.format(java.util.Locale.ROOT,
-                        "%s: point %d (time %s) has a time or flux that is not a finite number", lc.source(), i + 1,
-                        t[i]));
-            }
-        }
-        double[] sorted = raw.clone();
-        Arrays.sort(sorted);
-        double median = FoldedEclipses.median(sorted);
-        if (!(median > 0) || !Double.isFinite(median)) {
-            throw new BadInputException(lc.source() + ": the median flux is " + median
-                    + "; a period search needs positive relative flux (read magnitudes with --values magnitude)");
-        }
-        double[] x = new double[n];
-        for (int i = 0; i < n; i++) {
-            x[i] = raw[i] / median;
-        }
-        double[] err = null;
-        if (lc.hasErrors()) {
-            err = lc.fluxErrors();
-            boolean usable = true;
-            for (int i = 0; i < n; i++) {
-                err[i] /= median;
-                usable &= err[i] > 0 && Double.isFinite(err[i]);
-            }
-            if (!usable) {
-                err = null;
-            }
-        }
-        double baseline = t[n - 1] - t[0];
-        double[] gaps = new double[n - 1];
-        for (int i = 1; i < n; i++) {
-            gaps[i - 1] = t[i] - t[i - 1];
-        }
-        Arrays.sort(gaps);
-        double cadence = FoldedEclipses.median(gaps);
-        double minP = settings.minPeriodDays() != null ? settings.minPeriodDays()
-                : Math.max(DEFAULT_MIN_PERIOD_DAYS, 3 * cadence / settings.longestDuration());
-        double halfBaseline = baseline / 2;
-        double maxP;
-        if (settings.maxPeriodDays() != null) {
-            if (settings.maxPeriodDays() > halfBaseline) {
-                throw new BadInputException(String.format(java.util.Locale.ROOT,
-                        "%s: maximum period %.6g d exceeds half the baseline (%.6g d of %.6g d): two eclipses of the"
-                                + " same kind must be covered; lower --max-period or add data",
-                        lc.source(), settings.maxPeriodDays(), halfBaseline, baseline));
-            }
-            maxP = settings.maxPeriodDays();
-        } else {
-            maxP = halfBaseline;
-        }
-        if (!(maxP > minP)) {
-            if (settings.minPeriodDays() != null || settings.maxPeriodDays() != null) {
-                throw new BadInputException(String.format(java.util.Locale.ROOT,
-                        "%s: nothing to search: the shortest trial period %.6g d%s is not below the longest %.6g d%s",
-                        lc.source(), minP, settings.minPeriodDays() != null ? " (--min-period)" : "", maxP,
-                        settings.maxPeriodDays() != null ? " (--max-period)"
-                                : String.format(java.util.Locale.ROOT, " (half the baseline of %.6g d)", baseline)));
-            }
-            throw new BadInputException(String.format(java.util.Locale.ROOT,
-                    "%s: the baseline of %.6g d is too short: two eclipses must be covered, so the longest period"
-                            + " that can be searched is %.6g d, which is not above the shortest trial period %.6g d",
-                    lc.source(), baseline, maxP, minP));
-        }
+        Prepared data = prepare(lc);
+        double[] t = data.timesDays();
+        double[] x = data.flux();
+        double[] err = data.errors();
+        double baseline = data.baselineDays();
+        double cadence = data.cadenceDays();
+        double[] range = periodRange(lc, settings, baseline, cadence);
+        double minP = range[0];
+        double maxP = range[1];
 
         FrequencyGrid grid = FrequencyGrid.build(baseline, cadence, minP, maxP, settings.shortestDuration(),
                 settings.oversampling());
@@ -170,8 +112,8 @@ public final class PeriodSearch {
         // would inflate a plain standard deviation and hide the very peak being measured.
         double[] sortedPower = power.clone();
         Arrays.sort(sortedPower);
-        double mean = FoldedEclipses.median(sortedPower);
-        double sd = FoldedEclipses.robustScatter(power);
+        double level = FoldedEclipses.median(sortedPower);
+        double spread = FoldedEclipses.robustScatter(power);
         List<Integer> peaks = PeakFinder.distinctPeaks(grid, power, settings.longestDuration() * 2 / baseline,
                 RUNNERS_UP + 4);
         if (peaks.isEmpty()) {
@@ -179,7 +121,7 @@ public final class PeriodSearch {
                     + ": the periodogram has no dip-like peak; check that the values are flux (not magnitude)");
         }
         int top = peaks.get(0);
-        double sde = sd > 0 ? (power[top] - mean) / sd : 0;
+        double sde = spread > 0 ? (power[top] - level) / spread : 0;
         double fTop = grid.frequency(top);
         BoxLeastSquares.Box box = bls.bestBox(fTop, grid.effectiveShortestDuration(fTop));
         double blsPeriod = 1 / fTop;
@@ -257,6 +199,107 @@ public final class PeriodSearch {
         // PDM at the period, its half and double and the runners-up, bins of a fifth of the eclipse duration.
         PhaseDispersion pdm = new PhaseDispersion(t, x);
         double binDays = Math.max(cadence, 0.2 * Math.max(primary.duration(), primary.width() / 2) * period);
+        List<PeriodCandidate> candidates = candidates(period, peaks, power, grid, bls, pdm, binDays,
+                2 * settings.longestDuration() / baseline, level, spread, minP, maxP);
+        boolean pdmAgrees = pdmAgrees(candidates);
+
+        PeriodSearchResult.SearchSummary summary = new PeriodSearchResult.SearchSummary(n, baseline, cadence, minP,
+                maxP, grid.size(), Arrays.stream(settings.durationFractions()).boxed().toList(), err != null);
+        return new PeriodSearchResult(period, periodError, uncertaintyMethod, epoch, epochError, significant, sde, note,
+                primary.toEvent(primary.centre()), secondary, res.check(), pdmAgrees, candidates,
+                new Periodogram(periods, power), summary);
+    }
+
+    /** Times, fluxes divided by their median, errors as weights (or null), baseline and cadence. */
+    private record Prepared(double[] timesDays, double[] flux, double[] errors, double baselineDays,
+            double cadenceDays) {
+    }
+
+    private static Prepared prepare(LightCurve lc) {
+        int n = lc.size();
+        double[] t = lc.timesDays();
+        double[] raw = lc.fluxes();
+        for (int i = 0; i < n; i++) {
+            if (!Double.isFinite(raw[i]) || !Double.isFinite(t[i])) {
+                throw new BadInputException(String.format(java.util.Locale.ROOT,
+                        "%s: point %d (time %s) has a time or flux that is not a finite number", lc.source(), i + 1,
+                        t[i]));
+            }
+        }
+        double[] sorted = raw.clone();
+        Arrays.sort(sorted);
+        double median = FoldedEclipses.median(sorted);
+        if (!(median > 0) || !Double.isFinite(median)) {
+            throw new BadInputException(lc.source() + ": the median flux is " + median
+                    + "; a period search needs positive relative flux (read magnitudes with --values magnitude)");
+        }
+        double[] x = new double[n];
+        for (int i = 0; i < n; i++) {
+            x[i] = raw[i] / median;
+        }
+        double[] err = null;
+        if (lc.hasErrors()) {
+            err = lc.fluxErrors();
+            boolean usable = true;
+            for (int i = 0; i < n; i++) {
+                err[i] /= median;
+                usable &= err[i] > 0 && Double.isFinite(err[i]);
+            }
+            if (!usable) {
+                err = null;
+            }
+        }
+        double baseline = t[n - 1] - t[0];
+        double[] gaps = new double[n - 1];
+        for (int i = 1; i < n; i++) {
+            gaps[i - 1] = t[i] - t[i - 1];
+        }
+        Arrays.sort(gaps);
+        double cadence = FoldedEclipses.median(gaps);
+        return new Prepared(t, x, err, baseline, cadence);
+    }
+
+    /** {shortest, longest} trial period, days, checked against the data. */
+    private static double[] periodRange(LightCurve lc, PeriodSearchSettings settings, double baseline,
+            double cadence) {
+        double minP = settings.minPeriodDays() != null ? settings.minPeriodDays()
+                : Math.max(DEFAULT_MIN_PERIOD_DAYS, 3 * cadence / settings.longestDuration());
+        double halfBaseline = baseline / 2;
+        double maxP;
+        if (settings.maxPeriodDays() != null) {
+            if (settings.maxPeriodDays() > halfBaseline) {
+                throw new BadInputException(String.format(java.util.Locale.ROOT,
+                        "%s: maximum period %.6g d exceeds half the baseline (%.6g d of %.6g d): two eclipses of the"
+                                + " same kind must be covered; lower --max-period or add data",
+                        lc.source(), settings.maxPeriodDays(), halfBaseline, baseline));
+            }
+            maxP = settings.maxPeriodDays();
+        } else {
+            maxP = halfBaseline;
+        }
+        if (!(maxP > minP)) {
+            if (settings.minPeriodDays() != null || settings.maxPeriodDays() != null) {
+                throw new BadInputException(String.format(java.util.Locale.ROOT,
+                        "%s: nothing to search: the shortest trial period %.6g d%s is not below the longest %.6g d%s",
+                        lc.source(), minP, settings.minPeriodDays() != null ? " (--min-period)" : "", maxP,
+                        settings.maxPeriodDays() != null ? " (--max-period)"
+                                : String.format(java.util.Locale.ROOT, " (half the baseline of %.6g d)", baseline)));
+            }
+            throw new BadInputException(String.format(java.util.Locale.ROOT,
+                    "%s: the baseline of %.6g d is too short: two eclipses must be covered, so the longest period"
+                            + " that can be searched is %.6g d, which is not above the shortest trial period %.6g d",
+                    lc.source(), baseline, maxP, minP));
+        }
+        return new double[] {minP, maxP};
+    }
+
+    /**
+     * The chosen period, its half and double, then up to {@link #RUNNERS_UP} distinct periodogram peaks
+     * that are none of these, each with its BLS power, robust SDE and PDM Θ.
+     */
+    private static List<PeriodCandidate> candidates(double period, List<Integer> peaks, double[] power,
+            FrequencyGrid grid, BoxLeastSquares bls, PhaseDispersion pdm, double binDays, double tolerance,
+            double level, double spread, double minP, double maxP) {
         List<PeriodCandidate> candidates = new ArrayList<>();
         double[] multiples = {period, period / 2, 2 * period};
         String[] roles = {"best", "half", "double"};
@@ -264,15 +307,12 @@ public final class PeriodSearch {
             double p = multiples[m];
             double sr = p >= minP && p <= maxP
                     ? bls.bestBox(1 / p, grid.effectiveShortestDuration(1 / p)).signalResidue() : Double.NaN;
-            candidates.add(new PeriodCandidate(p, sr, sd > 0 ? (sr - mean) / sd : Double.NaN,
+            candidates.add(new PeriodCandidate(p, sr, spread > 0 ? (sr - level) / spread : Double.NaN,
                     pdm.thetaWithBinWidth(p, binDays), roles[m]));
         }
-        double thetaBest = candidates.get(0).pdmTheta();
-        boolean pdmAgrees = thetaBest < 1;
         int runners = 0;
-        double tolerance = 2 * settings.longestDuration() / baseline;
         for (int k : peaks) {
-            double p = periods[k];
+            double p = 1 / grid.frequency(k);
             boolean multiple = false;
             for (double mp : multiples) {
                 multiple |= Math.abs(1 / p - 1 / mp) < tolerance;
@@ -285,19 +325,26 @@ public final class PeriodSearch {
             }
             double theta = pdm.thetaWithBinWidth(p, binDays);
             String harmonic = harmonic(p, period, tolerance);
-            if (harmonic == null) {
-                // A harmonic folds the same eclipses, so only unrelated periods can contradict PDM.
-                pdmAgrees &= !(theta <= thetaBest);
-            }
-            candidates.add(new PeriodCandidate(p, power[k], sd > 0 ? (power[k] - mean) / sd : Double.NaN, theta,
+            double sde = spread > 0 ? (power[k] - level) / spread : Double.NaN;
+            candidates.add(new PeriodCandidate(p, power[k], sde, theta,
                     harmonic == null ? "runner-up" : "runner-up, harmonic " + harmonic));
             runners++;
         }
+        return candidates;
+    }
 
-        PeriodSearchResult.SearchSummary summary = new PeriodSearchResult.SearchSummary(n, baseline, cadence, minP,
-                maxP, grid.size(), Arrays.stream(settings.durationFractions()).boxed().toList(), err != null);
-        return new PeriodSearchResult(period, periodError, uncertaintyMethod, epoch, epochError, significant, sde, note,
-                primary.toEvent(primary.centre()), secondary, res.check(), pdmAgrees, candidates,
-                new Periodogram(periods, power), summary);
+    /**
+     * True when Θ at the period (first candidate) is below 1 and below Θ at every runner-up that is not a
+     * harmonic: a harmonic folds the same eclipses, so only unrelated periods can contradict PDM.
+     */
+    private static boolean pdmAgrees(List<PeriodCandidate> candidates) {
+        double best = candidates.get(0).pdmTheta();
+        boolean agrees = best < 1;
+        for (PeriodCandidate c : candidates) {
+            if (c.role().equals("runner-up")) {
+                agrees &= !(c.pdmTheta() <= best);
+            }
+        }
+        return agrees;
     }
 }
