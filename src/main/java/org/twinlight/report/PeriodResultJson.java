@@ -74,6 +74,8 @@ public final class PeriodResultJson {
         eclipse(half, "evenEclipse", h.evenEclipse());
         number(half, "depthDifferenceSigma", h.depthDifferenceSigma());
         number(half, "durationDifferenceSigma", h.durationDifferenceSigma());
+        number(half, "phaseOffsetFromHalf", h.phaseOffsetFromHalf());
+        number(half, "phaseOffsetSigma", h.phaseOffsetSigma());
         number(half, "thresholdSigma", h.thresholdSigma());
         half.put("explanation", h.explanation());
         ObjectNode conf = root.putObject("confirmation");

@@ -266,7 +266,9 @@ final class FoldedEclipses {
             int m = Math.max(1, (int) Math.round(w * bins));
             for (int j = 0; j < bins; j++) {
                 double centre = (j + 0.5 * m) / bins % 1.0;
-                if (distance(centre, avoid.centre) < avoid.width + 0.5 * m / (double) bins) {
+                // The windows ±width of the two dips must not overlap: a box just beside the primary would
+                // measure the primary's own wings.
+                if (distance(centre, avoid.centre) < avoid.width + (double) m / bins) {
                     continue;
                 }
                 int nIn = cumCount[j + m] - cumCount[j];

@@ -14,13 +14,16 @@ package org.twinlight.timing;
  * @param depthDifferenceSigma |depth odd − depth even| over its 1σ error, depths measured in the inner half
  *     of each eclipse (same box width for both)
  * @param durationDifferenceSigma |duration odd − duration even| over its 1σ error
+ * @param phaseOffsetFromHalf how far the even eclipse lies from phase 0.5 after the odd one folded at 2P,
+ *     fraction of 2P (an eccentric orbit moves the secondary away from 0.5)
+ * @param phaseOffsetSigma that offset over its 1σ error (NaN when not measured)
  * @param thresholdSigma the difference in σ above which alternate eclipses count as different
  * @param explanation the decision in words, for people
  */
 public record HalfPeriodCheck(HalfPeriodVerdict verdict, double blsPeriodDays, double doublePeriodDays,
         double secondaryAtBlsPeriodSnr, double secondaryThresholdSnr, EclipseEvent oddEclipse,
         EclipseEvent evenEclipse, double depthDifferenceSigma, double durationDifferenceSigma,
-        double thresholdSigma, String explanation) {
+        double phaseOffsetFromHalf, double phaseOffsetSigma, double thresholdSigma, String explanation) {
 
     /** True when the period cannot be told from its half by photometry alone. */
     public boolean ambiguous() {

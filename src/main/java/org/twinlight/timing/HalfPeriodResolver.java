@@ -18,8 +18,8 @@ final class HalfPeriodResolver {
 
     static Resolution noDetection(double blsPeriod, FoldedEclipses.Dip primary) {
         HalfPeriodCheck check = new HalfPeriodCheck(HalfPeriodVerdict.NO_DETECTION, blsPeriod, 2 * blsPeriod, 0,
-                PeriodSearch.SECONDARY_SNR, null, null, Double.NaN, Double.NaN, PeriodSearch.ODD_EVEN_SIGMA,
-                "no significant eclipse signal, so P and 2P were not compared");
+                PeriodSearch.SECONDARY_SNR, null, null, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                PeriodSearch.ODD_EVEN_SIGMA, "no significant eclipse signal, so P and 2P were not compared");
         return new Resolution(blsPeriod, primary, null, Double.NaN, check);
     }
 
@@ -53,7 +53,8 @@ final class HalfPeriodResolver {
                             + " when folded at P = %.8g d, so P is the orbital period", otherSnr,
                     PeriodSearch.SECONDARY_SNR, PeriodSearch.TARGETED_SECONDARY_SNR, phase, p);
             HalfPeriodCheck check = new HalfPeriodCheck(HalfPeriodVerdict.SECONDARY_AT_BLS_PERIOD, p, 2 * p, otherSnr,
-                    PeriodSearch.SECONDARY_SNR, null, null, Double.NaN, Double.NaN, PeriodSearch.ODD_EVEN_SIGMA, why);
+                    PeriodSearch.SECONDARY_SNR, null, null, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                    PeriodSearch.ODD_EVEN_SIGMA, why);
             return new Resolution(p, primary, phase, secondary.width(), check);
         }
 
@@ -77,21 +78,31 @@ final class HalfPeriodResolver {
         if (!Double.isFinite(durationSigma)) {
             durationSigma = 0;
         }
+        // Centres: a box edge moved by δ changes the depth by about 2δ·depth/width, so the centre's error is
+        // about width/(2·S/N); the refinement's own step (width/40) sets a floor, so an offset must also
+        // exceed a tenth of the width.
+        double offset = Math.abs(FoldedEclipses.wrap(even.centre() - odd.centre()) - 0.5);
+        double offsetError = Math.hypot(common / (2 * Math.max(odd.signalToNoise(), 1e-9)),
+                common / (2 * Math.max(even.signalToNoise(), 1e-9)));
+        double offsetSigma = offset / offsetError;
+        boolean shifted = offsetSigma >= PeriodSearch.ODD_EVEN_SIGMA && offset >= 0.1 * common;
         FoldedEclipses.Dip primary = odd.coreDepth() >= even.coreDepth() ? odd : even;
         FoldedEclipses.Dip secondary = primary == odd ? even : odd;
         double phase = FoldedEclipses.wrap(secondary.centre() - primary.centre());
         EclipseEvent oddEvent = odd.toEvent(odd.centre());
         EclipseEvent evenEvent = even.toEvent(odd.centre());
-        boolean differ = depthSigma >= PeriodSearch.ODD_EVEN_SIGMA || durationSigma >= PeriodSearch.ODD_EVEN_SIGMA;
+        boolean differ = depthSigma >= PeriodSearch.ODD_EVEN_SIGMA || durationSigma >= PeriodSearch.ODD_EVEN_SIGMA
+                || shifted;
         HalfPeriodVerdict verdict;
         String why;
         if (differ) {
             verdict = HalfPeriodVerdict.ODD_EVEN_DIFFER;
             why = String.format(Locale.ROOT,
                     "no second eclipse folded at P = %.8g d (best other dip S/N %.1f < %.1f); folded at 2P = %.8g d"
-                            + " alternate eclipses differ by %.1fσ in depth and %.1fσ in duration (threshold %.1fσ),"
-                            + " so 2P is the orbital period", p, otherSnr, PeriodSearch.SECONDARY_SNR, 2 * p,
-                    depthSigma, durationSigma, PeriodSearch.ODD_EVEN_SIGMA);
+                            + " alternate eclipses differ by %.1fσ in depth and %.1fσ in duration, and the second"
+                            + " lies %.4f from phase 0.5 (%.1fσ) (threshold %.1fσ), so 2P is the orbital period", p,
+                    otherSnr, PeriodSearch.SECONDARY_SNR, 2 * p, depthSigma, durationSigma, offset, offsetSigma,
+                    PeriodSearch.ODD_EVEN_SIGMA);
         } else {
             verdict = HalfPeriodVerdict.EQUAL_ECLIPSES_AMBIGUOUS;
             why = String.format(Locale.ROOT,
@@ -104,7 +115,7 @@ final class HalfPeriodResolver {
                     2 * p, depthSigma, durationSigma, phase, p);
         }
         HalfPeriodCheck check = new HalfPeriodCheck(verdict, p, 2 * p, otherSnr, PeriodSearch.SECONDARY_SNR,
-                oddEvent, evenEvent, depthSigma, durationSigma, PeriodSearch.ODD_EVEN_SIGMA, why);
+                oddEvent, evenEvent, depthSigma, durationSigma, offset, offsetSigma, PeriodSearch.ODD_EVEN_SIGMA, why);
         return new Resolution(2 * p, primary, phase, secondary.width(), check);
     }
 }

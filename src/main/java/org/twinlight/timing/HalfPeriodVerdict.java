@@ -4,7 +4,10 @@ package org.twinlight.timing;
 public enum HalfPeriodVerdict {
     /** A second, distinct eclipse shows at P: P is the orbital period. */
     SECONDARY_AT_BLS_PERIOD,
-    /** Folded at 2P, alternate eclipses differ in depth or duration: the orbital period is 2P. */
+    /**
+     * Folded at 2P, alternate eclipses differ in depth or duration, or the second is away from phase 0.5:
+     * the orbital period is 2P.
+     */
     ODD_EVEN_DIFFER,
     /**
      * Folded at 2P, alternate eclipses are equal and no other eclipse shows at P: either two equal

@@ -95,6 +95,21 @@ class PeriodSearchTest {
     }
 
     @Test
+    void equalEclipsesNearlyHalfAPeriodApartAreResolvedByThePhaseOffset() {
+        // Equal depths and durations, secondary at phase 0.48 (e cos ω ≈ −0.03): the highest peak is P/2,
+        // but folded at P the second eclipse sits half an eclipse width away from 0.5.
+        SyntheticEclipses sys = new SyntheticEclipses(2.6133, 0.4, 0.08, 0.04, 0.08, 0.48, 0.04, 0.3);
+        for (long seed = 1; seed <= SEEDS; seed++) {
+            PeriodSearchResult r = run(sys, seed);
+            assertThat(r.halfPeriod().verdict()).isEqualTo(HalfPeriodVerdict.ODD_EVEN_DIFFER);
+            assertThat(r.halfPeriod().phaseOffsetSigma()).isGreaterThan(PeriodSearch.ODD_EVEN_SIGMA);
+            assertThat(Math.abs(r.periodDays() - sys.periodDays())).isLessThan(5 * r.periodUncertaintyDays());
+            // Which of two equal eclipses is called primary is a matter of noise: 0.48 or 1 − 0.48.
+            assertThat(Math.abs(r.secondary().phase() - 0.5)).isCloseTo(0.02, within(0.003));
+        }
+    }
+
+    @Test
     void periodPullsOverSeedsHaveAboutUnitSpread() {
         // If the uncertainty is honest, (found − true)/σ over many seeds has mean ≈ 0 and spread ≈ 1.
         SyntheticEclipses sys = SyntheticEclipses.circular(2.3716, 0.05, 0.015, 0.05);
