@@ -7,7 +7,8 @@ import java.util.List;
  * Refines a period and gives its uncertainty from eclipse timings.
  *
  * <p>The folded primary eclipse is described by a symmetric trapezoid (total width, ingress, depth;
- * grid search with the depth by linear least squares). The eclipses covered by the data are put in
+ * grid search with the depth by linear least squares). The eclipses the data cover on both sides
+ * (points before the ingress and after the egress) are put in
  * at most {@link #MAX_GROUPS} groups of consecutive cycles; for each group the trapezoid is shifted
  * in time to its least-squares position (Brent's minimiser), and the shift's error follows from the
  * Fisher information of the shift, σ<sub>Δ</sub>² = σ²/Σ(∂m/∂t)², where only points on the
@@ -119,10 +120,19 @@ final class PeriodRefinement {
                 continue;
             }
             int from = i;
+            boolean before = false;
+            boolean after = false;
             while (i < flux.length && Math.round((timesDays[i] - epochDays) / periodDays) == cycle) {
+                double dt = timesDays[i] - (epochDays + cycle * periodDays);
+                before |= dt < -0.5 * halfWidthDays && dt > -1.5 * halfWidthDays;
+                after |= dt > 0.5 * halfWidthDays && dt < 1.5 * halfWidthDays;
                 i++;
             }
-            cycles.add(new int[] {from, i, (int) cycle});
+            // Only eclipses covered on both sides are timed: a one-sided one pins its time on the template
+            // shape alone.
+            if (before && after) {
+                cycles.add(new int[] {from, i, (int) cycle});
+            }
         }
         if (cycles.size() < 2) {
             return null;
