@@ -180,37 +180,30 @@ class PeriodSearchTest {
                 .isInstanceOf(BadInputException.class).hasMessageContaining("half the baseline");
     }
 
+    /** n points every {@code stepDays} with the flux given by {@code flux(i)}. */
+    private static LightCurve curve(String name, int n, double stepDays, java.util.function.IntToDoubleFunction flux) {
+        double[] t = new double[n];
+        double[] f = new double[n];
+        for (int i = 0; i < n; i++) {
+            t[i] = i * stepDays;
+            f[i] = flux.applyAsDouble(i);
+        }
+        return new LightCurve(name, null, TimeScale.UNKNOWN, ValueKind.FLUX, t, f, null, Map.of());
+    }
+
     @Test
     void fewPointsAndNonPositiveFluxAreBadInput() {
-        double[] t = new double[20];
-        double[] f = new double[20];
-        for (int i = 0; i < t.length; i++) {
-            t[i] = i;
-            f[i] = 1;
-        }
-        LightCurve few = new LightCurve("few.csv", null, TimeScale.UNKNOWN, ValueKind.FLUX, t, f, null, Map.of());
+        LightCurve few = curve("few.csv", 20, 1, i -> 1);
         assertThatThrownBy(() -> PeriodSearch.search(few, PeriodSearchSettings.defaults()))
                 .isInstanceOf(BadInputException.class).hasMessageContaining("few.csv").hasMessageContaining("at least");
-        double[] t2 = new double[200];
-        double[] m = new double[200];
-        for (int i = 0; i < t2.length; i++) {
-            t2[i] = i * 0.1;
-            m[i] = -0.5;
-        }
-        LightCurve mags = new LightCurve("mags.csv", null, TimeScale.UNKNOWN, ValueKind.FLUX, t2, m, null, Map.of());
+        LightCurve mags = curve("mags.csv", 200, 0.1, i -> -0.5);
         assertThatThrownBy(() -> PeriodSearch.search(mags, PeriodSearchSettings.defaults()))
                 .isInstanceOf(BadInputException.class).hasMessageContaining("magnitude");
     }
 
     @Test
     void aFluxThatIsNotANumberIsBadInputNamingThePoint() {
-        double[] t = new double[300];
-        double[] f = new double[300];
-        for (int i = 0; i < t.length; i++) {
-            t[i] = i * 0.05;
-            f[i] = i == 123 ? Double.NaN : 1;
-        }
-        LightCurve lc = new LightCurve("nan.csv", null, TimeScale.UNKNOWN, ValueKind.FLUX, t, f, null, Map.of());
+        LightCurve lc = curve("nan.csv", 300, 0.05, i -> i == 123 ? Double.NaN : 1);
         assertThatThrownBy(() -> PeriodSearch.search(lc, PeriodSearchSettings.defaults()))
                 .isInstanceOf(BadInputException.class).hasMessageContaining("nan.csv").hasMessageContaining("point 124");
     }
