@@ -20,6 +20,7 @@ import picocli.CommandLine.Option;
             TimeCommand.class,
             InspectCommand.class,
             MinimaCommand.class,
+            PeriodCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 

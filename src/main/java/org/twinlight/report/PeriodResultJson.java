@@ -1,0 +1,150 @@
+package org.twinlight.report;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.nio.file.Path;
+import java.util.Locale;
+import org.twinlight.timing.EclipseEvent;
+import org.twinlight.timing.HalfPeriodCheck;
+import org.twinlight.timing.PeriodCandidate;
+import org.twinlight.timing.PeriodSearchResult;
+
+/**
+ * Writes {@code period.json}: the contract's {@code period}, {@code method}, {@code secondaryPhase} and
+ * {@code candidates}, plus the epoch, the time scale, the eclipses, the half-period decision with its
+ * evidence, the confirming statistic, the search settings, the input file and the software version.
+ * Numbers that do not exist (NaN) are written as null.
+ */
+public final class PeriodResultJson {
+    private static final ObjectMapper MAPPER = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+
+    private PeriodResultJson() {
+    }
+
+    /**
+     * @param target the file to write (atomically)
+     * @param r the search result
+     * @param timeScale label of the data's time scale ("unknown" when undeclared)
+     * @param inputFile name of the input file
+     * @param sha256 SHA-256 of the input file, hex
+     * @param rejectedRows rows of the input that were read but not used
+     * @param version software version
+     */
+    public static void write(Path target, PeriodSearchResult r, String timeScale, String inputFile, String sha256,
+            int rejectedRows, String version) {
+        AtomicFiles.writeString(target, toJson(r, timeScale, inputFile, sha256, rejectedRows, version));
+    }
+
+    static String toJson(PeriodSearchResult r, String timeScale, String inputFile, String sha256, int rejectedRows,
+            String version) {
+        ObjectNode root = MAPPER.createObjectNode();
+        valueWithError(root.putObject("period"), r.periodDays(), r.periodUncertaintyDays());
+        valueWithError(root.putObject("epoch"), r.epochDays(), r.epochUncertaintyDays());
+        root.put("timeScale", timeScale);
+        root.put("method", "BLS");
+        root.put("methodReference", "box least squares, Kovács, Zucker & Mazeh 2002, A&A 391, 369");
+        root.put("uncertaintyMethod", r.uncertaintyMethod());
+        root.put("significant", r.significant());
+        number(root, "sde", r.sde());
+        root.put("significance", r.significanceNote());
+        if (r.secondary() != null) {
+            number(root, "secondaryPhase", r.secondary().phase());
+            double ratio = r.secondary().duration() / r.primary().duration();
+            double ratioError = Math.abs(ratio) * Math.hypot(r.secondary().durationError() / r.secondary().duration(),
+                    r.primary().durationError() / r.primary().duration());
+            valueWithError(root.putObject("widthRatio"), ratio, ratioError);
+        } else {
+            root.putNull("secondaryPhase");
+            root.putNull("widthRatio");
+        }
+        eclipse(root, "primary", r.primary());
+        eclipse(root, "secondary", r.secondary());
+        HalfPeriodCheck h = r.halfPeriod();
+        ObjectNode half = root.putObject("halfPeriod");
+        half.put("decision", h.verdict().name().toLowerCase(Locale.ROOT).replace('_', '-'));
+        half.put("ambiguous", h.ambiguous());
+        number(half, "highestPeakPeriod", h.blsPeriodDays());
+        number(half, "doublePeriod", h.doublePeriodDays());
+        number(half, "secondarySnrAtHighestPeak", h.secondaryAtBlsPeriodSnr());
+        number(half, "secondarySnrThreshold", h.secondaryThresholdSnr());
+        eclipse(half, "oddEclipse", h.oddEclipse());
+        eclipse(half, "evenEclipse", h.evenEclipse());
+        number(half, "depthDifferenceSigma", h.depthDifferenceSigma());
+        number(half, "durationDifferenceSigma", h.durationDifferenceSigma());
+        number(half, "phaseOffsetFromHalf", h.phaseOffsetFromHalf());
+        number(half, "phaseOffsetSigma", h.phaseOffsetSigma());
+        number(half, "thresholdSigma", h.thresholdSigma());
+        half.put("explanation", h.explanation());
+        ObjectNode conf = root.putObject("confirmation");
+        conf.put("method", "PDM");
+        conf.put("reference", "phase dispersion minimisation, Stellingwerf 1978, ApJ 224, 953");
+        number(conf, "theta", r.candidates().get(0).pdmTheta());
+        conf.put("agrees", r.pdmAgrees());
+        conf.put("rule", "agrees when Θ at the period is below Θ at every runner-up that is not a harmonic of it");
+        ArrayNode cands = root.putArray("candidates");
+        for (PeriodCandidate c : r.candidates()) {
+            ObjectNode o = cands.addObject();
+            number(o, "period", c.periodDays());
+            number(o, "power", c.blsPower());
+            o.put("method", "BLS");
+            number(o, "sde", c.sde());
+            number(o, "pdmTheta", c.pdmTheta());
+            o.put("role", c.role());
+        }
+        PeriodSearchResult.SearchSummary s = r.search();
+        ObjectNode search = root.putObject("search");
+        search.put("points", s.points());
+        number(search, "baseline", s.baselineDays());
+        number(search, "cadence", s.cadenceDays());
+        number(search, "minPeriod", s.minPeriodDays());
+        number(search, "maxPeriod", s.maxPeriodDays());
+        search.put("frequencies", s.frequencies());
+        ArrayNode d = search.putArray("durationFractions");
+        s.durationFractions().forEach(d::add);
+        search.put("weighted", s.weighted());
+        ObjectNode units = root.putObject("units");
+        units.put("period", "d");
+        units.put("epoch", "d, in timeScale");
+        units.put("depth", "relative flux (median = 1)");
+        units.put("duration", "equivalent duration, fraction of the period");
+        units.put("power", "BLS signal residue SR");
+        ObjectNode input = root.putObject("input");
+        input.put("file", inputFile);
+        input.put("sha256", sha256);
+        input.put("rejectedRows", rejectedRows);
+        root.putObject("software").put("version", version);
+        try {
+            return MAPPER.writeValueAsString(root) + System.lineSeparator();
+        } catch (JsonProcessingException e) {
+            throw new IllegalStateException("cannot serialise period result", e);
+        }
+    }
+
+    private static void eclipse(ObjectNode parent, String name, EclipseEvent e) {
+        if (e == null) {
+            parent.putNull(name);
+            return;
+        }
+        ObjectNode o = parent.putObject(name);
+        number(o, "phase", e.phase());
+        valueWithError(o.putObject("depth"), e.depth(), e.depthError());
+        valueWithError(o.putObject("duration"), e.duration(), e.durationError());
+        number(o, "signalToNoise", e.signalToNoise());
+    }
+
+    private static void valueWithError(ObjectNode o, double value, double error) {
+        number(o, "value", value);
+        number(o, "uncertainty", error);
+    }
+
+    private static void number(ObjectNode o, String key, double v) {
+        if (Double.isFinite(v)) {
+            o.put(key, v);
+        } else {
+            o.putNull(key);
+        }
+    }
+}
