@@ -5,7 +5,7 @@ import org.twinlight.photometry.LightCurve;
 import org.twinlight.timing.PeriodSearch;
 import org.twinlight.timing.PeriodSearchResult;
 import org.twinlight.timing.PeriodSearchSettings;
-import org.twinlight.timing.SyntheticEclipses;
+import org.twinlight.timing.SyntheticEclipsingCurve;
 
 /**
  * Benchmark of the whole period search (periodogram, P/2P resolution, timing refinement, PDM) on the
@@ -21,9 +21,9 @@ public final class PeriodSearchBench {
     public static void main(String[] args) {
         int repeats = args.length > 0 ? Integer.parseInt(args[0]) : 3;
         System.out.printf(Locale.ROOT, "cores available: %d%n", Runtime.getRuntime().availableProcessors());
-        SyntheticEclipses shortSystem = new SyntheticEclipses(3.4172, 2460000.9, 0.12, 0.04, 0.05, 0.5, 0.04, 0.3);
+        SyntheticEclipsingCurve shortSystem = new SyntheticEclipsingCurve(3.4172, 2460000.9, 0.12, 0.04, 0.05, 0.5, 0.04, 0.3);
         LightCurve shortCurve = shortSystem.sample(2460000.0, 27, 2.0 / 1440, 0.002, 1, true);
-        SyntheticEclipses longSystem = new SyntheticEclipses(5.8817, 2458001.3, 0.10, 0.03, 0.06, 0.47, 0.035, 0.3);
+        SyntheticEclipsingCurve longSystem = new SyntheticEclipsingCurve(5.8817, 2458001.3, 0.10, 0.03, 0.06, 0.47, 0.035, 0.3);
         LightCurve longCurve = longSystem.sample(2458000.0, 4 * 365.25, 30.0 / 1440, 0.003, 2, true);
         run("27 d, 2 min", shortCurve, shortSystem.periodDays(), repeats, 5);
         run("4 yr, 30 min", longCurve, longSystem.periodDays(), repeats, 60);

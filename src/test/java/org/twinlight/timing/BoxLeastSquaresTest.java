@@ -17,7 +17,7 @@ class BoxLeastSquaresTest {
      */
     @Test
     void signalResidueEqualsTheVarianceExplainedByATwoLevelBox() {
-        SyntheticEclipses sys = SyntheticEclipses.circular(1.7, 0.05, 0.02, 0.06);
+        SyntheticEclipsingCurve sys = SyntheticEclipsingCurve.circular(1.7, 0.05, 0.02, 0.06);
         LightCurve lc = sys.sample(0, 12, 0.01, 0.003, 7, false);
         double[] t = lc.timesDays();
         double[] f = lc.fluxes();
@@ -41,7 +41,7 @@ class BoxLeastSquaresTest {
     /** The segmented fold must reproduce the direct fold's periodogram (both are the same statistic). */
     @Test
     void segmentedPeriodogramMatchesFoldingEveryPoint() {
-        SyntheticEclipses sys = SyntheticEclipses.circular(2.2, 0.02, 0.005, 0.05);
+        SyntheticEclipsingCurve sys = SyntheticEclipsingCurve.circular(2.2, 0.02, 0.005, 0.05);
         LightCurve lc = sys.sample(0, 20, 5.0 / 1440, 0.004, 3, false);
         double[] t = lc.timesDays();
         BoxLeastSquares bls = new BoxLeastSquares(t, lc.fluxes(), null, PeriodSearchSettings.DEFAULT_DURATIONS);

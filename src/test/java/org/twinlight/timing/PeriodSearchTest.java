@@ -22,7 +22,7 @@ class PeriodSearchTest {
     private static final double NOISE = 0.004;
     private static final int SEEDS = 4;
 
-    private static PeriodSearchResult run(SyntheticEclipses sys, long seed) {
+    private static PeriodSearchResult run(SyntheticEclipsingCurve sys, long seed) {
         LightCurve lc = sys.sample(2460000.25, BASELINE, CADENCE, NOISE, seed, false);
         return PeriodSearch.search(lc, PeriodSearchSettings.defaults());
     }
@@ -31,7 +31,7 @@ class PeriodSearchTest {
     void unequalEclipsesAreFoundAtTheTruePeriodWithTheSecondaryAtHalfPhase() {
         // Secondary 30 % of the primary: the BLS peak sits at P itself (for a box, P/2 only wins when
         // d2 > (√2 − 1)·d1, from SR² ∝ q·d² at P against 2q·((d1+d2)/2)² at P/2; KZM 2002 Eq. 5).
-        SyntheticEclipses sys = SyntheticEclipses.circular(2.3716, 0.12, 0.036, 0.05);
+        SyntheticEclipsingCurve sys = SyntheticEclipsingCurve.circular(2.3716, 0.12, 0.036, 0.05);
         for (long seed = 1; seed <= SEEDS; seed++) {
             PeriodSearchResult r = run(sys, seed);
             assertThat(r.significant()).isTrue();
@@ -49,7 +49,7 @@ class PeriodSearchTest {
     @Test
     void similarButUnequalEclipsesAreResolvedFromHalfThePeriodByOddEvenDepths() {
         // Secondary 70 % of the primary: the highest peak is P/2 and alternate eclipses differ.
-        SyntheticEclipses sys = SyntheticEclipses.circular(1.8432, 0.10, 0.07, 0.06);
+        SyntheticEclipsingCurve sys = SyntheticEclipsingCurve.circular(1.8432, 0.10, 0.07, 0.06);
         for (long seed = 1; seed <= SEEDS; seed++) {
             PeriodSearchResult r = run(sys, seed);
             assertThat(r.halfPeriod().blsPeriodDays()).isCloseTo(sys.periodDays() / 2, within(0.01));
@@ -62,7 +62,7 @@ class PeriodSearchTest {
 
     @Test
     void equalEclipsesGiveTwiceTheHighestPeakAndSayThatPhotometryCannotDecide() {
-        SyntheticEclipses sys = SyntheticEclipses.circular(2.9071, 0.08, 0.08, 0.05);
+        SyntheticEclipsingCurve sys = SyntheticEclipsingCurve.circular(2.9071, 0.08, 0.08, 0.05);
         DescriptiveStatistics depthZ = new DescriptiveStatistics();
         for (long seed = 1; seed <= 3 * SEEDS; seed++) {
             PeriodSearchResult r = run(sys, seed);
@@ -84,7 +84,7 @@ class PeriodSearchTest {
     @Test
     void eccentricOrbitShowsTheSecondaryAwayFromHalfPhaseWithItsWidthRatio() {
         // Secondary at phase 0.41 and 1.4 times as long as the primary (e cos ω ≠ 0 and e sin ω ≠ 0).
-        SyntheticEclipses sys = new SyntheticEclipses(3.1417, 0.3, 0.10, 0.04, 0.08, 0.41, 0.056, 0.3);
+        SyntheticEclipsingCurve sys = new SyntheticEclipsingCurve(3.1417, 0.3, 0.10, 0.04, 0.08, 0.41, 0.056, 0.3);
         for (long seed = 1; seed <= SEEDS; seed++) {
             PeriodSearchResult r = run(sys, seed);
             assertThat(r.halfPeriod().verdict()).isEqualTo(HalfPeriodVerdict.SECONDARY_AT_BLS_PERIOD);
@@ -98,7 +98,7 @@ class PeriodSearchTest {
     void equalEclipsesNearlyHalfAPeriodApartAreResolvedByThePhaseOffset() {
         // Equal depths and durations, secondary at phase 0.48 (e cos ω ≈ −0.03): the highest peak is P/2,
         // but folded at P the second eclipse sits half an eclipse width away from 0.5.
-        SyntheticEclipses sys = new SyntheticEclipses(2.6133, 0.4, 0.08, 0.04, 0.08, 0.48, 0.04, 0.3);
+        SyntheticEclipsingCurve sys = new SyntheticEclipsingCurve(2.6133, 0.4, 0.08, 0.04, 0.08, 0.48, 0.04, 0.3);
         for (long seed = 1; seed <= SEEDS; seed++) {
             PeriodSearchResult r = run(sys, seed);
             assertThat(r.halfPeriod().verdict()).isEqualTo(HalfPeriodVerdict.ODD_EVEN_DIFFER);
@@ -112,7 +112,7 @@ class PeriodSearchTest {
     @Test
     void periodPullsOverSeedsHaveAboutUnitSpread() {
         // If the uncertainty is honest, (found − true)/σ over many seeds has mean ≈ 0 and spread ≈ 1.
-        SyntheticEclipses sys = SyntheticEclipses.circular(2.3716, 0.05, 0.015, 0.05);
+        SyntheticEclipsingCurve sys = SyntheticEclipsingCurve.circular(2.3716, 0.05, 0.015, 0.05);
         DescriptiveStatistics pulls = new DescriptiveStatistics();
         for (long seed = 101; seed <= 116; seed++) {
             PeriodSearchResult r = run(sys, seed);
@@ -125,7 +125,7 @@ class PeriodSearchTest {
     @Test
     void nightlyGroundBasedDataWithCutEclipsesGiveHonestPeriods() {
         // Six-hour nights over 50 days, 30 % lost to clouds, eclipses often cut by dawn or dusk.
-        SyntheticEclipses sys = new SyntheticEclipses(0.8137, 2458000.2, 0.3, 0.08, 0.12, 0.5, 0.08, 0.4);
+        SyntheticEclipsingCurve sys = new SyntheticEclipsingCurve(0.8137, 2458000.2, 0.3, 0.08, 0.12, 0.5, 0.08, 0.4);
         DescriptiveStatistics pulls = new DescriptiveStatistics();
         for (long seed = 1; seed <= 8; seed++) {
             java.util.Random rnd = new java.util.Random(seed);
@@ -153,7 +153,7 @@ class PeriodSearchTest {
 
     @Test
     void noiseOnlyIsReportedAsNotSignificant() {
-        SyntheticEclipses flat = SyntheticEclipses.circular(2.0, 0, 0, 0.05);
+        SyntheticEclipsingCurve flat = SyntheticEclipsingCurve.circular(2.0, 0, 0, 0.05);
         for (long seed = 1; seed <= 6; seed++) {
             PeriodSearchResult r = run(flat, seed);
             assertThat(r.significant()).as("seed %d, SDE %.2f", seed, r.sde()).isFalse();
@@ -164,7 +164,7 @@ class PeriodSearchTest {
 
     @Test
     void tooShortBaselineForTwoEclipsesIsBadInputNamingTheBaseline() {
-        SyntheticEclipses sys = SyntheticEclipses.circular(2.0, 0.1, 0.05, 0.05);
+        SyntheticEclipsingCurve sys = SyntheticEclipsingCurve.circular(2.0, 0.1, 0.05, 0.05);
         LightCurve lc = sys.sample(100, 0.3, 2.0 / 1440, NOISE, 1, false);
         assertThatThrownBy(() -> PeriodSearch.search(lc, PeriodSearchSettings.defaults()))
                 .isInstanceOf(BadInputException.class)
@@ -174,7 +174,7 @@ class PeriodSearchTest {
 
     @Test
     void maximumPeriodBeyondHalfTheBaselineIsRefused() {
-        SyntheticEclipses sys = SyntheticEclipses.circular(2.0, 0.1, 0.05, 0.05);
+        SyntheticEclipsingCurve sys = SyntheticEclipsingCurve.circular(2.0, 0.1, 0.05, 0.05);
         LightCurve lc = sys.sample(100, 10, CADENCE, NOISE, 1, false);
         assertThatThrownBy(() -> PeriodSearch.search(lc, PeriodSearchSettings.defaults().withMaxPeriodDays(8.0)))
                 .isInstanceOf(BadInputException.class).hasMessageContaining("half the baseline");

@@ -71,7 +71,7 @@ class PhaseDispersionTest {
     /** Scanning Θ around a synthetic binary finds its minimum at the true period, over seeds. */
     @Test
     void minimumOfThetaIsAtTheTruePeriod() {
-        SyntheticEclipses sys = SyntheticEclipses.circular(1.6180, 0.08, 0.03, 0.06);
+        SyntheticEclipsingCurve sys = SyntheticEclipsingCurve.circular(1.6180, 0.08, 0.03, 0.06);
         for (long seed = 1; seed <= 5; seed++) {
             LightCurve lc = sys.sample(0, 15, 10.0 / 1440, 0.004, seed, false);
             PhaseDispersion pdm = new PhaseDispersion(lc.timesDays(), lc.fluxes());
