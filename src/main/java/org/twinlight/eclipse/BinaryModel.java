@@ -22,6 +22,7 @@ public final class BinaryModel {
     private final double r1;
     private final double r2;
     private final double contactDistance;
+    private final double contactPhaseHalfWidth;
     private final double weight1;
     private final double weight2;
     private final double thirdLight;
@@ -35,6 +36,7 @@ public final class BinaryModel {
         this.r1 = p.radius1();
         this.r2 = p.radius2();
         this.contactDistance = r1 + r2;
+        this.contactPhaseHalfWidth = Orbit.Positions.conjunctionHalfWidth(contactDistance);
         double lightRatio = p.lightRatio();
         this.weight1 = 1 / (1 + lightRatio);
         this.weight2 = lightRatio / (1 + lightRatio);
@@ -80,6 +82,9 @@ public final class BinaryModel {
 
     /** Normalised flux at an instant, no smearing. */
     public double instantaneousFlux(double timeDays) {
+        if (positions.surelyApart(timeDays, contactPhaseHalfWidth)) {
+            return 1.0;
+        }
         double d = positions.signedSeparation(timeDays);
         double ad = Math.abs(d);
         if (ad >= contactDistance) {

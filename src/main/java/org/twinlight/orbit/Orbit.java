@@ -108,6 +108,29 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
             return sinArg >= 0 ? d : -d;
         }
 
+        /**
+         * A quick test, without trigonometry, that the projected separation at this time is at
+         * least {@code separation} (units of a). Exact for circular orbits, where d² = sin²φ +
+         * cos²i cos²φ ≥ sin²φ, so d ≥ s whenever the phase angle φ is farther than arcsin s from
+         * both conjunctions; always false for eccentric orbits.
+         *
+         * @param phaseHalfWidth arcsin(s)/(2π), from {@link #conjunctionHalfWidth(double)}
+         */
+        public boolean surelyApart(double timeDays, double phaseHalfWidth) {
+            if (e != 0) {
+                return false;
+            }
+            double f = (timeDays - epochDays) / periodDays;
+            f -= Math.floor(f);
+            double fromConjunction = Math.abs(f - Math.rint(2 * f) * 0.5);
+            return fromConjunction > phaseHalfWidth;
+        }
+
+        /** arcsin(s)/(2π) with a small margin, for {@link #surelyApart}; 0.25 (no shortcut) when s ≥ 1. */
+        public static double conjunctionHalfWidth(double separation) {
+            return separation >= 1 ? 0.25 : Math.asin(separation) / (2 * Math.PI) * (1 + 1e-9) + 1e-12;
+        }
+
         /** Orbital phase of a time, 0 at primary conjunction, in [0, 1). */
         public double phase(double timeDays) {
             double ph = (timeDays - epochDays) / periodDays;
