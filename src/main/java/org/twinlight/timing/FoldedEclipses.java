@@ -236,6 +236,37 @@ final class FoldedEclipses {
      * The dip of largest signal-to-noise ratio among boxes of the given widths (fractions of the
      * period) that do not overlap {@code avoid}; null when there is no room or no dip.
      */
+    /**
+     * Half-width in phase of the whole dip around {@code avoid}: from its centre outwards until two
+     * bins in a row (with points) are back within 3σ of the level. The periodogram's box can be much
+     * narrower than a wide eclipse (a close pair folded at half its period), and a second box in the
+     * remaining wings would be the same eclipse.
+     */
+    private double extentHalfWidth(double[] sum, int[] count, Dip avoid, double level) {
+        int bins = sum.length;
+        int centreBin = Math.min(bins - 1, (int) (avoid.centre * bins));
+        double widest = 0;
+        for (int dir = -1; dir <= 1; dir += 2) {
+            int quiet = 0;
+            for (int k = 1; k < bins / 2; k++) {
+                int b = Math.floorMod(centreBin + dir * k, bins);
+                if (count[b] == 0) {
+                    continue;
+                }
+                double sigma = scatter / Math.sqrt(count[b]);
+                if (level - sum[b] / count[b] < 3 * sigma) {
+                    if (++quiet == 2) {
+                        widest = Math.max(widest, (k - 1.0) / bins);
+                        break;
+                    }
+                } else {
+                    quiet = 0;
+                }
+            }
+        }
+        return widest;
+    }
+
     Dip search(double[] widths, Dip avoid) {
         int bins = SEARCH_BINS;
         double[] sum = new double[bins];
@@ -253,6 +284,8 @@ final class FoldedEclipses {
                 restCount += count[b];
             }
         }
+        double avoidHalfWidth = Math.max(avoid.width, extentHalfWidth(sum, count, avoid, restCount > 0
+                ? restSum / restCount : avoid.level));
         double[] cumSum = new double[2 * bins + 1];
         int[] cumCount = new int[2 * bins + 1];
         for (int j = 0; j < 2 * bins; j++) {
@@ -268,7 +301,7 @@ final class FoldedEclipses {
                 double centre = (j + 0.5 * m) / bins % 1.0;
                 // The windows ±width of the two dips must not overlap: a box just beside the primary would
                 // measure the primary's own wings.
-                if (distance(centre, avoid.centre) < avoid.width + (double) m / bins) {
+                if (distance(centre, avoid.centre) < avoidHalfWidth + (double) m / bins) {
                     continue;
                 }
                 int nIn = cumCount[j + m] - cumCount[j];

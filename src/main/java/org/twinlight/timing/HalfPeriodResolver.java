@@ -40,8 +40,15 @@ final class HalfPeriodResolver {
             other = fold.refine(half, prim);
             otherSnr = Math.max(half.signalToNoise(), other.signalToNoise());
         }
-        boolean found = other != null && (otherSnr >= PeriodSearch.SECONDARY_SNR
+        // A second dip must lie clear of the first: a refined box that slid into the wing of a wide
+        // primary (a close pair folded at half its period) is the same eclipse.
+        boolean clear = other != null && FoldedEclipses.distance(other.centre(), prim.centre())
+                >= 0.5 * (prim.width() + other.width());
+        boolean found = clear && (otherSnr >= PeriodSearch.SECONDARY_SNR
                 || half.signalToNoise() >= PeriodSearch.TARGETED_SECONDARY_SNR);
+        if (!clear) {
+            otherSnr = 0; // nothing clear of the first eclipse
+        }
         if (found) {
             // The periodogram's dip measured again with the other eclipse left out of its level.
             FoldedEclipses.Dip first = fold.measure(prim.centre(), prim.width(), other);

@@ -41,6 +41,12 @@ public final class PeriodSearch {
      * (the look-elsewhere effect of ~10⁸ trial boxes); 7 leaves a margin for larger data sets.
      */
     public static final double DETECTION_SNR = 7.0;
+    /**
+     * Depth signal-to-noise ratio above which a dip counts as real even when its peak does not stand out
+     * of the periodogram: nightly or seasonal gaps fill the periodogram with aliases of a real signal,
+     * which lowers the SDE of every peak (common practice, no source).
+     */
+    public static final double STRONG_DETECTION_SNR = 30.0;
     /** Signal-to-noise ratio a second dip needs to count as a secondary eclipse (common practice, no source). */
     public static final double SECONDARY_SNR = 5.0;
     /**
@@ -129,11 +135,19 @@ public final class PeriodSearch {
 
         FoldedEclipses fold1 = new FoldedEclipses(t, x, blsPeriod, ref);
         FoldedEclipses.Dip prim1 = fold1.refine(fold1.measure(box.centrePhase(), box.durationFraction()));
-        boolean significant = sde >= SDE_THRESHOLD && prim1.signalToNoise() >= DETECTION_SNR;
-        String note = significant
+        boolean standsOut = sde >= SDE_THRESHOLD;
+        boolean significant = prim1.signalToNoise() >= DETECTION_SNR
+                && (standsOut || prim1.signalToNoise() >= STRONG_DETECTION_SNR);
+        String note = significant && standsOut
                 ? String.format(java.util.Locale.ROOT,
                         "significant: SDE %.1f ≥ %.1f and eclipse depth S/N %.1f ≥ %.1f at the highest peak", sde,
                         SDE_THRESHOLD, prim1.signalToNoise(), DETECTION_SNR)
+                : significant
+                ? String.format(java.util.Locale.ROOT,
+                        "significant: eclipse depth S/N %.1f ≥ %.1f, but the peak does not stand out of the "
+                                + "periodogram (SDE %.1f < %.1f): gaps in the data make aliases, so check the "
+                                + "runners-up against other data", prim1.signalToNoise(), STRONG_DETECTION_SNR, sde,
+                        SDE_THRESHOLD)
                 : String.format(java.util.Locale.ROOT,
                         "NOT significant: SDE %.1f (needs ≥ %.1f), eclipse depth S/N %.1f (needs ≥ %.1f); the best"
                                 + " peak is probably noise", sde, SDE_THRESHOLD, prim1.signalToNoise(), DETECTION_SNR);
