@@ -4,13 +4,10 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import picocli.CommandLine;
 
 /** The simulate and fit commands as a user runs them: files written, exit codes, messages. */
 class FitAndSimulateCommandTest {
@@ -31,12 +28,9 @@ class FitAndSimulateCommandTest {
     }
 
     private static Run run(String... args) {
-        CommandLine cl = TwinlightCommand.commandLine();
-        StringWriter err = new StringWriter();
-        cl.setErr(new PrintWriter(err));
-        cl.setOut(new PrintWriter(new StringWriter()));
-        int code = cl.execute(args);
-        return new Run(code, err.toString());
+        ConsoleCapture console = new ConsoleCapture();
+        int code = console.run(args);
+        return new Run(code, console.err.toString());
     }
 
     @Test
@@ -104,11 +98,9 @@ class FitAndSimulateCommandTest {
     @Test
     void everyCommandHasHelp() {
         for (String c : new String[] {"simulate", "fit", "bench"}) {
-            CommandLine cl = TwinlightCommand.commandLine();
-            StringWriter out = new StringWriter();
-            cl.setOut(new PrintWriter(out));
-            assertThat(cl.execute(c, "--help")).isZero();
-            assertThat(out.toString()).contains("Usage:").contains(c);
+            ConsoleCapture console = new ConsoleCapture();
+            assertThat(console.run(c, "--help")).isZero();
+            assertThat(console.out.toString()).contains("Usage:").contains(c);
         }
     }
 }

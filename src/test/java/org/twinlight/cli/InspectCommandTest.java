@@ -5,7 +5,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
-import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -13,21 +12,18 @@ import java.util.Locale;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.twinlight.photometry.FitsFixture;
-import picocli.CommandLine;
 
 class InspectCommandTest {
 
     @TempDir
     Path dir;
 
-    private final StringWriter out = new StringWriter();
-    private final StringWriter err = new StringWriter();
+    private final ConsoleCapture console = new ConsoleCapture();
+    private final StringWriter out = console.out;
+    private final StringWriter err = console.err;
 
     private int run(String... args) {
-        CommandLine cl = TwinlightCommand.commandLine();
-        cl.setOut(new PrintWriter(out));
-        cl.setErr(new PrintWriter(err));
-        return cl.execute(args);
+        return console.run(args);
     }
 
     /** Two nights of synthetic magnitudes at a 5-minute cadence, with one unreadable row. */

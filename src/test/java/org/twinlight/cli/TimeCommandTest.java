@@ -4,7 +4,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.data.Offset.offset;
 
 import java.io.IOException;
-import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -14,24 +13,21 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.twinlight.time.TimeConverter;
 import org.twinlight.time.TimeScale;
-import picocli.CommandLine;
 
 class TimeCommandTest {
 
     @TempDir
     Path dir;
 
-    private final StringWriter out = new StringWriter();
-    private final StringWriter err = new StringWriter();
+    private final ConsoleCapture console = new ConsoleCapture();
+    private final StringWriter out = console.out;
+    private final StringWriter err = console.err;
 
     private int run(String... args) {
-        CommandLine cl = TwinlightCommand.commandLine();
-        cl.setOut(new PrintWriter(out));
-        cl.setErr(new PrintWriter(err));
         String[] all = new String[args.length + 1];
         all[0] = "time";
         System.arraycopy(args, 0, all, 1, args.length);
-        return cl.execute(all);
+        return console.run(all);
     }
 
     private Path file(String name, String content) throws IOException {
