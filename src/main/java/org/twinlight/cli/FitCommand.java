@@ -1,13 +1,10 @@
 package org.twinlight.cli;
 
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 import java.util.concurrent.Callable;
 import org.twinlight.BadInputException;
 import org.twinlight.eclipse.ModelFile;
@@ -75,6 +72,9 @@ public final class FitCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        List<Path> inputFiles = new ArrayList<>(files);
+        inputFiles.add(model);
+        OutputTargets.checkDirectory(out, List.of("fit.json", "residuals.csv", "model.json", "fit.png"), inputFiles);
         ModelFile start = ModelFile.read(model);
         if (!bands.isEmpty() && bands.size() != files.size()) {
             throw new BadInputException("option --band: given " + bands.size() + " time(s) for " + files.size()
@@ -87,6 +87,10 @@ public final class FitCommand implements Callable<Integer> {
         }
         if (maxIterations < 1) {
             throw new BadInputException("option --max-iterations: expected a positive integer, got " + maxIterations);
+        }
+        if (free != null && trimmed(free).isEmpty()) {
+            throw new BadInputException("option --free: no parameter names given; name at least one, e.g. "
+                    + String.join(",", FitSettings.DEFAULT_FREE));
         }
         FitSettings settings = new FitSettings(
                 new LinkedHashSet<>(free == null || free.isEmpty() ? FitSettings.DEFAULT_FREE : trimmed(free)), base,
@@ -113,7 +117,6 @@ public final class FitCommand implements Callable<Integer> {
                 console().printf(Locale.ROOT, "%s: %d row(s) not used: %s%n", f, lc.rejectedCount(), lc.rejectedRows());
             }
         }
-        checkOutputIsNotInput(out, files, model);
 
         FitResult r = EclipseFitter.fit(start, data, settings);
 
@@ -151,33 +154,6 @@ public final class FitCommand implements Callable<Integer> {
 
     private static String safe(String s) {
         return s.replaceAll("[^A-Za-z0-9_.-]", "_");
-    }
-
-    /** Refuses an output directory whose result names would overwrite an input file. */
-    static void checkOutputIsNotInput(Path outDir, List<Path> inputs, Path... more) {
-        List<Path> all = new ArrayList<>(inputs);
-        all.addAll(List.of(more));
-        Map<String, Path> targets = new LinkedHashMap<>();
-        for (String name : List.of("fit.json", "residuals.csv", "model.json", "fit.png")) {
-            targets.put(name, outDir.resolve(name).toAbsolutePath().normalize());
-        }
-        for (Path in : all) {
-            Path a = in.toAbsolutePath().normalize();
-            for (Path t : targets.values()) {
-                if (t.equals(a) || (Files.exists(t) && Files.exists(a) && sameFile(t, a))) {
-                    throw new BadInputException("option --out: writing " + t.getFileName() + " there would overwrite the input "
-                            + in + "; choose another output directory");
-                }
-            }
-        }
-    }
-
-    private static boolean sameFile(Path a, Path b) {
-        try {
-            return Files.isSameFile(a, b);
-        } catch (java.io.IOException e) {
-            return false;
-        }
     }
 
     private java.io.PrintWriter console() {

@@ -133,6 +133,8 @@ public final class MinimaCommand implements Callable<Integer> {
             settings = settings.withWindowDays(windowDays(window, periodDays));
         }
 
+        OutputTargets.checkDirectory(out, List.of("minima.csv", "ephemeris.json", "o-c.png", "minima-submission.txt"),
+                List.of(file));
         LightCurve lc = oneBand(LightCurveReader.readBands(file, photometry.toReadOptions()));
         String filterName = filter != null ? filter : lc.band();
         MinimumSearchResult search = MinimumFinder.find(lc, given, settings);

@@ -1,14 +1,8 @@
 package org.twinlight.cli;
 
-import java.io.IOException;
-import java.io.InputStream;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.security.DigestInputStream;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
-import java.util.HexFormat;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.twinlight.BadInputException;
@@ -76,13 +70,14 @@ public final class PeriodCommand implements Callable<Integer> {
         if (!Files.isRegularFile(file)) {
             throw new BadInputException(file + ": no such file");
         }
+        OutputTargets.checkDirectory(out, java.util.List.of("period.json", "periodogram.png"), java.util.List.of(file));
         LightCurve lc = LightCurveReader.read(file, photometry.toReadOptions());
         PeriodSearchSettings settings = PeriodSearchSettings.defaults().withMinPeriodDays(minPeriod)
                 .withMaxPeriodDays(maxPeriod).withParallel(!singleThread);
         PeriodSearchResult r = PeriodSearch.search(lc, settings);
         Path json = out.resolve("period.json");
         Path png = out.resolve("periodogram.png");
-        PeriodResultJson.write(json, r, lc.timeScale().label(), file.getFileName().toString(), sha256(file),
+        PeriodResultJson.write(json, r, lc.timeScale().label(), file.getFileName().toString(), org.twinlight.report.InputDigest.sha256(file),
                 lc.rejectedCount(), VersionInfo.version());
         PeriodogramPlot.write(png, r, lc);
         printSummary(spec.commandLine().getOut(), r, lc, json, png);
@@ -120,18 +115,4 @@ public final class PeriodCommand implements Callable<Integer> {
         w.flush();
     }
 
-    static String sha256(Path f) {
-        try (InputStream in = new DigestInputStream(Files.newInputStream(f), MessageDigest.getInstance("SHA-256"))) {
-            DigestInputStream d = (DigestInputStream) in;
-            byte[] buf = new byte[1 << 16];
-            while (d.read(buf) >= 0) {
-                // reading feeds the digest
-            }
-            return HexFormat.of().formatHex(d.getMessageDigest().digest());
-        } catch (IOException e) {
-            throw new BadInputException(f + ": cannot read the file (" + e.getMessage() + ")", e);
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException("SHA-256 is missing from this Java runtime", e);
-        }
-    }
 }

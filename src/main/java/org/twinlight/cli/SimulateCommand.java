@@ -1,6 +1,5 @@
 package org.twinlight.cli;
 
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -122,10 +121,7 @@ public final class SimulateCommand implements Callable<Integer> {
         if (!(noisePpm >= 0)) {
             throw new BadInputException("option --noise-ppm: expected a value ≥ 0, got " + noisePpm);
         }
-        if (Files.exists(out) && sampling.times != null && out.toAbsolutePath().normalize()
-                .equals(sampling.times.toAbsolutePath().normalize())) {
-            throw new BadInputException("option --out: " + out + " is the input times file; it is never overwritten");
-        }
+        OutputTargets.checkFile(out, java.util.Arrays.asList(model, sampling.times));
         LightCurve lc = SyntheticLightCurve.observe(new BinaryModel(p), times, noisePpm, seed,
                 out.getFileName().toString(), band, scale);
         String name = out.getFileName().toString().toLowerCase(Locale.ROOT);

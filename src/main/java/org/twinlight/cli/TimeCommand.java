@@ -1,10 +1,7 @@
 package org.twinlight.cli;
 
-import java.io.IOException;
 import java.io.PrintWriter;
-import java.io.UncheckedIOException;
 import java.math.BigDecimal;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -72,9 +69,8 @@ public final class TimeCommand implements Callable<Integer> {
         TimeScale fromScale = scaleOption("--from", from, "the input times have no declared time scale");
         TimeScale toScale = scaleOption("--to", to, "no time scale to convert to was given");
         SkyDirection direction = direction(fromScale, toScale);
-        if (out != null && sameFile(out, file)) {
-            throw new BadInputException("option --out: " + out + " is the input file, which is never overwritten;"
-                    + " choose another output file");
+        if (out != null) {
+            OutputTargets.checkFile(out, java.util.List.of(file));
         }
         TimeColumnFile.Column times = TimeColumnFile.read(file, column);
 
@@ -144,14 +140,6 @@ public final class TimeCommand implements Callable<Integer> {
             throw new BadInputException("option --dec: " + e.getMessage());
         }
         return new SkyDirection(raDeg, decDeg);
-    }
-
-    private static boolean sameFile(Path a, Path b) {
-        try {
-            return Files.exists(a) && Files.exists(b) && Files.isSameFile(a, b);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
     }
 
     /** Shortest text that reads back to the same double, never in exponent form. */

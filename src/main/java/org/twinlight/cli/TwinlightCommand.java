@@ -36,8 +36,15 @@ public final class TwinlightCommand implements Runnable {
         spec.commandLine().usage(spec.commandLine().getOut());
     }
 
+    /**
+     * The FITS library reports damaged files through java.util.logging with a stack trace; twinlight
+     * reports them itself. Held here so the setting is not garbage-collected with the logger.
+     */
+    private static final java.util.logging.Logger FITS_LOG = java.util.logging.Logger.getLogger("nom.tam");
+
     /** Builds the command line with twinlight's exit codes: 0 success, 1 work failed, 2 bad input or usage. */
     public static CommandLine commandLine() {
+        FITS_LOG.setLevel(java.util.logging.Level.OFF);
         CommandLine cl = new CommandLine(new TwinlightCommand());
         cl.setExitCodeExceptionMapper(t -> t instanceof WorkFailedException ? 1 : 2);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
@@ -55,6 +62,10 @@ public final class TwinlightCommand implements Runnable {
                 err.println("failed: " + ex.getMessage());
                 return 1;
             }
+            if (ex instanceof java.io.UncheckedIOException) {
+                err.println("failed: " + ex.getMessage());
+                return 1;
+            }
             err.println("internal error: " + ex + (wantTrace ? "" : " (run again with --debug for details)"));
             return 1;
         });
@@ -62,6 +73,10 @@ public final class TwinlightCommand implements Runnable {
     }
 
     public static void main(String[] args) {
-        System.exit(commandLine().execute(args));
+        CommandLine cl = commandLine();
+        if (java.util.Arrays.asList(args).contains("--debug")) {
+            FITS_LOG.setLevel(java.util.logging.Level.ALL);
+        }
+        System.exit(cl.execute(args));
     }
 }

@@ -77,6 +77,10 @@ final class TextTableReader {
             header = first;
             headerLine = dataLines.get(0);
             dataLines.remove(0);
+            if (dataLines.isEmpty()) {
+                throw BadInputException.at(file, "line " + (headerLine + 1), null, "a header row and no data rows "
+                        + "after it; expected rows of time, flux or magnitude and optional error");
+            }
         }
         int width = header != null ? header.size() : first.size();
         ColumnChoice columns;
