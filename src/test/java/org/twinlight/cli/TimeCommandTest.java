@@ -44,7 +44,7 @@ class TimeCommandTest {
 
     @Test
     void convertsUtcToTtOnStandardOutputWithoutAPosition() throws IOException {
-        // TT − UTC = 69.184 s after 2017 (REFERENCE-VALUES §4).
+        // TT − UTC = 69.184 s after 2017 (IAU: TT − TAI = 32.184 s; IERS leap-second table).
         Path in = file("times.txt", "# observer log\n2460000.5 12.1\n2460001.25 12.3\n");
         assertThat(run(in.toString(), "--from", "JD_UTC", "--to", "JD_TT")).isZero();
         List<String> lines = out.toString().lines().toList();

@@ -10,7 +10,7 @@ class DiscOverlapTest {
     @Test
     void uniformDiscMatchesTheTabulatedLensAreas() {
         // λᵉ of Mandel & Agol 2002, ApJ 580, L171, eq. 1, evaluated in the project's reference
-        // table (REFERENCE-VALUES.md §6: formula from memory, checked there against a 4000² grid)
+        // table (Mandel & Agol 2002, ApJ 580, L171, sect. 2; formula from memory)
         double[][] table = {
             {0.1, 0.5, 0.0100000},
             {0.1, 1.0, 0.00489387},

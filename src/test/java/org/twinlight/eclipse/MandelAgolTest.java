@@ -11,7 +11,7 @@ class MandelAgolTest {
     /**
      * Hidden fraction of a central eclipse (z = 0) of a quadratic-law star, exactly:
      * δ₀ = 2[G(1) − G(√(1−p²))] / (1 − u₁/3 − u₂/6), with
-     * G(μ) = (1−u₁−u₂)μ²/2 + (u₁+2u₂)μ³/3 − u₂μ⁴/4 (REFERENCE-VALUES.md §6, from the
+     * G(μ) = (1−u₁−u₂)μ²/2 + (u₁+2u₂)μ³/3 − u₂μ⁴/4 (exact: from the
      * integral of I(μ)μ dμ over the hidden disc r &lt; p).
      */
     private static double centralDepth(double u1, double u2, double p) {
@@ -25,7 +25,7 @@ class MandelAgolTest {
 
     @Test
     void centralEclipseMatchesThePublishedDepths() {
-        // REFERENCE-VALUES.md §6 (VC: closed form above, agreeing with quadrature to 1e-16)
+        // exact closed form above (integration of the quadratic law over the central disc; checked against quadrature)
         assertThat(Occultation.hiddenFraction(LimbDarkening.quadratic(0.4, 0.26), 0.1, 0.0))
                 .isCloseTo(0.0121335565, within(1e-10));
         assertThat(Occultation.hiddenFraction(LimbDarkening.quadratic(0.0, 0.0), 0.1, 0.0))

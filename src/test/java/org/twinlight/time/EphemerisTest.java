@@ -13,7 +13,7 @@ class EphemerisTest {
 
     @Test
     void meeusExample25aIsReproduced() {
-        // Meeus 1998, Ex. 25.a: 1992 Oct 13.0 TD = JDE 2448908.5 (REFERENCE-VALUES §3; the book rounds
+        // Meeus 1998, Ex. 25.a: 1992 Oct 13.0 TD = JDE 2448908.5 (the book rounds
         // intermediates, hence 2e-5° tolerances on the recomputed full-precision values).
         MeeusLowPrecisionSun sun = new MeeusLowPrecisionSun(2448908.5);
         assertThat(sun.t).isCloseTo(-0.072183436, offset(1e-9));
@@ -65,7 +65,7 @@ class EphemerisTest {
 
     @Test
     void keplerSolutionSatisfiesTheEquation() {
-        // Meeus 1998, Ex. 30.a/30.b: e = 0.1, M = 5° gives E = 5.554589254° (REFERENCE-VALUES §3).
+        // Meeus 1998, Ex. 30.a/30.b: e = 0.1, M = 5° gives E = 5.554589254°
         assertThat(Math.toDegrees(PlanetElements.solveKepler(Math.toRadians(5), 0.1)))
                 .isCloseTo(5.554589254, offset(1e-9));
     }

@@ -16,7 +16,7 @@ import org.junit.jupiter.api.Test;
  * Checks against the IAU SOFA routines as packaged by ERFA (pyerfa 2.0.0.1): 200 random UTC
  * instants in 1990–2035 and random directions on the sky, computed by
  * {@code make_erfa_reference.py} beside {@code erfa-reference.csv} (eraUtctai, eraTaitt, eraDtdb
- * geocentric, eraEpv00). Status VC: a general-purpose library's implementation of the standard.
+ * geocentric, eraEpv00). A general-purpose library's implementation of the IAU standard.
  */
 class ErfaReferenceTest {
 
@@ -75,7 +75,7 @@ class ErfaReferenceTest {
     @Test
     void tdbMinusTtAgreesWithFullSeriesWithinTenMicroseconds() {
         // Kaplan 2005 (USNO Circ. 179) eq. 2.6 vs the 787-term Fairhead & Bretagnon 1990 series
-        // in eraDtdb: at most 9.3 µs over 1900–2100 (REFERENCE-VALUES §4, VC).
+        // in eraDtdb: at most 9.3 µs over 1900–2100 (our comparison with ERFA eraDtdb).
         for (double[] r : rows) {
             double series = TdbMinusTt.seconds(tdbOf(r).centuriesSinceJ2000());
             assertThat(series).isCloseTo(r[5], org.assertj.core.data.Offset.offset(10e-6));

@@ -10,7 +10,7 @@ class SkyDirectionTest {
 
     @Test
     void rightAscensionInDegreesOrHours() {
-        // Meeus 1998, Ex. 25.a: 13h13m31.4s = 198.38083° (REFERENCE-VALUES §3).
+        // Meeus 1998, Ex. 25.a: 13h13m31.4s = 198.38083°
         assertThat(SkyDirection.parseRaDeg("13:13:31.4")).isCloseTo(198.38083, offset(1e-4));
         assertThat(SkyDirection.parseRaDeg("13 13 31.4")).isCloseTo(198.38083, offset(1e-4));
         assertThat(SkyDirection.parseRaDeg("13h13m31.4s")).isCloseTo(198.38083, offset(1e-4));
@@ -20,7 +20,7 @@ class SkyDirectionTest {
 
     @Test
     void declinationSignAppliesToTheWholeValue() {
-        // Meeus 1998, Ex. 25.a: −7°47′06″ = −7.78507° (REFERENCE-VALUES §3).
+        // Meeus 1998, Ex. 25.a: −7°47′06″ = −7.78507°
         assertThat(SkyDirection.parseDecDeg("-07:47:06")).isCloseTo(-7.78507, offset(1e-4));
         assertThat(SkyDirection.parseDecDeg("−7 47 06")).isCloseTo(-7.78507, offset(1e-4));
         assertThat(SkyDirection.parseDecDeg("-00:30:00")).isEqualTo(-0.5);

@@ -52,7 +52,7 @@ class TimeConverterTest {
 
     @Test
     void heliocentricCorrectionAgreesWithTheClassicalFormula() {
-        // Binnendijk's formula as quoted by Masi (vsnet-chat 1083; REFERENCE-VALUES §3):
+        // Binnendijk's formula as quoted by Masi (vsnet-chat 1083):
         // HC = −0.0057755 d [R cosθ cosα cosδ + R sinθ (sinε sinδ + cosε cosδ sinα)], with R and θ from
         // Meeus's low-precision Sun (ch. 25) referred to J2000, ε the J2000 obliquity. Expected to agree
         // to ~1 s; the Sun's 0.01° accuracy allows ~0.1 s, which is the tolerance used.
@@ -76,7 +76,7 @@ class TimeConverterTest {
 
     @Test
     void heliocentricCorrectionPeaksNearOneAuOfLightTimesCosBeta() {
-        // |HJD − JD| ≤ 1 au/c = 8.3 min (Eastman, Siverd & Gaudi 2010; REFERENCE-VALUES §5), scaled by the
+        // |HJD − JD| ≤ 1 au/c = 8.3 min (Eastman, Siverd & Gaudi 2010, PASP 122, 935), scaled by the
         // Earth–Sun distance 1 ± 0.0167 au (Meeus 1998 eq. 25.4, e = 0.0167) and by cos β for a target at
         // ecliptic latitude β.
         double eps = SolarSystemEphemeris.OBLIQUITY_J2000_RAD;
@@ -107,7 +107,7 @@ class TimeConverterTest {
     @Test
     void barycentricAndHeliocentricTimesDifferByAFewSeconds() {
         // BJD − HJD on one clock is (r☉ · n̂)/c: "of the order of 4/5 secs" (Masi, vsnet-chat 1083) and
-        // "up to ±4 s" (Eastman et al. 2010 pages; REFERENCE-VALUES §5). The Sun's barycentric distance
+        // "up to ±4 s" (Eastman, Siverd & Gaudi 2010, PASP 122, 935, and the authors' explanation pages). The Sun's barycentric distance
         // reaches about 0.0102 au (5.1 s) at most.
         Random random = new Random(3);
         double worst = 0;

@@ -9,7 +9,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.twinlight.BadInputException;
 
-/** UTC, TAI, TT and TDB; sources are REFERENCE-VALUES §4 unless said otherwise. */
+/** UTC, TAI, TT and TDB; sources are named beside each check. */
 class TimeStandardsTest {
 
     private static final TimeScale JD_TAI = TimeScale.parse("JD_TAI").orElseThrow();
@@ -18,9 +18,9 @@ class TimeStandardsTest {
 
     @ParameterizedTest(name = "{0}-{1}-{2}: TAI−UTC = {3} s")
     @CsvSource({
-        // ERFA eraDat regression values and pyerfa dat() (t_erfa_c.c; VC).
+        // ERFA eraDat regression values and pyerfa dat() (ERFA test file t_erfa_c.c).
         "2015, 9, 1, 36", "2017, 9, 1, 37", "1972, 1, 1, 10", "2016, 12, 31, 36", "2017, 1, 1, 37",
-        // IERS Bulletin C table as given in ERFA dat.c (REFERENCE-VALUES §4 table).
+        // IERS Bulletin C table as given in ERFA dat.c (IERS Bulletin C).
         "1972, 6, 30, 10", "1972, 7, 1, 11", "1985, 7, 1, 23", "1999, 1, 1, 32", "2005, 12, 31, 32",
         "2006, 1, 1, 33", "2012, 7, 1, 35", "2026, 12, 2, 37",
     })
@@ -42,7 +42,7 @@ class TimeStandardsTest {
 
     @Test
     void ttMinusUtcIs69point184SecondsSince2017() {
-        // TT − TAI = 32.184 s (IAU; ERFA TTMTAI) plus 37 leap seconds (REFERENCE-VALUES §4, §5).
+        // TT − TAI = 32.184 s (IAU; ERFA TTMTAI) plus 37 leap seconds
         for (double jd = 2457754.5; jd < 2465000; jd += 97.3) {
             JulianDate utc = JulianDate.of(jd, TimeScale.JD_UTC);
             assertThat(TimeStandards.convert(utc, TimeStandard.TT).secondsSince(utc)).isCloseTo(69.184, offset(1e-6));
@@ -77,15 +77,14 @@ class TimeStandardsTest {
 
     @Test
     void tdbMinusTtMatchesTheFullSeriesAtTheTestEpochs() {
-        // ERFA eraDtdb (Fairhead & Bretagnon 1990, 787 terms), geocentric, via pyerfa (REFERENCE-VALUES
-        // §4 "Test values", VC): −9.931e-5 s at JD 2451545.0 and +1.28387e-3 s at JD 2460000.5. Our
+        // ERFA eraDtdb (Fairhead & Bretagnon 1990, 787 terms), geocentric, via pyerfa: −9.931e-5 s at JD 2451545.0 and +1.28387e-3 s at JD 2460000.5. Our
         // 7-term series (Kaplan 2005, USNO Circ. 179, eq. 2.6) is within 9.3 µs of it over 1900–2100
-        // (REFERENCE-VALUES §4, VC), hence the 10 µs tolerance; the misses here are 3.5 and 6.0 µs.
+        // (our comparison with ERFA's full series), hence the 10 µs tolerance; the misses here are 3.5 and 6.0 µs.
         assertThat(tdbMinusTt(2451545.0)).isCloseTo(-9.931e-5, offset(10e-6));
         assertThat(tdbMinusTt(2460000.5)).isCloseTo(1.28387e-3, offset(10e-6));
         // ERFA regression eraDtdb(2448939.5, 0.123, 0.76543, 5.0123, 5525.242, 3190.0) =
         // −1.280368005936998991e-3 s (t_erfa_c.c), of which the geocentric part is −1.279984e-3 s
-        // (pyerfa with zero observer coordinates, VC).
+        // (pyerfa with zero observer coordinates).
         assertThat(tdbMinusTt(2448939.623)).isCloseTo(-1.2799844e-3, offset(10e-6));
     }
 

@@ -35,7 +35,7 @@ class OcAnalysisTest {
 
     /**
      * Deeg 2015 (arXiv:1503.05368, abstract): for N equally spaced timings of error σ_T the
-     * period error is σ_T·(12/(N³ − N))^½. Their example (REFERENCE-VALUES §7, recomputed):
+     * period error is σ_T·(12/(N³ − N))^½. Their example, recomputed:
      * σ_T = 30 s, N = 100 gives σ_P = 0.10393 s.
      */
     @Test
