@@ -26,7 +26,9 @@ import org.twinlight.BadInputException;
  */
 public record ModelFile(BinaryParameters common, Map<String, BandValues> bands) {
 
-    private static final ObjectMapper JSON = new ObjectMapper();
+    /** Duplicate keys are an error, not a silent "last one wins". */
+    private static final ObjectMapper JSON = new ObjectMapper(com.fasterxml.jackson.core.JsonFactory.builder()
+            .enable(com.fasterxml.jackson.core.StreamReadFeature.STRICT_DUPLICATE_DETECTION).build());
     private static final Set<String> TOP_KEYS = Set.of("period", "epoch", "radius1", "radius2", "inclination",
             "eccentricity", "omega", "surfaceBrightnessRatio", "thirdLight", "limbDarkening1", "limbDarkening2",
             "exposureTime", "supersample", "bands");
@@ -194,11 +196,21 @@ public record ModelFile(BinaryParameters common, Map<String, BandValues> bands) 
             }
             coeffs[i] = c.get(i).doubleValue();
         }
+        LimbDarkening ld;
         try {
-            return LimbDarkening.of(law, coeffs);
+            ld = LimbDarkening.of(law, coeffs);
         } catch (IllegalArgumentException e) {
             throw BadInputException.at(file, where, null, e.getMessage());
         }
+        for (int k = 0; k <= 100; k++) {
+            double mu = k / 100.0;
+            if (!(ld.intensity(mu) >= 0)) {
+                throw BadInputException.at(file, where, null, String.format(java.util.Locale.ROOT,
+                        "these coefficients give a negative intensity I(μ=%.2f) = %.3f; a stellar disc cannot emit "
+                                + "negative light", mu, ld.intensity(mu)));
+            }
+        }
+        return ld;
     }
 
     /** This model as a JSON object in the model-file layout. */

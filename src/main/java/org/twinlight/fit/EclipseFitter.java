@@ -56,6 +56,18 @@ public final class EclipseFitter {
         if (data.isEmpty()) {
             throw new IllegalArgumentException("no data to fit");
         }
+        if (settings.baseline() == Baseline.NONE) {
+            for (FitData d : data) {
+                double[] f = d.lightCurve().fluxes();
+                java.util.Arrays.sort(f);
+                double median = f[f.length / 2];
+                if (!(Math.abs(median - 1) < 0.5)) {
+                    throw new org.twinlight.BadInputException(d.lightCurve().source() + ": with --baseline none the "
+                            + "flux must be normalised to about 1 out of eclipse, but its median is " + median
+                            + "; use --baseline offset (the default) to fit the normalisation");
+                }
+            }
+        }
         List<String> bands = data.stream().map(FitData::band).distinct().toList();
         ParameterLayout layout = new ParameterLayout(start, bands, settings.free());
         Residuals residuals = new Residuals(layout, data, settings);
@@ -123,9 +135,11 @@ public final class EclipseFitter {
         SingularValueDecomposition svd = new SingularValueDecomposition(normal);
         double[] sv = svd.getSingularValues();
         if (sv[sv.length - 1] <= sv[0] * 1e-14) {
-            throw new WorkFailedException("the free parameters are degenerate: the data cannot tell "
-                    + String.join(", ", layout.internalNames())
-                    + " apart. Fix one of them (e.g. a limb-darkening coefficient or third light)");
+            throw new WorkFailedException("the free parameters " + String.join(", ", settings.free())
+                    + " cannot all be determined from these data (in the solver's coordinates: "
+                    + String.join(", ", layout.internalNames()) + "). Check that the starting epoch and period put "
+                    + "the eclipses on the data, then free fewer parameters (limb darkening and third light are "
+                    + "the usual culprits)");
         }
         RealMatrix cov = svd.getSolver().getInverse().scalarMultiply(reducedChi2);
 
