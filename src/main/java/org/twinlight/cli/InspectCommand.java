@@ -114,7 +114,8 @@ public final class InspectCommand implements Callable<Integer> {
             sb.append(row("Scatter", fmt("%.3g", s.scatterFlux()) + relative(s.scatterFlux(), s.medianFlux())
                     + ", robust point-to-point noise"));
             sb.append(row("Outliers", s.outlierCount() + " more than " + fmt("%.0f", LightCurveSummary.OUTLIER_SIGMAS)
-                    + " sigma from the running median (counted, not removed)"));
+                    + " sigma from the running median (counted, not removed; points on the steep branches of"
+                    + " eclipses can show here too)"));
         }
         return sb.toString();
     }

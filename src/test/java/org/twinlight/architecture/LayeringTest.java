@@ -35,6 +35,20 @@ class LayeringTest {
     }
 
     @Test
+    void coreDoesNotPrintToTheTerminal() {
+        noClasses().that().resideInAnyPackage(CORE)
+                .should().accessField(System.class, "out").orShould().accessField(System.class, "err")
+                .check(classes);
+    }
+
+    @Test
+    void photometryReadersDoNotUseJson() {
+        noClasses().that().resideInAPackage("org.twinlight.photometry..")
+                .should().dependOnClassesThat().resideInAPackage("com.fasterxml.jackson..")
+                .check(classes);
+    }
+
+    @Test
     void reportDoesNotUseCommandLine() {
         noClasses().that().resideInAPackage("org.twinlight.report..")
                 .should().dependOnClassesThat().resideInAnyPackage("picocli..", "org.twinlight.cli..")
