@@ -125,10 +125,11 @@ public final class FitCommand implements Callable<Integer> {
         FitFiles.writeResiduals(out.resolve("residuals.csv"), r, scale);
         FitFiles.writeJson(out.resolve("model.json"), r.model().toJson());
         List<String> bandList = data.stream().map(FitData::band).distinct().toList();
-        String title = "twinlight fit of " + files.get(0).getFileName();
-        FitPlot.write(r, bandList.get(0), out.resolve("fit.png"), title);
+        String title = "Fit of " + files.get(0).getFileName();
+        FitPlot.write(r, bandList.get(0), out.resolve("fit.png"), title, scale.label());
         for (int b = 1; b < bandList.size(); b++) {
-            FitPlot.write(r, bandList.get(b), out.resolve("fit-" + safe(bandList.get(b)) + ".png"), title);
+            FitPlot.write(r, bandList.get(b), out.resolve("fit-" + safe(bandList.get(b)) + ".png"), title,
+                    scale.label());
         }
         console().print(FitFiles.summary(r, scale));
         console().println("caution: " + FitFiles.CAUTION);

@@ -48,9 +48,9 @@ public final class FitFiles {
         ObjectNode root = JSON.createObjectNode();
         boolean multiBand = r.curves().stream().map(FittedCurve::band).distinct().count() > 1;
         ObjectNode params = root.putObject("parameters");
-        putEstimates(params, r.parameters(), multiBand);
+        putEstimates(params, r.parameters(), multiBand, true);
         ObjectNode derived = root.putObject("derived");
-        putEstimates(derived, r.derived(), multiBand);
+        putEstimates(derived, r.derived(), multiBand, false);
         ObjectNode stats = root.putObject("statistics");
         stats.put("n", r.n());
         stats.put("chi2", r.chi2());
@@ -100,7 +100,7 @@ public final class FitFiles {
         return root;
     }
 
-    private static void putEstimates(ObjectNode target, List<Estimate> list, boolean multiBand) {
+    private static void putEstimates(ObjectNode target, List<Estimate> list, boolean multiBand, boolean withFree) {
         for (Estimate e : list) {
             ObjectNode holder = target;
             if (multiBand && e.band() != null) {
@@ -110,7 +110,9 @@ public final class FitFiles {
             ObjectNode o = holder.putObject(e.name());
             o.put("value", e.value());
             o.put("uncertainty", e.uncertainty());
-            o.put("free", e.free());
+            if (withFree) {
+                o.put("free", e.free());
+            }
         }
     }
 

@@ -32,7 +32,7 @@ public final class FitPlot {
     }
 
     /** Writes the plot of band {@code band} of a fit to {@code target}. */
-    public static void write(FitResult r, String band, Path target, String title) {
+    public static void write(FitResult r, String band, Path target, String title, String timeScale) {
         BinaryParameters p = r.model().forBand(band);
         BinaryModel model = new BinaryModel(p);
         List<double[]> pts = new ArrayList<>();
@@ -59,8 +59,11 @@ public final class FitPlot {
         double[] primaryWindow = window(model, p, 0.0);
         double[] secondaryWindow = window(model, p, secondary > 0.75 ? secondary - 1 : secondary);
 
-        XYChart full = chart(WIDTH, 430, title + (band.isEmpty() ? "" : " — band " + band), "orbital phase",
-                "normalised flux");
+        XYChart full = chart(WIDTH, 430, String.format(java.util.Locale.ROOT, "%s%s: P = %.7f d, T0 = %.6f (%s)",
+                title, band.isEmpty() ? "" : ", band " + band, p.periodDays(), p.epochDays(), timeScale),
+                "orbital phase", "normalised flux");
+        full.getStyler().setLegendPosition(org.knowm.xchart.style.Styler.LegendPosition.InsideS);
+        full.getStyler().setLegendLayout(org.knowm.xchart.style.Styler.LegendLayout.Horizontal);
         addData(full, "data", ph, fl);
         addModel(full, "model", mph, mfl);
         full.getStyler().setXAxisMin(PHASE_START).setXAxisMax(PHASE_START + 1);
