@@ -60,7 +60,16 @@ public final class EphemerisJson {
         root.put("fitted", c.oc() != null);
         root.put("timeScale", c.search().timeScale().label());
         root.put("method", c.method().label());
-        root.put("secondaryPhase", c.secondaryPhase());
+        // where secondaries were looked for, and where the linear ephemeris puts them (offset fitted)
+        root.put("secondaryPhaseAssumed", c.secondaryPhase());
+        if (c.oc() != null) {
+            c.oc().linear().parameter("secondaryOffset").ifPresent(off -> {
+                double p = c.oc().linear().parameter("period").orElseThrow().value();
+                ObjectNode m = root.putObject("secondaryPhaseMeasured");
+                m.put("value", 0.5 + off.value() / p); // cycles of secondaries are n + 0.5
+                m.put("uncertainty", off.uncertainty() / p);
+            });
+        }
         ObjectNode given = root.putObject("givenEphemeris");
         given.put("epoch", c.given().epochDays());
         given.put("period", c.given().periodDays());
