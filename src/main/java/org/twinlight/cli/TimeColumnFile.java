@@ -34,7 +34,8 @@ final class TimeColumnFile {
 
     /**
      * Reads the column chosen by {@code choice} (a header name or a 1-based number; null for the
-     * first column holding a number in the first data row).
+     * column the header names as the time, else the first column holding a number in the first
+     * data row).
      */
     static Column read(Path file, String choice) {
         List<String> lines;
@@ -88,6 +89,12 @@ final class TimeColumnFile {
     }
 
     private static int chooseColumn(Path file, int lineNumber, String choice, String[] header, String[] firstRow) {
+        if (choice == null && header != null) {
+            int named = org.twinlight.photometry.LightCurveReader.timeColumnIndex(java.util.Arrays.asList(header));
+            if (named >= 0) {
+                return named;
+            }
+        }
         if (choice == null) {
             for (int c = 0; c < firstRow.length; c++) {
                 if (DECIMAL.matcher(firstRow[c]).matches()) {

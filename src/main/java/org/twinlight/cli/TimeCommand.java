@@ -58,7 +58,7 @@ public final class TimeCommand implements Callable<Integer> {
     Path out;
 
     @Option(names = "--column", paramLabel = "NAME|N",
-            description = "Column holding the times, by header name or 1-based number (default: the first numeric column).")
+            description = "Column holding the times, by header name or 1-based number (default: the column the header names as the time, e.g. time, hjd, bjd_tdb; else the first numeric column).")
     String column;
 
     @Spec

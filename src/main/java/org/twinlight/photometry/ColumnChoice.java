@@ -102,6 +102,15 @@ record ColumnChoice(int time, int value, int error, int band, int quality) {
         return String.valueOf(index + 1);
     }
 
+    /**
+     * Index of the column a header names as the time (time, bjd, hjd, jd, mjd, btjd, ... or a full
+     * scale label such as BJD_TDB), or −1 when none does.
+     */
+    static int timeColumn(List<String> header) {
+        List<String> norm = header.stream().map(ColumnChoice::normalise).toList();
+        return find(norm, TIME_NAMES, -1);
+    }
+
     /** Lower-case, separators folded into single underscores, no leading or trailing ones. */
     static String normalise(String name) {
         if (name == null) {

@@ -69,4 +69,12 @@ public final class LightCurveReader {
         }
         return TextTableReader.read(file, o);
     }
+
+    /**
+     * Index (0-based) of the column that a header row names as the time, by the same names the
+     * readers detect (time, bjd, hjd, jd, mjd, btjd, ..., or a scale label such as BJD_TDB), or −1.
+     */
+    public static int timeColumnIndex(java.util.List<String> header) {
+        return ColumnChoice.timeColumn(header);
+    }
 }

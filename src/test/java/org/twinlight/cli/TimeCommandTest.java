@@ -147,4 +147,12 @@ class TimeCommandTest {
         assertThat(run(empty.toString(), "--from", "JD_UTC", "--to", "JD_TT")).isEqualTo(2);
         assertThat(err.toString()).contains("no times found");
     }
+
+    @Test
+    void timeColumnIsFoundByItsHeaderNameWhereverItStands() throws IOException {
+        // regression: a header "flux,hjd_utc" once made the first numeric column (flux) be converted
+        Path in = file("named.csv", "flux,hjd_utc\n1.0,2455197.5\n0.9,2455197.6\n");
+        assertThat(run(in.toString(), "--from", "HJD_UTC", "--to", "HJD_TDB", "--ra", "120", "--dec", "30")).isZero();
+        assertThat(out.toString()).contains("2455197.5,").doesNotContain("\n1.0,");
+    }
 }
