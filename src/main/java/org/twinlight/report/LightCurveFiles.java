@@ -101,7 +101,10 @@ public final class LightCurveFiles {
                 h.addValue("TUNIT1", "d", "");
                 h.addValue("CREATOR", "twinlight simulate", "");
                 Fits f = new Fits();
-                f.addHDU(Fits.makeHDU((Object) null));
+                nom.tam.fits.BasicHDU<?> primary = Fits.makeHDU((Object) null);
+                // a fixed comment instead of the library's time stamp: the same input gives the same file
+                primary.getHeader().addValue("SIMPLE", true, "conforms to the FITS standard");
+                f.addHDU(primary);
                 f.addHDU(hdu);
                 FitsOutputStream fo = new FitsOutputStream(out);
                 f.write(fo);

@@ -63,6 +63,21 @@ class FitAndSimulateCommandTest {
     }
 
     @Test
+    void sameSeedGivesTheSameFileByteForByte() throws Exception {
+        Path model = Files.writeString(dir.resolve("model.json"), MODEL);
+        for (String ext : new String[] {"csv", "fits"}) {
+            Path a = dir.resolve("a." + ext);
+            Path b = dir.resolve("b." + ext);
+            for (Path p : new Path[] {a, b}) {
+                assertThat(run("simulate", "--model", model.toString(), "--start", "2460300", "--end", "2460301",
+                        "--cadence", "10", "--noise-ppm", "700", "--seed", "9", "--time-scale", "BJD_TDB", "--out",
+                        p.toString()).code()).isZero();
+            }
+            assertThat(Files.readAllBytes(a)).as(ext).isEqualTo(Files.readAllBytes(b));
+        }
+    }
+
+    @Test
     void unknownModelKeyIsExitTwoNamingTheKey() throws Exception {
         Path model = Files.writeString(dir.resolve("bad.json"), MODEL.replace("\"period\"", "\"periodd\""));
         Run r = run("simulate", "--model", model.toString(), "--start", "0", "--end", "1", "--cadence", "10",
