@@ -21,8 +21,8 @@ import org.twinlight.time.TimeScale;
  * Reads photometry from delimited text.
  *
  * <ul>
- *   <li>Delimiter: tab, semicolon or comma when every one of the first data lines splits into
- *       two or more fields on it (tried in that order), else white space.</li>
+ *   <li>Delimiter: tab, semicolon or comma when the first line and at least 80 % of the first 50
+ *       lines split into two or more fields on it (tried in that order), else white space.</li>
  *   <li>{@code #} starts a comment, on its own line or after the data. Blank lines are skipped.
  *       A comment {@code # time scale: LABEL} before the data declares the time scale (unless
  *       {@code --time-scale} is given).</li>
@@ -210,11 +210,17 @@ final class TextTableReader {
     static char detectDelimiter(List<String> lines, List<Integer> dataLines) {
         int n = Math.min(dataLines.size(), DELIMITER_SAMPLE_LINES);
         for (char d : new char[] {'\t', ';', ','}) {
-            boolean all = true;
-            for (int k = 0; k < n && all; k++) {
-                all = split(stripComment(lines.get(dataLines.get(k))), d).size() >= 2;
+            // the first line (perhaps the header) must split, and most of the others: a short or broken
+            // row must not turn a comma file into a white-space one (it is reported as a missing field)
+            int splitting = 0;
+            for (int k = 0; k < n; k++) {
+                if (split(stripComment(lines.get(dataLines.get(k))), d).size() >= 2) {
+                    splitting++;
+                } else if (k == 0) {
+                    splitting = Integer.MIN_VALUE;
+                }
             }
-            if (all) {
+            if (splitting >= Math.max(1, Math.ceil(0.8 * n))) {
                 return d;
             }
         }

@@ -54,6 +54,16 @@ class TextTableReaderTest {
     }
 
     @Test
+    void aShortRowInACommaFileIsAMissingFieldNotAnotherDelimiter() throws IOException {
+        // regression: one row without its flux once made the whole file read as white-space separated
+        Path p = file("short.csv", "time,flux\n2460000.1,1.0\n2460000.2\n2460000.3,0.9\n2460000.4,0.95\n"
+                + "2460000.5,0.97\n");
+        LightCurve lc = LightCurveReader.read(p, ReadOptions.defaults());
+        assertThat(lc.size()).isEqualTo(4);
+        assertThat(lc.rejectedRows()).containsOnlyKeys("missing field");
+    }
+
+    @Test
     void timeScaleCommentDeclaresTheScaleUnlessTheOptionDoes() throws IOException {
         Path p = file("own.csv", "# time scale: HJD_UTC\n# made by a test\ntime,flux\n2460000.1,1.0\n2460000.2,0.9\n");
         assertThat(LightCurveReader.read(p, ReadOptions.defaults()).timeScale()).isEqualTo(TimeScale.HJD_UTC);
