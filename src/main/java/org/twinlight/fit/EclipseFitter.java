@@ -572,18 +572,9 @@ public final class EclipseFitter {
             return x;
         }
 
-        /** σ of white noise from successive differences: 1.4826·median|Δy|/√2 (robust; MAD scale for a normal). */
+        /** σ of white noise from successive differences (1 when it cannot be estimated). */
         private static double scatter(double[] y) {
-            if (y.length < 3) {
-                return 1;
-            }
-            double[] d = new double[y.length - 1];
-            for (int i = 1; i < y.length; i++) {
-                d[i - 1] = Math.abs(y[i] - y[i - 1]);
-            }
-            Arrays.sort(d);
-            double med = d[d.length / 2];
-            double s = 1.4826 * med / Math.sqrt(2);
+            double s = org.twinlight.photometry.RobustStatistics.pointToPointSigma(y);
             return s > 0 ? s : 1;
         }
     }

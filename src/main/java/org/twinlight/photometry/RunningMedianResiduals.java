@@ -26,7 +26,7 @@ final class RunningMedianResiduals {
     /** Neighbours on each side of a point in the running median. */
     static final int HALF_WINDOW_POINTS = 5;
     /** Consistency factor between the MAD and a Gaussian σ, 1/Φ⁻¹(3/4). */
-    static final double MAD_TO_SIGMA = 1.4826;
+    static final double MAD_TO_SIGMA = RobustStatistics.MAD_TO_SIGMA;
 
     private final double[] residuals;
     private final double sigma;
@@ -91,10 +91,6 @@ final class RunningMedianResiduals {
 
     /** Median of the first {@code m} values (sorted in place); the mean of the middle two for even m. */
     static double median(double[] values, int m) {
-        if (m == 0) {
-            return Double.NaN;
-        }
-        Arrays.sort(values, 0, m);
-        return m % 2 == 1 ? values[m / 2] : 0.5 * (values[m / 2 - 1] + values[m / 2]);
+        return RobustStatistics.medianInPlace(values, m);
     }
 }

@@ -195,7 +195,7 @@ public final class PeriodogramPlot {
         chart.getStyler().setMarkerSize(2);
         chart.getStyler().setLegendPosition(org.knowm.xchart.style.Styler.LegendPosition.InsideSE);
         int n = lc.size();
-        double median = median(lc.fluxes());
+        double median = org.twinlight.photometry.RobustStatistics.median(lc.fluxes());
         int stride = Math.max(1, (int) Math.ceil((double) n / MAX_FOLDED_POINTS));
         int m = (n + stride - 1) / stride;
         double[] x = new double[m];
@@ -250,10 +250,4 @@ public final class PeriodogramPlot {
         return String.format(Locale.ROOT, "%." + decimals + "f ± %." + decimals + "f", value, error);
     }
 
-    private static double median(double[] v) {
-        double[] s = v.clone();
-        Arrays.sort(s);
-        int n = s.length;
-        return n % 2 == 1 ? s[n / 2] : 0.5 * (s[n / 2 - 1] + s[n / 2]);
-    }
 }

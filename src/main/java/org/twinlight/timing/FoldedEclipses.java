@@ -1,6 +1,7 @@
 package org.twinlight.timing;
 
 import java.util.Arrays;
+import org.twinlight.photometry.RobustStatistics;
 
 /**
  * A light curve folded at one period, with simple box measurements of its dips: depth against the
@@ -74,19 +75,12 @@ final class FoldedEclipses {
     }
 
     static double robustScatter(double[] x) {
-        double[] s = x.clone();
-        Arrays.sort(s);
-        double med = median(s);
-        for (int i = 0; i < s.length; i++) {
-            s[i] = Math.abs(x[i] - med);
-        }
-        Arrays.sort(s);
-        return 1.4826 * median(s);
+        return RobustStatistics.madSigma(x);
     }
 
+    /** Median of values already sorted (they are not sorted again). */
     static double median(double[] sorted) {
-        int n = sorted.length;
-        return n % 2 == 1 ? sorted[n / 2] : 0.5 * (sorted[n / 2 - 1] + sorted[n / 2]);
+        return RobustStatistics.medianInPlace(sorted, sorted.length);
     }
 
     /** Distance between two phases on the circle, in [0, 0.5]. */

@@ -1,6 +1,7 @@
 package org.twinlight.timing;
 
 import java.util.Arrays;
+import org.twinlight.photometry.RobustStatistics;
 
 /**
  * Where and how wide an eclipse is in the light curve folded on a trial ephemeris: the folded
@@ -92,24 +93,12 @@ record MinimumProfileEstimate(double centreShiftDays, double durationDays, doubl
 
     /** Robust point-to-point scatter of a series: 1.4826·MAD of successive differences / √2. */
     static double pointScatter(double[] f) {
-        if (f.length < 3) {
-            return 0;
-        }
-        double[] d = new double[f.length - 1];
-        for (int i = 1; i < f.length; i++) {
-            d[i - 1] = f[i] - f[i - 1];
-        }
-        double med = median(d.clone());
-        for (int i = 0; i < d.length; i++) {
-            d[i] = Math.abs(d[i] - med);
-        }
-        return 1.4826 * median(d) / Math.sqrt(2);
+        return RobustStatistics.pointToPointSigma(f);
     }
 
     /** Median; sorts its argument. */
+    /** Median of the values, which are sorted in place. */
     static double median(double[] v) {
-        Arrays.sort(v);
-        int m = v.length / 2;
-        return v.length % 2 == 1 ? v[m] : 0.5 * (v[m - 1] + v[m]);
+        return RobustStatistics.medianInPlace(v, v.length);
     }
 }
