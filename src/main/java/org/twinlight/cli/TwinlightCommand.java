@@ -11,7 +11,7 @@ import picocli.CommandLine.Option;
 @Command(name = "twinlight",
         mixinStandardHelpOptions = true,
         versionProvider = VersionInfo.class,
-        description = "Eclipsing-binary light curves: inspect, period, times of minimum, model fit, dimensions.",
+        description = "Eclipsing-binary light curves: inspect, period, times of minimum and O−C, model fit, time scales.",
         subcommands = {
             CommandLine.HelpCommand.class,
             SimulateCommand.class,
