@@ -202,6 +202,25 @@ public final class LimbDarkening {
         return v;
     }
 
+    /**
+     * The μ (on a grid of step 0.01 from the limb to the centre) where the intensity is lowest; a
+     * physical profile has {@code intensity(lowestIntensityMu()) ≥ 0}.
+     */
+    public double lowestIntensityMu() {
+        double best = 0;
+        for (int k = 1; k <= 100; k++) {
+            if (intensity(k / 100.0) < intensity(best)) {
+                best = k / 100.0;
+            }
+        }
+        return best;
+    }
+
+    /** True when the intensity is nowhere negative on the disc (checked on a grid of step 0.01 in μ). */
+    public boolean isNonNegative() {
+        return intensity(lowestIntensityMu()) >= 0;
+    }
+
     /** ∫₀¹ I(μ) μ dμ: the flux of the whole disc divided by 2π (disc radius 1). */
     public double totalFlux() {
         return totalFlux;

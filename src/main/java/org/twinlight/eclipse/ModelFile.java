@@ -202,13 +202,11 @@ public record ModelFile(BinaryParameters common, Map<String, BandValues> bands) 
         } catch (IllegalArgumentException e) {
             throw BadInputException.at(file, where, null, e.getMessage());
         }
-        for (int k = 0; k <= 100; k++) {
-            double mu = k / 100.0;
-            if (!(ld.intensity(mu) >= 0)) {
-                throw BadInputException.at(file, where, null, String.format(java.util.Locale.ROOT,
-                        "these coefficients give a negative intensity I(μ=%.2f) = %.3f; a stellar disc cannot emit "
-                                + "negative light", mu, ld.intensity(mu)));
-            }
+        if (!ld.isNonNegative()) {
+            double mu = ld.lowestIntensityMu();
+            throw BadInputException.at(file, where, null, String.format(java.util.Locale.ROOT,
+                    "these coefficients give a negative intensity I(μ=%.2f) = %.3f; a stellar disc cannot emit "
+                            + "negative light", mu, ld.intensity(mu)));
         }
         return ld;
     }

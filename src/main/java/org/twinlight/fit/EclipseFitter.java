@@ -214,6 +214,16 @@ public final class EclipseFitter {
                     + "the model misses something (spots, proximity effects, a wrong limb-darkening law); "
                     + "uncertainties were scaled by its square root", reducedChi2));
         }
+        for (int b = 0; b < layout.bands().size(); b++) {
+            BinaryParameters bp = bestModel.forBand(layout.bands().get(b));
+            String where = layout.bands().size() > 1 ? " in band " + layout.bands().get(b) : "";
+            for (int star = 1; star <= 2; star++) {
+                if (!(star == 1 ? bp.limbDarkening1() : bp.limbDarkening2()).isNonNegative()) {
+                    notes.add("the fitted limb darkening of star " + star + where + " gives a negative intensity near "
+                            + "the limb: the data do not constrain it; fix its coefficients or choose another law");
+                }
+            }
+        }
         for (int a = 0; a < corr.length; a++) {
             for (int b = a + 1; b < corr.length; b++) {
                 if (Math.abs(corr[a][b]) > 0.98) {

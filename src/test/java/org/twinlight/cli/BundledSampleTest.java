@@ -1,0 +1,41 @@
+package org.twinlight.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * The README's quick start, run on the bundled sample: the fit must succeed and recover the
+ * parameters the sample was simulated with (sample-curves/brindle-pair.model.json) within 4σ of its
+ * own uncertainties (common practice, no source, for a single realisation).
+ */
+class BundledSampleTest {
+    @TempDir
+    Path dir;
+
+    @Test
+    void quickStartFitRecoversTheSimulatedSystem() throws Exception {
+        String readme = Files.readString(Path.of("README.md"));
+        String free = "epoch,radius1,radius2,inclination,surfaceBrightnessRatio,eccentricity,omega";
+        assertThat(readme).as("the README quick start must be the command tested here").contains(
+                "fit sample-curves/brindle-pair-space.fits --model sample-curves/brindle-pair.start.json --free " + free);
+        ConsoleCapture c = new ConsoleCapture();
+        int code = c.run("fit", "sample-curves/brindle-pair-space.fits", "--model", "sample-curves/brindle-pair.start.json",
+                "--free", free, "--out", dir.toString());
+        assertThat(code).as(c.err.toString()).isZero();
+        ObjectMapper json = new ObjectMapper();
+        JsonNode truth = json.readTree(Path.of("sample-curves", "brindle-pair.model.json").toFile());
+        JsonNode fit = json.readTree(dir.resolve("fit.json").toFile()).get("parameters");
+        for (String name : free.split(",")) {
+            double value = fit.at("/" + name + "/value").asDouble();
+            double sigma = fit.at("/" + name + "/uncertainty").asDouble();
+            assertThat(Math.abs(value - truth.get(name).asDouble())).as(name).isLessThanOrEqualTo(4 * sigma);
+        }
+        assertThat(json.readTree(dir.resolve("fit.json").toFile()).get("timeScale").asText()).isEqualTo("BJD_TDB");
+    }
+}
