@@ -60,6 +60,17 @@ class LimbDarkeningTest {
     }
 
     @Test
+    void negativeIntensityIsFoundWhereItOccurs() {
+        // quadratic law at the limb: I(0) = 1 − a − b (the contract's form)
+        LimbDarkening bad = LimbDarkening.quadratic(1.5, 0.5);
+        assertThat(bad.isNonNegative()).isFalse();
+        assertThat(bad.lowestIntensityMu()).isEqualTo(0.0);
+        for (LimbDarkening ld : LAWS) {
+            assertThat(ld.isNonNegative()).as(ld.toString()).isTrue();
+        }
+    }
+
+    @Test
     void wrongCoefficientCountIsRefusedWithTheLawsNames() {
         assertThatThrownBy(() -> LimbDarkening.of(LimbDarkeningLaw.QUADRATIC, 0.3))
                 .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("quadratic").hasMessageContaining("2");
