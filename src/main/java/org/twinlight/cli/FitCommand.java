@@ -14,7 +14,6 @@ import org.twinlight.fit.FitData;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
 import org.twinlight.photometry.LightCurve;
-import org.twinlight.photometry.LightCurveReader;
 import org.twinlight.report.FitFiles;
 import org.twinlight.report.FitPlot;
 import org.twinlight.report.InputDigest;
@@ -102,7 +101,7 @@ public final class FitCommand implements Callable<Integer> {
         Path scaleFrom = null;
         for (int i = 0; i < files.size(); i++) {
             Path f = files.get(i);
-            LightCurve lc = LightCurveReader.read(f, photometry.toReadOptions());
+            LightCurve lc = photometry.read(f, console());
             String band = !bands.isEmpty() ? bands.get(i) : lc.band() != null ? lc.band() : baseName(f);
             if (scale == null) {
                 scale = lc.timeScale();
@@ -120,8 +119,13 @@ public final class FitCommand implements Callable<Integer> {
 
         FitResult r = EclipseFitter.fit(start, data, settings);
 
-        FitFiles.writeJson(out.resolve("fit.json"),
-                FitFiles.fitJson(r, settings, scale, inputs, VersionInfo.version()));
+        com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
+                VersionInfo.version());
+        com.fasterxml.jackson.databind.node.ArrayNode notes = (com.fasterxml.jackson.databind.node.ArrayNode) doc.get("notes");
+        for (FitData d : data) {
+            d.lightCurve().notes().forEach(n -> notes.add(d.lightCurve().source() + ": " + n));
+        }
+        FitFiles.writeJson(out.resolve("fit.json"), doc);
         FitFiles.writeResiduals(out.resolve("residuals.csv"), r, scale);
         FitFiles.writeJson(out.resolve("model.json"), r.model().toJson());
         List<String> bandList = data.stream().map(FitData::band).distinct().toList();

@@ -14,7 +14,6 @@ import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 import org.twinlight.BadInputException;
 import org.twinlight.photometry.LightCurve;
-import org.twinlight.photometry.LightCurveReader;
 import org.twinlight.photometry.LightCurveSummary;
 import org.twinlight.photometry.Magnitudes;
 import org.twinlight.photometry.ValueKind;
@@ -61,7 +60,7 @@ public final class InspectCommand implements Callable<Integer> {
             throw new BadInputException("option --segment-gap: expected a positive number of days, got "
                     + segmentGapDays);
         }
-        Map<String, LightCurve> bands = LightCurveReader.readBands(file, photometry.toReadOptions());
+        Map<String, LightCurve> bands = photometry.readBands(file, spec.commandLine().getOut());
         List<LightCurveSummary> summaries = new ArrayList<>();
         for (LightCurve lc : bands.values()) {
             summaries.add(LightCurveSummary.of(lc, segmentGapDays));

@@ -11,7 +11,6 @@ import java.util.concurrent.Callable;
 import org.twinlight.BadInputException;
 import org.twinlight.WorkFailedException;
 import org.twinlight.photometry.LightCurve;
-import org.twinlight.photometry.LightCurveReader;
 import org.twinlight.report.EphemerisJson;
 import org.twinlight.report.InputDigest;
 import org.twinlight.report.MinimaCsv;
@@ -135,7 +134,7 @@ public final class MinimaCommand implements Callable<Integer> {
 
         OutputTargets.checkDirectory(out, List.of("minima.csv", "ephemeris.json", "o-c.png", "minima-submission.txt"),
                 List.of(file));
-        LightCurve lc = oneBand(LightCurveReader.readBands(file, photometry.toReadOptions()));
+        LightCurve lc = oneBand(photometry.readBands(file, o));
         String filterName = filter != null ? filter : lc.band();
         MinimumSearchResult search = MinimumFinder.find(lc, given, settings);
         List<MinimumTime> timings = search.minima(chosen);

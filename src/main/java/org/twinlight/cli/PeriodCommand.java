@@ -7,7 +7,6 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.twinlight.BadInputException;
 import org.twinlight.photometry.LightCurve;
-import org.twinlight.photometry.LightCurveReader;
 import org.twinlight.report.PeriodResultJson;
 import org.twinlight.report.PeriodogramPlot;
 import org.twinlight.timing.PeriodCandidate;
@@ -71,7 +70,7 @@ public final class PeriodCommand implements Callable<Integer> {
             throw new BadInputException(file + ": no such file");
         }
         OutputTargets.checkDirectory(out, java.util.List.of("period.json", "periodogram.png"), java.util.List.of(file));
-        LightCurve lc = LightCurveReader.read(file, photometry.toReadOptions());
+        LightCurve lc = photometry.read(file, spec.commandLine().getOut());
         PeriodSearchSettings settings = PeriodSearchSettings.defaults().withMinPeriodDays(minPeriod)
                 .withMaxPeriodDays(maxPeriod).withParallel(!singleThread);
         PeriodSearchResult r = PeriodSearch.search(lc, settings);

@@ -61,4 +61,21 @@ public final class PhotometryOptions {
         return new ReadOptions(timeColumn, valueColumn, errorColumn, bandColumn, qualityColumn, kind, scale,
                 timeOffsetDays, hdu);
     }
+
+    /** Reads one light curve with these options, printing the reader's remarks to {@code console}. */
+    public org.twinlight.photometry.LightCurve read(java.nio.file.Path file, java.io.PrintWriter console) {
+        org.twinlight.photometry.LightCurve lc = org.twinlight.photometry.LightCurveReader.read(file, toReadOptions());
+        lc.notes().forEach(n -> console.println("note: " + file + ": " + n));
+        return lc;
+    }
+
+    /** Reads every band of a file with these options, printing the reader's remarks once. */
+    public java.util.Map<String, org.twinlight.photometry.LightCurve> readBands(java.nio.file.Path file,
+            java.io.PrintWriter console) {
+        java.util.Map<String, org.twinlight.photometry.LightCurve> bands =
+                org.twinlight.photometry.LightCurveReader.readBands(file, toReadOptions());
+        bands.values().stream().flatMap(lc -> lc.notes().stream()).distinct()
+                .forEach(n -> console.println("note: " + file + ": " + n));
+        return bands;
+    }
 }

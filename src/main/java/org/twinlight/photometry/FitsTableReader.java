@@ -188,7 +188,10 @@ final class FitsTableReader {
         }
         double offset = options.timeOffsetDays() == null ? 0.0 : options.timeOffsetDays();
         String fixedBand = bandKeyword(hdu.getHeader(), primary);
-        return rows.build(file.getFileName().toString(), fixedBand, scale, toDays, offset);
+        List<String> notes = time.declared()
+                ? LightCurveReader.overrideNotes(time.scale(), options.timeScale()) : List.of();
+        return LightCurveReader.withNotes(rows.build(file.getFileName().toString(), fixedBand, scale, toDays, offset),
+                notes);
     }
 
     /**

@@ -22,6 +22,7 @@ public final class LightCurve {
     private final double[] flux;
     private final double[] fluxErrors;
     private final Map<String, Integer> rejectedRows;
+    private final java.util.List<String> notes;
 
     /**
      * @param source where the data came from (file name), for messages and reports
@@ -35,6 +36,16 @@ public final class LightCurve {
      */
     public LightCurve(String source, String band, TimeScale timeScale, ValueKind originalKind,
             double[] timesDays, double[] flux, double[] fluxErrors, Map<String, Integer> rejectedRows) {
+        this(source, band, timeScale, originalKind, timesDays, flux, fluxErrors, rejectedRows, java.util.List.of());
+    }
+
+    /**
+     * As above, with remarks of the reader for the user (e.g. a declared time scale overridden by an
+     * option).
+     */
+    public LightCurve(String source, String band, TimeScale timeScale, ValueKind originalKind,
+            double[] timesDays, double[] flux, double[] fluxErrors, Map<String, Integer> rejectedRows,
+            java.util.List<String> notes) {
         this.source = Objects.requireNonNull(source, "source");
         this.band = band;
         this.timeScale = Objects.requireNonNull(timeScale, "timeScale");
@@ -54,6 +65,7 @@ public final class LightCurve {
         this.fluxErrors = fluxErrors == null ? null : fluxErrors.clone();
         this.rejectedRows = Collections.unmodifiableMap(new LinkedHashMap<>(
                 rejectedRows == null ? Map.of() : rejectedRows));
+        this.notes = java.util.List.copyOf(notes == null ? java.util.List.of() : notes);
     }
 
     public String source() {
@@ -112,6 +124,18 @@ public final class LightCurve {
         return rejectedRows;
     }
 
+    /** Remarks of the reader for the user; empty when there are none. */
+    public java.util.List<String> notes() {
+        return notes;
+    }
+
+    /** The same light curve with these remarks added. */
+    public LightCurve withNotes(java.util.List<String> more) {
+        java.util.List<String> all = new java.util.ArrayList<>(notes);
+        all.addAll(more);
+        return new LightCurve(source, band, timeScale, originalKind, timesDays, flux, fluxErrors, rejectedRows, all);
+    }
+
     /** Total number of rows read but not used. */
     public int rejectedCount() {
         return rejectedRows.values().stream().mapToInt(Integer::intValue).sum();
@@ -129,14 +153,15 @@ public final class LightCurve {
 
     /** The same light curve with another band label. */
     public LightCurve withBand(String newBand) {
-        return new LightCurve(source, newBand, timeScale, originalKind, timesDays, flux, fluxErrors, rejectedRows);
+        return new LightCurve(source, newBand, timeScale, originalKind, timesDays, flux, fluxErrors, rejectedRows,
+                notes);
     }
 
     /** The points whose index is in [from, to). */
     public LightCurve slice(int from, int to) {
         return new LightCurve(source, band, timeScale, originalKind,
                 Arrays.copyOfRange(timesDays, from, to), Arrays.copyOfRange(flux, from, to),
-                fluxErrors == null ? null : Arrays.copyOfRange(fluxErrors, from, to), rejectedRows);
+                fluxErrors == null ? null : Arrays.copyOfRange(fluxErrors, from, to), rejectedRows, notes);
     }
 
     @Override

@@ -77,4 +77,25 @@ public final class LightCurveReader {
     public static int timeColumnIndex(java.util.List<String> header) {
         return ColumnChoice.timeColumn(header);
     }
+
+    /** The remark made when an option overrides the time scale a file declares itself; none when they agree. */
+    static java.util.List<String> overrideNotes(org.twinlight.time.TimeScale declared,
+            org.twinlight.time.TimeScale option) {
+        if (option == null || declared == null || !declared.isKnown() || declared.equals(option)) {
+            return java.util.List.of();
+        }
+        return java.util.List.of("the file declares its times as " + declared.label() + ", but --time-scale "
+                + option.label() + " was given and is used");
+    }
+
+    /** Every light curve of a map with the remarks added. */
+    static java.util.Map<String, LightCurve> withNotes(java.util.Map<String, LightCurve> curves,
+            java.util.List<String> notes) {
+        if (notes.isEmpty()) {
+            return curves;
+        }
+        java.util.Map<String, LightCurve> out = new java.util.LinkedHashMap<>();
+        curves.forEach((band, lc) -> out.put(band, lc.withNotes(notes)));
+        return out;
+    }
 }

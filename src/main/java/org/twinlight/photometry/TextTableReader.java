@@ -99,13 +99,12 @@ final class TextTableReader {
         ValueKind kind = options.valueKind() != null ? options.valueKind()
                 : header != null && ColumnChoice.normalise(valueName).contains("mag") ? ValueKind.MAGNITUDE
                         : ValueKind.FLUX;
-        TimeScale scale = options.timeScale();
-        if (scale == null) {
-            scale = declaredTimeScale(file, lines, dataLines.get(0));
+        TimeScale declared = declaredTimeScale(file, lines, dataLines.get(0));
+        if (declared == null) {
+            declared = header == null ? TimeScale.UNKNOWN : TimeScale.parse(timeName).orElse(TimeScale.UNKNOWN);
         }
-        if (scale == null) {
-            scale = header == null ? TimeScale.UNKNOWN : TimeScale.parse(timeName).orElse(TimeScale.UNKNOWN);
-        }
+        TimeScale scale = options.timeScale() != null ? options.timeScale() : declared;
+        List<String> notes = LightCurveReader.overrideNotes(declared, options.timeScale());
         String bandName = ColumnChoice.label(header, columns.band());
         RowCollector rows = new RowCollector(file, RowPlace.TEXT_LINE, timeName, bandName, kind, columns.error() >= 0);
         int need = columns.widest();
@@ -114,7 +113,8 @@ final class TextTableReader {
             readRow(rows, index + 1, f, need, columns, decimalComma);
         }
         double offset = options.timeOffsetDays() == null ? 0.0 : options.timeOffsetDays();
-        return rows.build(file.getFileName().toString(), null, scale, DoubleUnaryOperator.identity(), offset);
+        return LightCurveReader.withNotes(rows.build(file.getFileName().toString(), null, scale,
+                DoubleUnaryOperator.identity(), offset), notes);
     }
 
     private static final java.util.regex.Pattern TIME_SCALE_COMMENT =

@@ -67,8 +67,11 @@ class TextTableReaderTest {
     void timeScaleCommentDeclaresTheScaleUnlessTheOptionDoes() throws IOException {
         Path p = file("own.csv", "# time scale: HJD_UTC\n# made by a test\ntime,flux\n2460000.1,1.0\n2460000.2,0.9\n");
         assertThat(LightCurveReader.read(p, ReadOptions.defaults()).timeScale()).isEqualTo(TimeScale.HJD_UTC);
-        assertThat(LightCurveReader.read(p, ReadOptions.defaults().withTimeScale(TimeScale.BJD_TDB)).timeScale())
-                .isEqualTo(TimeScale.BJD_TDB);
+        LightCurve overridden = LightCurveReader.read(p, ReadOptions.defaults().withTimeScale(TimeScale.BJD_TDB));
+        assertThat(overridden.timeScale()).isEqualTo(TimeScale.BJD_TDB);
+        assertThat(overridden.notes()).singleElement().asString().contains("declares").contains("HJD_UTC")
+                .contains("BJD_TDB");
+        assertThat(LightCurveReader.read(p, ReadOptions.defaults()).notes()).isEmpty();
         Path bad = file("bad.csv", "# time scale: HJD_XYZ\ntime,flux\n2460000.1,1.0\n");
         assertThatThrownBy(() -> LightCurveReader.read(bad, ReadOptions.defaults()))
                 .isInstanceOf(BadInputException.class).hasMessageContaining("bad.csv").hasMessageContaining("line 1")
