@@ -113,8 +113,8 @@ public final class InspectCommand implements Callable<Integer> {
             sb.append(row("Scatter", fmt("%.3g", s.scatterFlux()) + relative(s.scatterFlux(), s.medianFlux())
                     + ", robust point-to-point noise"));
             sb.append(row("Outliers", s.outlierCount() + " more than " + fmt("%.0f", LightCurveSummary.OUTLIER_SIGMAS)
-                    + " sigma from the running median (counted, not removed; points on the steep branches of"
-                    + " eclipses can show here too)"));
+                    + " sigma from the running median and from lines through the neighbours on either side"
+                    + " (counted, not removed)"));
         }
         return sb.toString();
     }

@@ -22,7 +22,8 @@ import org.twinlight.time.TimeScale;
  *       scaled for the median's own noise; scatter σ = 1.4826 × MAD of the scaled residuals, an
  *       estimate of the point-to-point noise; outliers are the points more than
  *       {@value #OUTLIER_SIGMAS} σ from the running median (a Hampel filter: Hampel 1974, J. Am.
- *       Stat. Assoc. 69, 383; Rousseeuw &amp; Croux 1993, J. Am. Stat. Assoc. 88, 1273). Details in
+ *       Stat. Assoc. 69, 383; Rousseeuw &amp; Croux 1993, J. Am. Stat. Assoc. 88, 1273) and, on the
+ *       same side, from straight lines through their neighbours on the left and on the right. Details in
  *       {@code RunningMedianResiduals}. Nothing is removed.</li>
  * </ul>
  *
