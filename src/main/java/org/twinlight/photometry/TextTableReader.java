@@ -113,8 +113,30 @@ final class TextTableReader {
             readRow(rows, index + 1, f, need, columns, decimalComma);
         }
         double offset = options.timeOffsetDays() == null ? 0.0 : options.timeOffsetDays();
-        return LightCurveReader.withNotes(rows.build(file.getFileName().toString(), null, scale,
-                DoubleUnaryOperator.identity(), offset), notes);
+        Map<String, LightCurve> curves = rows.build(file.getFileName().toString(), null, scale,
+                DoubleUnaryOperator.identity(), offset);
+        if (options.valueKind() == null && kind == ValueKind.FLUX) {
+            notes = new ArrayList<>(notes);
+            notes.addAll(magnitudeLookalike(curves));
+        }
+        return LightCurveReader.withNotes(curves, notes);
+    }
+
+    /**
+     * A remark when values read as flux look like magnitudes: all between 3 and 30 with a spread of
+     * under 2 (typical magnitudes of variable stars; common practice, no source).
+     */
+    private static List<String> magnitudeLookalike(Map<String, LightCurve> curves) {
+        for (LightCurve lc : curves.values()) {
+            double[] f = lc.fluxes();
+            double lo = Arrays.stream(f).min().orElse(0);
+            double hi = Arrays.stream(f).max().orElse(0);
+            if (lo >= 3 && hi <= 30 && hi - lo < 2) {
+                return List.of(String.format(Locale.ROOT, "the values (%.3f to %.3f) were read as flux but "
+                        + "look like magnitudes; if they are, give --values magnitude", lo, hi));
+            }
+        }
+        return List.of();
     }
 
     private static final java.util.regex.Pattern TIME_SCALE_COMMENT =

@@ -54,6 +54,15 @@ class TextTableReaderTest {
     }
 
     @Test
+    void magnitudesWithoutAHeaderAreReadAsFluxWithARemark() throws IOException {
+        Path p = file("nohdr.dat", "2460000.1 11.80\n2460000.2 11.95\n2460000.3 11.81\n");
+        LightCurve lc = LightCurveReader.read(p, ReadOptions.defaults());
+        assertThat(lc.originalKind()).isEqualTo(ValueKind.FLUX);
+        assertThat(lc.notes()).singleElement().asString().contains("look like magnitudes").contains("--values magnitude");
+        assertThat(LightCurveReader.read(p, ReadOptions.defaults().withValueKind(ValueKind.MAGNITUDE)).notes()).isEmpty();
+    }
+
+    @Test
     void aShortRowInACommaFileIsAMissingFieldNotAnotherDelimiter() throws IOException {
         // regression: one row without its flux once made the whole file read as white-space separated
         Path p = file("short.csv", "time,flux\n2460000.1,1.0\n2460000.2\n2460000.3,0.9\n2460000.4,0.95\n"
