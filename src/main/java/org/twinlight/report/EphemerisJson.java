@@ -14,6 +14,7 @@ import org.twinlight.timing.MinimumMethod;
 import org.twinlight.timing.MinimumSearchResult;
 import org.twinlight.timing.MinimumSkip;
 import org.twinlight.timing.MinimumType;
+import org.twinlight.timing.OcAnalysis;
 import org.twinlight.timing.OcResult;
 import org.twinlight.timing.OcSeriesDifference;
 
@@ -89,9 +90,17 @@ public final class EphemerisJson {
             root.set("linear", model(oc.linear()));
             if (oc.quadratic() != null) {
                 root.set("quadratic", model(oc.quadratic()));
+            } else {
+                root.putNull("quadratic");
+                root.put("quadraticNotFitted", "too few timings: a quadratic ephemeris needs more timings than "
+                        + "its free parameters and minima from at least three cycles, found " + oc.points().size());
             }
             if (oc.lightTime() != null) {
                 root.set("lightTime", model(oc.lightTime()));
+            } else {
+                root.putNull("lightTime");
+                root.put("lightTimeNotFitted", "a light-time orbit is fitted from " + OcAnalysis.MIN_TIMINGS_FOR_LIGHT_TIME
+                        + " timings on (or was not asked for); found " + oc.points().size());
             }
             ObjectNode bic = root.putObject("bic");
             for (EphemerisFit f : oc.fits()) {
