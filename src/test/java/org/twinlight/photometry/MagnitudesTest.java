@@ -8,6 +8,11 @@ import org.apache.commons.math3.analysis.differentiation.FiniteDifferencesDiffer
 import org.apache.commons.math3.analysis.differentiation.UnivariateDifferentiableFunction;
 import org.junit.jupiter.api.Test;
 
+/**
+ * Magnitudes and flux. Sources: the magnitude scale of Pogson (1856), MNRAS 17, 12; error
+ * propagation to first order (Bevington &amp; Robinson 2003, Data Reduction and Error Analysis,
+ * eq. 3.14), checked against Commons Math's numerical derivative.
+ */
 class MagnitudesTest {
 
     @Test
