@@ -72,6 +72,7 @@ public final class PeriodogramPlot {
                 .xAxisTitle("period (days, logarithmic)").yAxisTitle("signal residue SR").build();
         PlotFiles.style(chart);
         chart.getStyler().setXAxisLogarithmic(true);
+        chart.getStyler().setXAxisLogarithmicDecadeOnly(false); // label 2, 3, 5 ... between the decades too
         chart.getStyler().setMarkerSize(9);
         chart.getStyler().setLegendPosition(org.knowm.xchart.style.Styler.LegendPosition.InsideNW);
         chart.getStyler().setXAxisDecimalPattern("0.###");
