@@ -78,6 +78,11 @@ public final class BenchCommand implements Callable<Integer> {
         console().printf(Locale.ROOT, "full model:             %.3f ms per evaluation (median of %d), %.2f x positions%n",
                 modelMs, repeats, modelMs / posMs);
 
+        BinaryModel eccentric = new BinaryModel(SYSTEM.withEccentricityOmega(0.2, 70));
+        double eccMs = medianMillis(() -> eccentric.flux(t, out), repeats);
+        console().printf(Locale.ROOT, "full model, e = 0.2:    %.3f ms per evaluation (median of %d), Kepler's equation solved "
+                + "near the conjunctions only%n", eccMs, repeats);
+
         LightCurve lc = SyntheticLightCurve.observe(model, t, 300, 7, "bench", "bench", TimeScale.BJD_TDB);
         ModelFile start = ModelFile.of(SYSTEM.withRadii(SYSTEM.radius1() * 1.05, SYSTEM.radius2() * 0.95)
                 .withInclinationDeg(SYSTEM.inclinationDeg() - 0.5).withSurfaceBrightnessRatio(0.75)

@@ -36,7 +36,7 @@ public final class BinaryModel {
         this.r1 = p.radius1();
         this.r2 = p.radius2();
         this.contactDistance = r1 + r2;
-        this.contactPhaseHalfWidth = Orbit.Positions.conjunctionHalfWidth(contactDistance);
+        this.contactPhaseHalfWidth = positions.conjunctionHalfWidth(contactDistance);
         double lightRatio = p.lightRatio();
         this.weight1 = 1 / (1 + lightRatio);
         this.weight2 = lightRatio / (1 + lightRatio);

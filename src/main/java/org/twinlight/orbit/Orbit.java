@@ -59,6 +59,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
         private final double sqrtOnePlusE;
         private final double sqrtOneMinusE;
         private final double oneMinusE2;
+        private final double secondaryPhase;
 
         private Positions(Orbit o) {
             periodDays = o.periodDays;
@@ -74,6 +75,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
             sqrtOnePlusE = Math.sqrt(1 + e);
             sqrtOneMinusE = Math.sqrt(1 - e);
             oneMinusE2 = (1 - e) * (1 + e);
+            secondaryPhase = o.secondaryPhase();
         }
 
         /**
@@ -110,25 +112,38 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
 
         /**
          * A quick test, without trigonometry, that the projected separation at this time is at
-         * least {@code separation} (units of a). Exact for circular orbits, where d² = sin²φ +
-         * cos²i cos²φ ≥ sin²φ, so d ≥ s whenever the phase angle φ is farther than arcsin s from
-         * both conjunctions; always false for eccentric orbits.
-         *
-         * @param phaseHalfWidth arcsin(s)/(2π), from {@link #conjunctionHalfWidth(double)}
+         * least the separation s that {@code phaseHalfWidth} was made for, by
+         * {@link #conjunctionHalfWidth(double)}: true when the phase lies farther than that from
+         * both conjunctions. Conservative: it may say false for stars that are apart, never true
+         * for stars that are closer.
          */
         public boolean surelyApart(double timeDays, double phaseHalfWidth) {
-            if (e != 0) {
-                return false;
-            }
             double f = (timeDays - epochDays) / periodDays;
             f -= Math.floor(f);
-            double fromConjunction = Math.abs(f - Math.rint(2 * f) * 0.5);
-            return fromConjunction > phaseHalfWidth;
+            return circularDistance(f, 0) > phaseHalfWidth && circularDistance(f, secondaryPhase) > phaseHalfWidth;
         }
 
-        /** arcsin(s)/(2π) with a small margin, for {@link #surelyApart}; 0.25 (no shortcut) when s ≥ 1. */
-        public static double conjunctionHalfWidth(double separation) {
-            return separation >= 1 ? 0.25 : Math.asin(separation) / (2 * Math.PI) * (1 + 1e-9) + 1e-12;
+        /**
+         * Half-width in phase, around each conjunction, outside which the projected separation is
+         * at least s (units of a); 0.5 (no shortcut) when no such window exists.
+         *
+         * <p>d = r√(cos²(ν+ω) + cos²i sin²(ν+ω)) ≥ r|sin(ν − ν_c)| ≥ (1−e) sin Δν beyond Δν of the true
+         * anomaly ν_c of a conjunction, so Δν = arcsin(s/(1−e)) suffices; and since dM/dν =
+         * (1−e²)^{3/2}/(1+e cos ν)² ≤ (1+e)^{3/2}/(1−e)^{1/2}, a mean-anomaly distance of Δν times
+         * that bound guarantees it (for a circular orbit simply arcsin s).
+         */
+        public double conjunctionHalfWidth(double separation) {
+            double sinDnu = separation / (1 - e);
+            if (sinDnu >= 1) {
+                return 0.5;
+            }
+            double dMean = Math.asin(sinDnu) * Math.pow(1 + e, 1.5) / Math.sqrt(1 - e);
+            return Math.min(0.5, dMean / (2 * Math.PI) * (1 + 1e-9) + 1e-12);
+        }
+
+        private static double circularDistance(double a, double b) {
+            double d = Math.abs(a - b);
+            return d > 0.5 ? 1 - d : d;
         }
 
         /** Orbital phase of a time, 0 at primary conjunction, in [0, 1). */
