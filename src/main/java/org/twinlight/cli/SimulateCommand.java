@@ -131,6 +131,10 @@ public final class SimulateCommand implements Callable<Integer> {
             if (referenceMagnitude != null) {
                 throw new BadInputException("option --magnitudes: FITS output holds flux; write CSV for magnitudes");
             }
+            if (!scale.isKnown()) {
+                throw new BadInputException("option --time-scale: a FITS table declares the time scale of its times "
+                        + "(TIMESYS, TIMEREF); give one, e.g. --time-scale BJD_TDB, or write CSV");
+            }
             double ref = Math.floor(times[0] / 1000.0) * 1000.0;
             LightCurveFiles.writeFits(lc, out, ref, objectName);
         } else {

@@ -42,6 +42,11 @@ public record BinaryParameters(double periodDays, double epochDays, double radiu
         require(exposureTimeDays >= 0 && Double.isFinite(exposureTimeDays), "exposureTime", exposureTimeDays,
                 "days ≥ 0");
         require(supersample >= 1, "supersample", supersample, "an integer ≥ 1");
+        if (radius1 + radius2 >= 1 - eccentricity) {
+            throw new IllegalArgumentException(String.format(java.util.Locale.ROOT, "radius1 + radius2 = %.4g must be "
+                    + "less than 1 − eccentricity = %.4g: the two spheres would touch or overlap%s", radius1 + radius2,
+                    1 - eccentricity, eccentricity > 0 ? " at periastron" : ""));
+        }
     }
 
     private static void require(boolean ok, String name, double value, String expected) {

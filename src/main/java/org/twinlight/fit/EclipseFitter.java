@@ -104,6 +104,12 @@ public final class EclipseFitter {
                     + "starting model closer to the data");
         }
         double[] best = optimum.getPoint().toArray();
+        if (residuals.eclipsedPoints(layout.toExternal(best)) == 0) {
+            throw new WorkFailedException("the fit ended with a model that has no eclipse at any data point (inclination "
+                    + String.format(java.util.Locale.ROOT, "%.1f°", layout.toExternal(best)[ParameterLayout.INCLINATION])
+                    + "): the data show no eclipse the model can follow. Check that the file holds eclipses "
+                    + "(inspect, period) and that period and epoch put them where the model expects");
+        }
         return summarise(layout, residuals, settings, start, best, steps, optimum.getIterations(),
                 optimum.getEvaluations());
     }
@@ -206,6 +212,13 @@ public final class EclipseFitter {
         double bic = chi2 + freeCount * Math.log(m);
 
         List<String> notes = new ArrayList<>(layout.adjustments());
+        for (Estimate e : params) {
+            boolean geometry = e.name().equals("radius1") || e.name().equals("radius2");
+            if (geometry && e.free() && e.uncertainty() > 0.5 * e.value()) {
+                notes.add(String.format(java.util.Locale.ROOT, "%s is barely constrained (%.3g ± %.3g): treat the "
+                        + "geometry as undetermined", e.name(), e.value(), e.uncertainty()));
+            }
+        }
         if (residuals.errorsEstimated()) {
             notes.add("some data had no errors: they were estimated from the point-to-point scatter");
         }

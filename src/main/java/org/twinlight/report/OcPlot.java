@@ -56,7 +56,7 @@ public final class OcPlot {
         double maxE = points.stream().mapToDouble(OcPoint::cycle).max().orElse(1);
         if (result != null) {
             addCurve(chart, result.linear(), MinimumType.PRIMARY, minE, maxE, "linear ephemeris", Color.GRAY, 1.2f);
-            if (significantSecondaryOffset(result.linear())) {
+            if (result.linear().parameter("secondaryOffset").isPresent()) {
                 addCurve(chart, result.linear(), MinimumType.SECONDARY, minE, maxE,
                         "linear ephemeris, secondary minima (fitted offset)", PlotFiles.SECOND.brighter(), 1.2f);
             }

@@ -78,6 +78,16 @@ class FitAndSimulateCommandTest {
     }
 
     @Test
+    void fitsOutputNeedsADeclaredTimeScale() throws Exception {
+        // a FITS table without TIMESYS would read back as UTC by the standard's default
+        Path model = Files.writeString(dir.resolve("model.json"), MODEL);
+        Run r = run("simulate", "--model", model.toString(), "--start", "2460300", "--end", "2460301", "--cadence", "10",
+                "--out", dir.resolve("x.fits").toString());
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("--time-scale");
+    }
+
+    @Test
     void unknownModelKeyIsExitTwoNamingTheKey() throws Exception {
         Path model = Files.writeString(dir.resolve("bad.json"), MODEL.replace("\"period\"", "\"periodd\""));
         Run r = run("simulate", "--model", model.toString(), "--start", "0", "--end", "1", "--cadence", "10",

@@ -66,4 +66,13 @@ class BinaryModelTest {
             assertThat(smeared.flux(t)).as("t=%s", t).isCloseTo(mean, within(2e-6));
         }
     }
+
+    @Test
+    void spheresThatWouldTouchAreRefused() {
+        // two detached spheres need r₁ + r₂ < separation at periastron, a(1 − e) (geometry)
+        org.assertj.core.api.Assertions.assertThatThrownBy(() -> edgeOn(0.6, 0.45, 0.5, 0))
+                .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("overlap");
+        org.assertj.core.api.Assertions.assertThatThrownBy(() -> edgeOn(0.2, 0.15, 0.5, 0).withEccentricityOmega(0.7, 30))
+                .hasMessageContaining("periastron");
+    }
 }

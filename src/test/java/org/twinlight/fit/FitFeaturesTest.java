@@ -127,4 +127,12 @@ class FitFeaturesTest {
                 .withFree(new LinkedHashSet<>(List.of("limbDarkening1.alpha")))))
                 .isInstanceOf(BadInputException.class).hasMessageContaining("limbDarkening1.a");
     }
+
+    @Test
+    void dataWithoutEclipsesDoNotGiveASuccessfulFit() {
+        // regression: a face-on system (no eclipses) once "fitted" with radii of 0.98 ± 0.68
+        LightCurve lc = observe(BASE.withInclinationDeg(0), 2460500, 2460504, 3, 2000, 21, "V");
+        assertThatThrownBy(() -> EclipseFitter.fit(ModelFile.of(BASE), List.of(new FitData(lc, "V")),
+                FitSettings.defaults())).isInstanceOf(org.twinlight.WorkFailedException.class);
+    }
 }
