@@ -111,7 +111,14 @@ public final class FitCommand implements Callable<Integer> {
                         + " has " + scale.label() + "; convert them to one time scale first (the time command)");
             }
             data.add(new FitData(lc, band));
-            inputs.add(new FitFiles.InputRecord(f.toString(), InputDigest.sha256(f), band, lc.size()));
+            String digest = InputDigest.sha256(f);
+            for (FitFiles.InputRecord earlier : inputs) {
+                if (earlier.sha256().equals(digest)) {
+                    console().println("note: " + f + " has the same content as " + earlier.file()
+                            + ": the same points count twice and the uncertainties come out too small");
+                }
+            }
+            inputs.add(new FitFiles.InputRecord(f.toString(), digest, band, lc.size()));
             if (lc.rejectedCount() > 0) {
                 console().printf(Locale.ROOT, "%s: %d row(s) not used: %s%n", f, lc.rejectedCount(), lc.rejectedRows());
             }

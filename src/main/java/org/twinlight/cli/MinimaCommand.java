@@ -278,8 +278,10 @@ public final class MinimaCommand implements Callable<Integer> {
         EphemerisFit lin = oc.linear();
         EphemerisParameter e0 = lin.parameter("epoch").orElseThrow();
         EphemerisParameter p = lin.parameter("period").orElseThrow();
-        o.printf(Locale.ROOT, "linear ephemeris (%s timings): T0 = %.6f ± %.6f, P = %.9f ± %.9f d, χ²/ν = %.2f%n",
-                chosen.label(), e0.value(), e0.uncertainty(), p.value(), p.uncertainty(), lin.reducedChi2());
+        o.printf(Locale.ROOT, "linear ephemeris (%s timings): T0 = %.6f ± %.6f, P = %.9f ± %.9f d, %s%n",
+                chosen.label(), e0.value(), e0.uncertainty(), p.value(), p.uncertainty(),
+                Double.isFinite(lin.reducedChi2()) ? String.format(Locale.ROOT, "χ²/ν = %.2f", lin.reducedChi2())
+                        : "no degrees of freedom left (errors from the timings alone)");
         lin.parameter("secondaryOffset").ifPresent(s -> o.printf(Locale.ROOT,
                 "secondary displaced from phase 0.5 by %.2f ± %.2f min%n", s.value() * 1440, s.uncertainty() * 1440));
         if (oc.quadratic() != null) {
