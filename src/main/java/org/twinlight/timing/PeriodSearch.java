@@ -58,6 +58,8 @@ public final class PeriodSearch {
     public static final double ODD_EVEN_SIGMA = 3.0;
     /** Distinct runners-up listed. */
     public static final int RUNNERS_UP = 5;
+    /** Reduced χ² of the eclipse timings above which they do not follow one period (common practice, no source). */
+    public static final double CYCLE_COUNT_CHI2 = 9.0;
     /** Shortest default trial period, days. */
     public static final double DEFAULT_MIN_PERIOD_DAYS = 0.2;
 
@@ -163,6 +165,7 @@ public final class PeriodSearch {
         double epochError = res.primary().width() * period / 2;
         String uncertaintyMethod = "half-width of the periodogram peak, P²·q/(2T) (no timing possible)";
         double width = res.primary().width();
+        double timingReducedChi2 = Double.NaN;
         if (significant) {
             PeriodRefinement pr = new PeriodRefinement(t, x, fold1.scatter(), cadence);
             for (int pass = 0; pass < 2; pass++) {
@@ -178,6 +181,7 @@ public final class PeriodSearch {
                 epoch = eph.epochDays();
                 periodError = eph.periodErrorDays();
                 epochError = eph.epochErrorDays();
+                timingReducedChi2 = eph.reducedChiSquare();
                 uncertaintyMethod = String.format(java.util.Locale.ROOT,
                         "weighted linear fit of %d primary-eclipse timings (trapezoid template, Fisher-information"
                                 + " errors%s)", eph.timings(),
@@ -216,6 +220,24 @@ public final class PeriodSearch {
         List<PeriodCandidate> candidates = candidates(period, peaks, power, grid, bls, pdm, binDays,
                 2 * settings.longestDuration() / baseline, level, spread, minP, maxP);
         boolean pdmAgrees = pdmAgrees(candidates);
+
+        // Across a gap much longer than the data on either side, the cycle count can be wrong by one or
+        // more: the timings then disagree with one period, or PDM prefers another. Say so, and let the
+        // uncertainty be at least the spacing of the aliases, P²/gap (one cycle more or less).
+        double[] gap = longestGap(t);
+        boolean timingsDisagree = timingReducedChi2 > CYCLE_COUNT_CHI2;
+        if (significant && gap[0] > 2 * Math.max(gap[1], gap[2]) && (timingsDisagree || !pdmAgrees)) {
+            double aliasSpacing = period * period / gap[0];
+            periodError = Math.max(periodError, aliasSpacing);
+            uncertaintyMethod += String.format(java.util.Locale.ROOT, "; raised to the alias spacing P²/gap = %.3g d",
+                    aliasSpacing);
+            note += String.format(java.util.Locale.ROOT, ". CAUTION: the data have a %.1f-d gap, much longer than "
+                    + "the data on either side, and %s: the number of cycles across the gap may be wrong. Periods "
+                    + "P = gap/N for neighbouring N fit about as well; check them with other data", gap[0],
+                    timingsDisagree ? String.format(java.util.Locale.ROOT,
+                            "the eclipse timings do not follow one period (χ²ν = %.1f)", timingReducedChi2)
+                            : "phase dispersion minimisation does not single out this period");
+        }
 
         PeriodSearchResult.SearchSummary summary = new PeriodSearchResult.SearchSummary(n, baseline, cadence, minP,
                 maxP, grid.size(), Arrays.stream(settings.durationFractions()).boxed().toList(), err != null);
@@ -360,5 +382,16 @@ public final class PeriodSearch {
             }
         }
         return agrees;
+    }
+
+    /** {longest gap, span of the data before it, span after it}, days. */
+    static double[] longestGap(double[] t) {
+        int at = 1;
+        for (int i = 2; i < t.length; i++) {
+            if (t[i] - t[i - 1] > t[at] - t[at - 1]) {
+                at = i;
+            }
+        }
+        return new double[] {t[at] - t[at - 1], t[at - 1] - t[0], t[t.length - 1] - t[at]};
     }
 }

@@ -234,4 +234,28 @@ class PeriodSearchTest {
             assertThat(r.periodDays()).as("seed %s", seed).isCloseTo(0.8731542, within(4 * r.periodUncertaintyDays()));
         }
     }
+
+    @Test
+    void aLongGapNeverGivesAConfidentWrongPeriod() {
+        // regression: two short seasons far apart once gave a period thousands of σ from the truth
+        // with no caveat. Either the period is right within 3σ, or the result says the cycle count
+        // across the gap may be wrong.
+        double truth = 0.8731542;
+        org.twinlight.eclipse.BinaryParameters p = new org.twinlight.eclipse.BinaryParameters(truth, 2460571.41238,
+                0.252, 0.198, 84.6, 0, 90, 0.815, 0, org.twinlight.eclipse.LimbDarkening.quadratic(0.52, 0.21),
+                org.twinlight.eclipse.LimbDarkening.quadratic(0.58, 0.19), 0, 1);
+        double[] t = org.twinlight.eclipse.SyntheticLightCurve.regularTimes(2460570.3, 2460574.7, 1.5,
+                java.util.List.of(), new double[] {0.30, 0.68});
+        for (int i = 0; i < t.length; i++) {
+            if (t[i] > 2460572.0) {
+                t[i] += 343 * truth;
+            }
+        }
+        LightCurve lc = org.twinlight.eclipse.SyntheticLightCurve.observe(new org.twinlight.eclipse.BinaryModel(p), t,
+                3500, 8, "seasons", null, TimeScale.HJD_UTC);
+        PeriodSearchResult r = PeriodSearch.search(lc, PeriodSearchSettings.defaults().withMaxPeriodDays(2.0));
+        boolean right = Math.abs(r.periodDays() - truth) <= 3 * r.periodUncertaintyDays();
+        assertThat(right || r.significanceNote().contains("CAUTION")).as("%s ± %s: %s", r.periodDays(),
+                r.periodUncertaintyDays(), r.significanceNote()).isTrue();
+    }
 }
