@@ -65,7 +65,7 @@ public final class PeriodogramPlot {
     static XYChart periodogramChart(PeriodSearchResult result, String source) {
         Periodogram pg = result.periodogram();
         XYChart chart = new XYChartBuilder().width(WIDTH).height(TOP_HEIGHT)
-                .title(String.format(Locale.ROOT, "BLS periodogram of %s: P = %s d, SDE %.1f%s", source,
+                .title(String.format(Locale.ROOT, "BLS periodogram of %s: P = %s d, highest peak SDE %.1f%s", source,
                         withError(result.periodDays(), result.periodUncertaintyDays()), result.sde(),
                         !result.significant() ? " (NOT significant)"
                                 : result.halfPeriod().ambiguous() ? " (P or P/2: ambiguous)" : ""))

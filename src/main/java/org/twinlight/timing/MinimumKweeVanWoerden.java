@@ -129,7 +129,7 @@ final class MinimumKweeVanWoerden {
             double c = coeff[2];
             if (!(a > 0)) {
                 if (trialStep >= maxStep) {
-                    return Result.failed("the reflection sum has no minimum (flat or noisy eclipse)");
+                    return Result.failed("no symmetric minimum near the predicted time (a flat or noisy eclipse, or the eclipse is elsewhere: check --secondary-phase against the phase the period command measures)");
                 }
                 trialStep = Math.min(2 * trialStep, maxStep);
                 continue;
