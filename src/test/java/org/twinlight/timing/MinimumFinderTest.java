@@ -159,7 +159,7 @@ class MinimumFinderTest {
         assertThat(r.minima()).allMatch(m -> m.type() == MinimumType.PRIMARY);
         assertThat(r.skipped()).filteredOn(s -> s.type() == MinimumType.SECONDARY).isNotEmpty()
                 .allMatch(s -> s.reason().matches(
-                        ".*(no significant dip|not seen|not found|has no minimum|no well-defined minimum).*"));
+                        ".*(no significant dip|not seen|not found|no symmetric minimum|no well-defined minimum).*"));
     }
 
     @Test
