@@ -5,22 +5,13 @@ import static org.assertj.core.api.Assertions.assertThat;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
 import org.junit.jupiter.api.Test;
-import org.junit.jupiter.api.io.TempDir;
 import org.twinlight.photometry.FitsFixture;
 
-class InspectCommandTest {
-
-    @TempDir
-    Path dir;
-
-    private final ConsoleCapture console = new ConsoleCapture();
-    private final StringWriter out = console.out;
-    private final StringWriter err = console.err;
+class InspectCommandTest extends CommandTestSupport {
 
     private int run(String... args) {
         return console.run(args);

@@ -4,24 +4,15 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.data.Offset.offset;
 
 import java.io.IOException;
-import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
-import org.junit.jupiter.api.io.TempDir;
 import org.twinlight.time.TimeConverter;
 import org.twinlight.time.TimeScale;
 
-class TimeCommandTest {
-
-    @TempDir
-    Path dir;
-
-    private final ConsoleCapture console = new ConsoleCapture();
-    private final StringWriter out = console.out;
-    private final StringWriter err = console.err;
+class TimeCommandTest extends CommandTestSupport {
 
     private int run(String... args) {
         String[] all = new String[args.length + 1];
