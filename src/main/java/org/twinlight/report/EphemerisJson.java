@@ -8,15 +8,15 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.UncheckedIOException;
 import java.nio.file.Path;
 import org.twinlight.timing.Ephemeris;
-import org.twinlight.timing.EphemerisFit;
-import org.twinlight.timing.EphemerisParameter;
-import org.twinlight.timing.MinimumMethod;
-import org.twinlight.timing.MinimumSearchResult;
-import org.twinlight.timing.MinimumSkip;
+import org.twinlight.timing.minima.EphemerisFit;
+import org.twinlight.timing.minima.EphemerisParameter;
+import org.twinlight.timing.minima.MinimumMethod;
+import org.twinlight.timing.minima.MinimumSearchResult;
+import org.twinlight.timing.minima.MinimumSkip;
 import org.twinlight.timing.MinimumType;
-import org.twinlight.timing.OcAnalysis;
-import org.twinlight.timing.OcResult;
-import org.twinlight.timing.OcSeriesDifference;
+import org.twinlight.timing.minima.OcAnalysis;
+import org.twinlight.timing.minima.OcResult;
+import org.twinlight.timing.minima.OcSeriesDifference;
 
 /**
  * Writes {@code ephemeris.json}: the fitted linear ephemeris as {@code epoch} and {@code period}

@@ -5,7 +5,7 @@ import java.util.List;
 import java.util.Locale;
 import org.twinlight.time.TimeScale;
 import org.twinlight.timing.Ephemeris;
-import org.twinlight.timing.MinimumTime;
+import org.twinlight.timing.minima.MinimumTime;
 
 /**
  * Writes {@code minima.csv}: {@code cycle,type,time,error,method,n_points}, one row per minimum

@@ -5,8 +5,8 @@ import java.util.List;
 import java.util.Locale;
 import org.twinlight.time.TimeScale;
 import org.twinlight.timing.Ephemeris;
-import org.twinlight.timing.MinimumMethod;
-import org.twinlight.timing.MinimumTime;
+import org.twinlight.timing.minima.MinimumMethod;
+import org.twinlight.timing.minima.MinimumTime;
 import org.twinlight.timing.MinimumType;
 
 /**

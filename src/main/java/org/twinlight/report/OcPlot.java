@@ -11,11 +11,11 @@ import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.twinlight.time.TimeScale;
-import org.twinlight.timing.EphemerisFit;
-import org.twinlight.timing.EphemerisModel;
+import org.twinlight.timing.minima.EphemerisFit;
+import org.twinlight.timing.minima.EphemerisModel;
 import org.twinlight.timing.MinimumType;
-import org.twinlight.timing.OcPoint;
-import org.twinlight.timing.OcResult;
+import org.twinlight.timing.minima.OcPoint;
+import org.twinlight.timing.minima.OcResult;
 
 /**
  * The O−C diagram as a PNG: O−C in minutes against cycle number, primary minima as filled

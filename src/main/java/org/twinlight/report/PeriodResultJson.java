@@ -7,10 +7,10 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.file.Path;
 import java.util.Locale;
-import org.twinlight.timing.EclipseEvent;
-import org.twinlight.timing.HalfPeriodCheck;
-import org.twinlight.timing.PeriodCandidate;
-import org.twinlight.timing.PeriodSearchResult;
+import org.twinlight.timing.period.EclipseEvent;
+import org.twinlight.timing.period.HalfPeriodCheck;
+import org.twinlight.timing.period.PeriodCandidate;
+import org.twinlight.timing.period.PeriodSearchResult;
 
 /**
  * Writes {@code period.json}: the contract's {@code period}, {@code method}, {@code secondaryPhase} and

@@ -19,9 +19,9 @@ import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.twinlight.photometry.LightCurve;
-import org.twinlight.timing.PeriodCandidate;
-import org.twinlight.timing.PeriodSearchResult;
-import org.twinlight.timing.Periodogram;
+import org.twinlight.timing.period.PeriodCandidate;
+import org.twinlight.timing.period.PeriodSearchResult;
+import org.twinlight.timing.period.Periodogram;
 
 /**
  * The period-search figure: the BLS periodogram (signal residue against period, logarithmic period

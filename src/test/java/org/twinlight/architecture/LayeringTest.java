@@ -73,6 +73,16 @@ class LayeringTest {
     }
 
     @Test
+    void periodSearchAndMinimaAreApart() {
+        noClasses().that().resideInAPackage("org.twinlight.timing.period..")
+                .should().dependOnClassesThat().resideInAPackage("org.twinlight.timing.minima..")
+                .check(classes);
+        noClasses().that().resideInAPackage("org.twinlight.timing.minima..")
+                .should().dependOnClassesThat().resideInAPackage("org.twinlight.timing.period..")
+                .check(classes);
+    }
+
+    @Test
     void noPackageCycles() {
         slices().matching("org.twinlight.(*)..").should().beFreeOfCycles().check(classes);
     }

@@ -6,12 +6,12 @@ import org.twinlight.photometry.LightCurve;
 import org.twinlight.photometry.ValueKind;
 import org.twinlight.time.TimeScale;
 import org.twinlight.timing.Ephemeris;
-import org.twinlight.timing.MinimumFinder;
-import org.twinlight.timing.MinimumMethod;
-import org.twinlight.timing.MinimumSearchResult;
-import org.twinlight.timing.MinimumSettings;
-import org.twinlight.timing.OcAnalysis;
-import org.twinlight.timing.OcResult;
+import org.twinlight.timing.minima.MinimumFinder;
+import org.twinlight.timing.minima.MinimumMethod;
+import org.twinlight.timing.minima.MinimumSearchResult;
+import org.twinlight.timing.minima.MinimumSettings;
+import org.twinlight.timing.minima.OcAnalysis;
+import org.twinlight.timing.minima.OcResult;
 
 /**
  * Times the search for minima and the O−C fits on a synthetic 27-day, 2-minute light curve

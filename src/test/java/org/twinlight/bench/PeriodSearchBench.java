@@ -2,10 +2,10 @@ package org.twinlight.bench;
 
 import java.util.Locale;
 import org.twinlight.photometry.LightCurve;
-import org.twinlight.timing.PeriodSearch;
-import org.twinlight.timing.PeriodSearchResult;
-import org.twinlight.timing.PeriodSearchSettings;
-import org.twinlight.timing.SyntheticEclipsingCurve;
+import org.twinlight.timing.period.PeriodSearch;
+import org.twinlight.timing.period.PeriodSearchResult;
+import org.twinlight.timing.period.PeriodSearchSettings;
+import org.twinlight.timing.period.SyntheticEclipsingCurve;
 
 /**
  * Benchmark of the whole period search (periodogram, P/2P resolution, timing refinement, PDM) on the

@@ -38,4 +38,16 @@ class BundledSampleTest {
         }
         assertThat(json.readTree(dir.resolve("fit.json").toFile()).get("timeScale").asText()).isEqualTo("BJD_TDB");
     }
+
+    @Test
+    void ciRunsBothReadmeQuickStartCommands() throws Exception {
+        String readme = Files.readString(Path.of("README.md"));
+        String ci = Files.readString(Path.of(".ci", "run"));
+        int start = readme.indexOf("```sh", readme.indexOf("## Quick start"));
+        String[] commands = readme.substring(start + 5, readme.indexOf("```", start + 5)).strip().split("\n");
+        assertThat(commands).as("the quick start is exactly two commands").hasSize(2);
+        for (String command : commands) {
+            assertThat(ci).as("CI must run the README command " + command).contains(command.strip());
+        }
+    }
 }

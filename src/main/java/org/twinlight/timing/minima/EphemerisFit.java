@@ -1,0 +1,65 @@
+package org.twinlight.timing.minima;
+
+import org.twinlight.timing.Ephemeris;
+import org.twinlight.timing.MinimumType;
+
+import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
+
+/**
+ * An ephemeris model fitted to times of minimum. The model is written as a correction to the
+ * reference ephemeris, in days: O−C(E) = ΔT₀ + ΔP·E + Q·E² + s·[secondary] + Δt_LTT(T_ref(E)),
+ * where the terms a model does not have are 0 (or null for the light time).
+ *
+ * @param model which model
+ * @param reference the ephemeris the O−C are taken against
+ * @param offsetDays ΔT₀, days
+ * @param periodCorrectionDays ΔP, days
+ * @param quadraticDays Q, days
+ * @param secondaryOffsetDays s, the displacement of secondary minima from phase 0.5, days (0 when not fitted)
+ * @param lightTime the third-body orbit, or null
+ * @param parameters the fitted and derived quantities with uncertainties, for files and people
+ * @param chi2 χ² with the timing errors as given
+ * @param n number of timings
+ * @param freeParameters number of free parameters k
+ * @param bic Bayesian information criterion χ² + k·ln n (Schwarz 1978, Ann. Stat. 6, 461)
+ * @param errorScale factor the formal uncertainties were multiplied by: max(1, √(χ²/(n − k)))
+ */
+public record EphemerisFit(EphemerisModel model, Ephemeris reference, double offsetDays, double periodCorrectionDays,
+        double quadraticDays, double secondaryOffsetDays, EphemerisLightTime lightTime,
+        List<EphemerisParameter> parameters, double chi2, int n, int freeParameters, double bic, double errorScale) {
+
+    public EphemerisFit {
+        Objects.requireNonNull(model, "model");
+        Objects.requireNonNull(reference, "reference");
+        parameters = List.copyOf(parameters);
+    }
+
+    /** The model's O−C (days) against the reference at cycle E for a minimum of this type. */
+    public double ocModelDays(double cycle, MinimumType type) {
+        double oc = offsetDays + periodCorrectionDays * cycle + quadraticDays * cycle * cycle;
+        if (type == MinimumType.SECONDARY) {
+            oc += secondaryOffsetDays;
+        }
+        if (lightTime != null) {
+            oc += lightTime.delayDays(reference.timeOf(cycle));
+        }
+        return oc;
+    }
+
+    /** The fitted linear part as an ephemeris: T₀ + ΔT₀, P + ΔP. */
+    public Ephemeris linearPart() {
+        return new Ephemeris(reference.epochDays() + offsetDays, reference.periodDays() + periodCorrectionDays);
+    }
+
+    /** χ²/(n − k), NaN when n ≤ k. */
+    public double reducedChi2() {
+        return n > freeParameters ? chi2 / (n - freeParameters) : Double.NaN;
+    }
+
+    /** The parameter with this name. */
+    public Optional<EphemerisParameter> parameter(String name) {
+        return parameters.stream().filter(p -> p.name().equals(name)).findFirst();
+    }
+}

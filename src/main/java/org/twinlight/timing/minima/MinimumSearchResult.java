@@ -1,0 +1,37 @@
+package org.twinlight.timing.minima;
+
+import java.util.List;
+import org.twinlight.time.TimeScale;
+
+/**
+ * Outcome of the search for times of minimum in one light curve.
+ *
+ * @param minima every measured minimum, once per method, in cycle order
+ * @param skipped eclipses in the data that were not measured, with the reason
+ * @param primaryWindowDays full width of the window cut around primary eclipses, days
+ * @param secondaryWindowDays the same for secondary eclipses
+ * @param primaryDurationDays eclipse duration used for the coverage checks, days
+ * @param secondaryDurationDays the same for secondary eclipses
+ * @param primaryDepth fractional depth of the primary eclipse in the folded light curve, NaN when not seen
+ * @param secondaryDepth the same for the secondary eclipse
+ * @param timeScale time scale of every time here
+ */
+public record MinimumSearchResult(List<MinimumTime> minima, List<MinimumSkip> skipped, double primaryWindowDays,
+        double secondaryWindowDays, double primaryDurationDays, double secondaryDurationDays, double primaryDepth,
+        double secondaryDepth, TimeScale timeScale) {
+
+    public MinimumSearchResult {
+        minima = List.copyOf(minima);
+        skipped = List.copyOf(skipped);
+    }
+
+    /** True when the eclipses at the secondary phase are clearly deeper than those at phase 0. */
+    public boolean secondaryDeeperThanPrimary() {
+        return secondaryDepth > 1.1 * primaryDepth || (Double.isNaN(primaryDepth) && !Double.isNaN(secondaryDepth));
+    }
+
+    /** The minima measured with one method, in cycle order. */
+    public List<MinimumTime> minima(MinimumMethod method) {
+        return minima.stream().filter(m -> m.method() == method).toList();
+    }
+}

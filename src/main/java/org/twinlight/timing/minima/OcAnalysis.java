@@ -1,0 +1,228 @@
+package org.twinlight.timing.minima;
+
+import org.twinlight.timing.Ephemeris;
+import org.twinlight.timing.MinimumType;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Set;
+import org.twinlight.BadInputException;
+import org.twinlight.WorkFailedException;
+
+/**
+ * O−C diagram and ephemeris fits. The O−C are taken against a reference ephemeris (given, or a
+ * fitted linear one); then, weighted by the timing errors:
+ * <ul>
+ * <li>a linear ephemeris T = T₀ + P·E,</li>
+ * <li>a quadratic one T = T₀ + P·E + Q·E², with dP/dE = 2Q and dP/dt = 2Q/P,</li>
+ * <li>a linear one plus the light-travel-time effect of a third body (Irwin 1952), see
+ * {@link EphemerisLightTimeFitter},</li>
+ * </ul>
+ * compared by the Bayesian information criterion BIC = χ² + k·ln n (Schwarz 1978, Ann. Stat. 6,
+ * 461): the smallest wins. When both primary and secondary minima are present (four timings or
+ * more), every model has one more free parameter, the displacement of the secondaries from phase
+ * 0.5, so eccentric orbits are fitted without bias. Uncertainties are the formal ones multiplied by
+ * max(1, √(χ²/(n − k))) (common practice, no source), so scatter beyond the stated timing errors
+ * widens them.
+ */
+public final class OcAnalysis {
+
+    /** Fewest timings for which the light-time model is tried. */
+    public static final int MIN_TIMINGS_FOR_LIGHT_TIME = 15;
+    /** Days per Julian year, for dP/dt in seconds per year (IAU: 365.25 d). */
+    private static final double DAYS_PER_JULIAN_YEAR = 365.25;
+    private static final double SECONDS_PER_DAY = 86400.0;
+
+    private OcAnalysis() {
+    }
+
+    /**
+     * The cycle number of a minimum observed at {@code timeDays}: the nearest integer for a
+     * primary, n + 0.5 for a secondary expected at phase {@code secondaryPhase}.
+     */
+    public static double cycleOf(double timeDays, MinimumType type, Ephemeris ephemeris, double secondaryPhase) {
+        double phase = type == MinimumType.PRIMARY ? 0 : secondaryPhase;
+        return Math.round(ephemeris.cyclesSinceEpoch(timeDays) - phase) + type.cycleOffset();
+    }
+
+    /**
+     * Builds the O−C diagram of {@code minima} against {@code reference} and fits the models.
+     *
+     * @param minima timings of one method (cycle numbers assigned)
+     * @param reference the ephemeris for the O−C
+     * @param tryLightTime whether to fit the light-time model (only with at least
+     *     {@link #MIN_TIMINGS_FOR_LIGHT_TIME} timings)
+     * @throws BadInputException when two minima share a cycle and type, or an error is not positive
+     * @throws WorkFailedException when there are fewer than two cycles to fit
+     */
+    public static OcResult analyse(List<MinimumTime> minima, Ephemeris reference, boolean tryLightTime) {
+        checkTimings(minima);
+        List<MinimumTime> sorted = new ArrayList<>(minima);
+        sorted.sort(Comparator.comparingDouble(MinimumTime::timeDays));
+        int n = sorted.size();
+        double[] cycle = new double[n];
+        boolean[] secondary = new boolean[n];
+        double[] oc = new double[n];
+        double[] sigma = new double[n];
+        List<OcPoint> points = new ArrayList<>();
+        boolean anyPrimary = false;
+        boolean anySecondary = false;
+        for (int i = 0; i < n; i++) {
+            MinimumTime m = sorted.get(i);
+            cycle[i] = m.cycle();
+            secondary[i] = m.type() == MinimumType.SECONDARY;
+            anyPrimary |= !secondary[i];
+            anySecondary |= secondary[i];
+            oc[i] = m.timeDays() - reference.timeOf(m.cycle());
+            sigma[i] = m.errorDays();
+            points.add(new OcPoint(m.cycle(), m.type(), m.timeDays(), m.errorDays(), oc[i]));
+        }
+        long distinct = Arrays.stream(cycle).distinct().count();
+        if (distinct < 2) {
+            throw new WorkFailedException("an ephemeris needs timings from at least two cycles; found " + distinct);
+        }
+        boolean withSecondary = anyPrimary && anySecondary && n >= 4;
+        EphemerisFit linear = polynomial(EphemerisModel.LINEAR, cycle, secondary, oc, sigma, reference, withSecondary);
+        EphemerisFit quadratic = null;
+        int quadraticK = (withSecondary ? 4 : 3);
+        if (n > quadraticK && distinct >= 3) {
+            quadratic = polynomial(EphemerisModel.QUADRATIC, cycle, secondary, oc, sigma, reference, withSecondary);
+        }
+        EphemerisFit lightTime = null;
+        if (tryLightTime && n >= MIN_TIMINGS_FOR_LIGHT_TIME) {
+            lightTime = EphemerisLightTimeFitter.fit(cycle, secondary, oc, sigma, reference, withSecondary);
+        }
+        EphemerisFit best = linear;
+        for (EphemerisFit f : new EphemerisFit[] {quadratic, lightTime}) {
+            if (f != null && f.bic() < best.bic()) {
+                best = f;
+            }
+        }
+        return new OcResult(reference, points, linear, quadratic, lightTime, best.model(),
+                seriesDifference(cycle, secondary, oc, sigma));
+    }
+
+    private static void checkTimings(List<MinimumTime> minima) {
+        Map<String, MinimumTime> seen = new HashMap<>();
+        for (MinimumTime m : minima) {
+            if (!(m.errorDays() > 0) || !Double.isFinite(m.errorDays())) {
+                throw new BadInputException(String.format(Locale.ROOT,
+                        "minimum at %.6f (cycle %s): error %s d is not allowed; expected an error > 0 days",
+                        m.timeDays(), cycleLabel(m.cycle()), m.errorDays()));
+            }
+            double frac = m.cycle() - Math.floor(m.cycle());
+            double expected = m.type().cycleOffset();
+            if (Math.abs(frac - expected) > 1e-9) {
+                throw new BadInputException(String.format(Locale.ROOT,
+                        "minimum at %.6f: cycle %s does not fit a %s minimum (expected %s)", m.timeDays(),
+                        cycleLabel(m.cycle()), m.type().label(),
+                        m.type() == MinimumType.PRIMARY ? "an integer" : "an integer + 0.5"));
+            }
+            MinimumTime previous = seen.put(m.type() + "/" + m.cycle(), m);
+            if (previous != null) {
+                throw new BadInputException(String.format(Locale.ROOT,
+                        "cycle numbers collide: cycle %s (%s) is assigned to two minima, at %.6f and %.6f; "
+                                + "check the period or remove one of them",
+                        cycleLabel(m.cycle()), m.type().label(), previous.timeDays(), m.timeDays()));
+            }
+        }
+    }
+
+    static String cycleLabel(double cycle) {
+        return cycle == Math.rint(cycle) ? String.valueOf((long) cycle) : String.valueOf(cycle);
+    }
+
+    /** Linear or quadratic ephemeris by weighted linear least squares on the O−C. */
+    private static EphemerisFit polynomial(EphemerisModel model, double[] cycle, boolean[] secondary, double[] oc,
+            double[] sigma, Ephemeris reference, boolean withSecondary) {
+        boolean quadratic = model == EphemerisModel.QUADRATIC;
+        int n = cycle.length;
+        int k = 2 + (quadratic ? 1 : 0) + (withSecondary ? 1 : 0);
+        double[][] design = new double[n][k];
+        for (int i = 0; i < n; i++) {
+            int c = 0;
+            design[i][c++] = 1;
+            design[i][c++] = cycle[i];
+            if (quadratic) {
+                design[i][c++] = cycle[i] * cycle[i];
+            }
+            if (withSecondary) {
+                design[i][c] = secondary[i] ? 1 : 0;
+            }
+        }
+        EphemerisLeastSquares.Solution sol = EphemerisLeastSquares.solve(design, oc, sigma);
+        double scale = errorScale(sol.chi2(), n, k);
+        double[] b = sol.coefficients();
+        List<EphemerisParameter> params = new ArrayList<>();
+        double period = reference.periodDays() + b[1];
+        params.add(new EphemerisParameter("epoch", reference.epochDays() + b[0], scale * sol.sigma(0), "d"));
+        params.add(new EphemerisParameter("period", period, scale * sol.sigma(1), "d"));
+        double q = 0;
+        if (quadratic) {
+            q = b[2];
+            double sq = scale * sol.sigma(2);
+            params.add(new EphemerisParameter("q", q, sq, "d"));
+            params.add(new EphemerisParameter("dPdE", 2 * q, 2 * sq, "d/cycle"));
+            params.add(new EphemerisParameter("dPdt", 2 * q / period, 2 * sq / period, "d/d"));
+            double toSecondsPerYear = SECONDS_PER_DAY * DAYS_PER_JULIAN_YEAR;
+            params.add(new EphemerisParameter("dPdtSecondsPerYear", 2 * q / period * toSecondsPerYear,
+                    2 * sq / period * toSecondsPerYear, "s/yr"));
+        }
+        double s = 0;
+        if (withSecondary) {
+            s = b[k - 1];
+            params.add(new EphemerisParameter("secondaryOffset", s, scale * sol.sigma(k - 1), "d"));
+        }
+        return new EphemerisFit(model, reference, b[0], b[1], q, s, null, params, sol.chi2(), n, k,
+                bic(sol.chi2(), k, n), scale);
+    }
+
+    static double errorScale(double chi2, int n, int k) {
+        return n > k ? Math.max(1, Math.sqrt(chi2 / (n - k))) : 1;
+    }
+
+    static double bic(double chi2, int k, int n) {
+        return chi2 + k * Math.log(n);
+    }
+
+    /** Straight lines through each series around the common mean cycle; null without two cycles of each. */
+    private static OcSeriesDifference seriesDifference(double[] cycle, boolean[] secondary, double[] oc, double[] sigma) {
+        double meanCycle = Arrays.stream(cycle).average().orElse(0);
+        double[][] lines = new double[2][];
+        int[] counts = new int[2];
+        for (int type = 0; type < 2; type++) {
+            List<double[]> rows = new ArrayList<>();
+            List<Double> ys = new ArrayList<>();
+            List<Double> ss = new ArrayList<>();
+            Set<Double> cycles = new HashSet<>();
+            for (int i = 0; i < cycle.length; i++) {
+                if (secondary[i] == (type == 1)) {
+                    rows.add(new double[] {1, cycle[i] - meanCycle});
+                    ys.add(oc[i]);
+                    ss.add(sigma[i]);
+                    cycles.add(cycle[i]);
+                }
+            }
+            if (cycles.size() < 2) {
+                return null;
+            }
+            EphemerisLeastSquares.Solution sol = EphemerisLeastSquares.solve(rows.toArray(new double[0][]),
+                    ys.stream().mapToDouble(Double::doubleValue).toArray(),
+                    ss.stream().mapToDouble(Double::doubleValue).toArray());
+            double scale = errorScale(sol.chi2(), rows.size(), 2);
+            lines[type] = new double[] {sol.coefficients()[0], scale * sol.sigma(0), sol.coefficients()[1],
+                scale * sol.sigma(1)};
+            counts[type] = rows.size();
+        }
+        double[] p = lines[0];
+        double[] s = lines[1];
+        return new OcSeriesDifference(meanCycle, p[0] - s[0], Math.hypot(p[1], s[1]), p[2] - s[2],
+                Math.hypot(p[3], s[3]), counts[0], counts[1]);
+    }
+}

@@ -1,0 +1,20 @@
+package org.twinlight.timing.minima;
+
+import org.twinlight.timing.MinimumType;
+
+import java.util.Objects;
+
+/**
+ * One point of an O−C diagram.
+ *
+ * @param cycle cycle number E (integer primary, n + 0.5 secondary)
+ * @param type primary or secondary
+ * @param timeDays observed time of minimum, days
+ * @param errorDays its 1σ uncertainty, days
+ * @param ocDays observed minus calculated time, days, against the reference ephemeris
+ */
+public record OcPoint(double cycle, MinimumType type, double timeDays, double errorDays, double ocDays) {
+    public OcPoint {
+        Objects.requireNonNull(type, "type");
+    }
+}

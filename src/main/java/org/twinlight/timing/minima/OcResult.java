@@ -1,0 +1,42 @@
+package org.twinlight.timing.minima;
+
+import org.twinlight.timing.Ephemeris;
+
+import java.util.List;
+import java.util.Objects;
+import java.util.stream.Stream;
+
+/**
+ * An O−C diagram with the ephemeris models fitted to it.
+ *
+ * @param reference the ephemeris the O−C are taken against
+ * @param points the timings with their O−C, in time order
+ * @param linear the linear ephemeris fit
+ * @param quadratic the quadratic ephemeris fit, or null when there are too few timings
+ * @param lightTime the light-travel-time fit, or null when not attempted or not possible
+ * @param preferred the model with the smallest BIC
+ * @param primaryMinusSecondary primary and secondary drifts, or null without two of each type
+ */
+public record OcResult(Ephemeris reference, List<OcPoint> points, EphemerisFit linear, EphemerisFit quadratic,
+        EphemerisFit lightTime, EphemerisModel preferred, OcSeriesDifference primaryMinusSecondary) {
+
+    public OcResult {
+        Objects.requireNonNull(reference, "reference");
+        Objects.requireNonNull(linear, "linear");
+        points = List.copyOf(points);
+    }
+
+    /** The fit of the preferred model. */
+    public EphemerisFit preferredFit() {
+        return switch (preferred) {
+            case LINEAR -> linear;
+            case QUADRATIC -> quadratic;
+            case LIGHT_TIME -> lightTime;
+        };
+    }
+
+    /** Every fitted model, linear first. */
+    public List<EphemerisFit> fits() {
+        return Stream.of(linear, quadratic, lightTime).filter(Objects::nonNull).toList();
+    }
+}

@@ -1,0 +1,89 @@
+package org.twinlight.timing.period;
+
+import java.util.Arrays;
+
+/**
+ * The trial frequencies of a period search (cycles per day), set by the baseline and the shortest
+ * eclipse duration that the data can show.
+ *
+ * <p>Rule. A folded eclipse of duration q (fraction of the period) is sharp as long as the phase
+ * error accumulated over the baseline T stays well below q. Two neighbouring trial frequencies differ
+ * by Δf = q<sub>eff</sub>(f) / (k·T), with k the oversampling (default 2). The true frequency lies
+ * within Δf/2 of a grid point and the best box absorbs the mean phase, so the phase error at either end
+ * of the baseline is at most Δf·T/4 = q<sub>eff</sub>/(4k), an eighth of the duration for k = 2. This
+ * is the usual BLS requirement that the grid resolve the phase drift of the shortest trial duration
+ * across the baseline (Kovács, Zucker &amp; Mazeh 2002, A&amp;A 391, 369, Sect. 2).
+ *
+ * <p>The shortest usable duration is q<sub>eff</sub>(f) = max(q<sub>min</sub>, c·f), with c the
+ * typical cadence (days): an eclipse cannot look shorter than about one exposure, so at high trial
+ * frequencies the step widens in proportion to f and the grid becomes logarithmic. That keeps long,
+ * sparsely sampled light curves affordable without losing eclipses the data can resolve.
+ */
+final class FrequencyGrid {
+    private final double[] frequencies;
+    private final double shortestDuration;
+    private final double cadenceDays;
+
+    private final double baselineDays;
+    private final double oversampling;
+
+    private FrequencyGrid(double[] frequencies, double shortestDuration, double cadenceDays, double baselineDays,
+            double oversampling) {
+        this.frequencies = frequencies;
+        this.shortestDuration = shortestDuration;
+        this.cadenceDays = cadenceDays;
+        this.baselineDays = baselineDays;
+        this.oversampling = oversampling;
+    }
+
+    /**
+     * @param baselineDays span of the data, days
+     * @param cadenceDays typical spacing of the points, days
+     * @param minPeriodDays shortest trial period
+     * @param maxPeriodDays longest trial period
+     * @param shortestDuration shortest trial duration, fraction of the period
+     * @param oversampling k in the rule above
+     */
+    static FrequencyGrid build(double baselineDays, double cadenceDays, double minPeriodDays, double maxPeriodDays,
+            double shortestDuration, double oversampling) {
+        double fMin = 1.0 / maxPeriodDays;
+        double fMax = 1.0 / minPeriodDays;
+        double[] f = new double[1024];
+        int n = 0;
+        double x = fMin;
+        while (x <= fMax) {
+            if (n == f.length) {
+                f = Arrays.copyOf(f, n * 2);
+            }
+            f[n++] = x;
+            x += Math.max(shortestDuration, cadenceDays * x) / (oversampling * baselineDays);
+        }
+        return new FrequencyGrid(Arrays.copyOf(f, n), shortestDuration, cadenceDays, baselineDays, oversampling);
+    }
+
+    /** The grid over the same range with the same rule for a baseline {@code factor} times shorter. */
+    FrequencyGrid coarser(int factor) {
+        double lo = frequencies[0];
+        double hi = frequencies[frequencies.length - 1];
+        FrequencyGrid g = build(baselineDays / factor, cadenceDays, 1.0 / hi, 1.0 / lo, shortestDuration, oversampling);
+        if (g.frequencies[g.frequencies.length - 1] < hi) {
+            double[] f = Arrays.copyOf(g.frequencies, g.frequencies.length + 1);
+            f[f.length - 1] = hi;
+            return new FrequencyGrid(f, shortestDuration, cadenceDays, baselineDays / factor, oversampling);
+        }
+        return g;
+    }
+
+    int size() {
+        return frequencies.length;
+    }
+
+    double frequency(int i) {
+        return frequencies[i];
+    }
+
+    /** The shortest duration (fraction of the period) the data can show at frequency f. */
+    double effectiveShortestDuration(double f) {
+        return Math.max(shortestDuration, cadenceDays * f);
+    }
+}

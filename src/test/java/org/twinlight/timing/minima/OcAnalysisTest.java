@@ -1,0 +1,177 @@
+package org.twinlight.timing.minima;
+
+import org.twinlight.timing.Ephemeris;
+import org.twinlight.timing.MinimumType;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.assertj.core.api.Assertions.within;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Random;
+import java.util.function.DoubleUnaryOperator;
+import org.junit.jupiter.api.Test;
+import org.twinlight.BadInputException;
+
+class OcAnalysisTest {
+
+    private static final Ephemeris REFERENCE = new Ephemeris(2455000.1234, 3.2145678);
+
+    /** Primary timings at cycles 0, step, 2·step, … with O−C = model(E) + noise. */
+    private static List<MinimumTime> timings(int n, int step, double sigmaDays, DoubleUnaryOperator model,
+            Random random) {
+        List<MinimumTime> list = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            double e = i * step;
+            double t = REFERENCE.timeOf(e) + model.applyAsDouble(e)
+                    + (random == null ? 0 : sigmaDays * random.nextGaussian());
+            list.add(MinimumTime.of(e, MinimumType.PRIMARY, t, sigmaDays, MinimumMethod.TEMPLATE));
+        }
+        return list;
+    }
+
+    private static double spread(List<Double> v) {
+        double mean = v.stream().mapToDouble(Double::doubleValue).average().orElseThrow();
+        return Math.sqrt(v.stream().mapToDouble(d -> (d - mean) * (d - mean)).sum() / (v.size() - 1));
+    }
+
+    /**
+     * Deeg 2015 (arXiv:1503.05368, abstract): for N equally spaced timings of error σ_T the
+     * period error is σ_T·(12/(N³ − N))^½. Their example, recomputed:
+     * σ_T = 30 s, N = 100 gives σ_P = 0.10393 s.
+     */
+    @Test
+    void linearPeriodErrorFollowsDeeg2015() {
+        double sigmaT = 30.0 / 86400;
+        OcResult r = OcAnalysis.analyse(timings(100, 1, sigmaT, e -> 0, null), REFERENCE, false);
+        EphemerisParameter period = r.linear().parameter("period").orElseThrow();
+        assertThat(period.value()).isCloseTo(REFERENCE.periodDays(), within(1e-12));
+        assertThat(period.uncertainty() * 86400).isCloseTo(0.10393, within(0.00001));
+        for (int n : new int[] {5, 17, 40}) {
+            OcResult rn = OcAnalysis.analyse(timings(n, 1, sigmaT, e -> 0, null), REFERENCE, false);
+            double expected = sigmaT * Math.sqrt(12.0 / ((double) n * n * n - n));
+            assertThat(rn.linear().parameter("period").orElseThrow().uncertainty())
+                    .isCloseTo(expected, within(1e-9 * expected));
+        }
+    }
+
+    /** The period error is honest: pulls of the fitted period over many seeds have unit spread. */
+    @Test
+    void linearPeriodPullsHaveUnitSpread() {
+        List<Double> pulls = new ArrayList<>();
+        for (long seed = 0; seed < 300; seed++) {
+            OcResult r = OcAnalysis.analyse(timings(30, 3, 0.0004, e -> 0, new Random(seed)), REFERENCE, false);
+            EphemerisParameter p = r.linear().parameter("period").orElseThrow();
+            // The reported error is widened when χ²/ν > 1, so use the formal one for the pull.
+            pulls.add((p.value() - REFERENCE.periodDays()) / (p.uncertainty() / r.linear().errorScale()));
+        }
+        assertThat(spread(pulls)).isBetween(0.85, 1.15);
+    }
+
+    /** A quadratic ephemeris T = T₀ + P·E + Q·E² has dP/dE = 2Q; an injected Q is recovered. */
+    @Test
+    void quadraticEphemerisRecoversInjectedPeriodChange() {
+        double q = 2.0e-9;
+        List<Double> pulls = new ArrayList<>();
+        for (long seed = 0; seed < 100; seed++) {
+            OcResult r = OcAnalysis.analyse(timings(60, 20, 0.0003, e -> q * e * e, new Random(seed)), REFERENCE,
+                    false);
+            EphemerisParameter dPdE = r.quadratic().parameter("dPdE").orElseThrow();
+            pulls.add((dPdE.value() - 2 * q) / dPdE.uncertainty());
+            if (seed == 0) {
+                assertThat(r.preferred()).isEqualTo(EphemerisModel.QUADRATIC);
+                assertThat(r.quadratic().parameter("dPdt").orElseThrow().value())
+                        .isCloseTo(2 * q / REFERENCE.periodDays(), within(4 * dPdE.uncertainty() / REFERENCE.periodDays()));
+            }
+        }
+        double mean = pulls.stream().mapToDouble(Double::doubleValue).average().orElseThrow();
+        assertThat(mean).isCloseTo(0, within(0.3));
+        assertThat(spread(pulls)).isBetween(0.8, 1.2);
+    }
+
+    /**
+     * A light-time orbit (Irwin 1952) injected into the timings is recovered, and the BIC prefers
+     * it; without it, the BIC prefers a model without it.
+     */
+    @Test
+    void lightTimeOrbitIsRecoveredAndPreferredOnlyWhenPresent() {
+        EphemerisLightTime truth = new EphemerisLightTime(700.0, 0.004, 0.35, 60.0, REFERENCE.timeOf(150));
+        double sigma = 0.0006;
+        for (long seed = 0; seed < 2; seed++) {
+            List<MinimumTime> with = timings(120, 6, sigma, e -> truth.delayDays(REFERENCE.timeOf(e)), new Random(seed));
+            OcResult r = OcAnalysis.analyse(with, REFERENCE, true);
+            assertThat(r.preferred()).isEqualTo(EphemerisModel.LIGHT_TIME);
+            EphemerisFit fit = r.lightTime();
+            EphemerisParameter p3 = fit.parameter("lightTimePeriod").orElseThrow();
+            EphemerisParameter k = fit.parameter("lightTimeAmplitude").orElseThrow();
+            EphemerisParameter e = fit.parameter("eccentricity").orElseThrow();
+            EphemerisParameter w = fit.parameter("omega").orElseThrow();
+            assertThat(p3.value()).isCloseTo(700.0, within(4 * p3.uncertainty()));
+            assertThat(k.value()).isCloseTo(0.004, within(4 * k.uncertainty()));
+            assertThat(e.value()).isCloseTo(0.35, within(4 * e.uncertainty()));
+            assertThat(w.value()).isCloseTo(60.0, within(4 * w.uncertainty()));
+            assertThat(r.fits()).hasSize(3);
+
+            List<MinimumTime> without = timings(120, 6, sigma, x -> 0, new Random(100 + seed));
+            OcResult r0 = OcAnalysis.analyse(without, REFERENCE, true);
+            assertThat(r0.preferred()).isNotEqualTo(EphemerisModel.LIGHT_TIME);
+            assertThat(r0.lightTime().bic()).isGreaterThan(r0.linear().bic());
+        }
+    }
+
+    /**
+     * Apsidal motion moves primary and secondary minima in opposite directions; the series
+     * difference recovers an injected trend, and the secondary offset is fitted in the ephemerides.
+     */
+    @Test
+    void opposedPrimaryAndSecondaryDriftsShowInTheSeriesDifference() {
+        Random random = new Random(7);
+        double trend = 2e-6;
+        List<MinimumTime> list = new ArrayList<>();
+        for (int i = 0; i < 40; i++) {
+            double e = 10 * i;
+            double drift = trend * (e - 195) / 2;
+            list.add(MinimumTime.of(e, MinimumType.PRIMARY, REFERENCE.timeOf(e) + drift + 2e-4 * random.nextGaussian(),
+                    2e-4, MinimumMethod.TEMPLATE));
+            list.add(MinimumTime.of(e + 0.5, MinimumType.SECONDARY,
+                    REFERENCE.timeOf(e + 0.5) + 0.003 - drift + 2e-4 * random.nextGaussian(), 2e-4, MinimumMethod.TEMPLATE));
+        }
+        OcResult r = OcAnalysis.analyse(list, REFERENCE, false);
+        OcSeriesDifference d = r.primaryMinusSecondary();
+        assertThat(d.trendDaysPerCycle()).isCloseTo(trend, within(4 * d.trendErrorDaysPerCycle()));
+        assertThat(d.meanDifferenceDays()).isCloseTo(-0.003, within(4 * d.meanDifferenceErrorDays()));
+        EphemerisParameter offset = r.linear().parameter("secondaryOffset").orElseThrow();
+        assertThat(offset.value()).isCloseTo(0.003, within(4 * offset.uncertainty()));
+    }
+
+    @Test
+    void collidingCyclesAreRefusedNamingTheCycle() {
+        double t1 = REFERENCE.timeOf(12) + 0.01;
+        double t2 = REFERENCE.timeOf(12) - 0.02;
+        List<MinimumTime> list = new ArrayList<>(timings(5, 1, 1e-4, e -> 0, null));
+        for (double t : new double[] {t1, t2}) {
+            double cycle = OcAnalysis.cycleOf(t, MinimumType.PRIMARY, REFERENCE, 0.5);
+            list.add(MinimumTime.of(cycle, MinimumType.PRIMARY, t, 1e-4, MinimumMethod.KVW));
+        }
+        assertThatThrownBy(() -> OcAnalysis.analyse(list, REFERENCE, false))
+                .isInstanceOf(BadInputException.class)
+                .hasMessageContaining("cycle 12 (primary)")
+                .hasMessageContaining("collide");
+    }
+
+    @Test
+    void secondaryCycleIsHalfInteger() {
+        double t = REFERENCE.timeOf(7.5) + 0.001;
+        assertThat(OcAnalysis.cycleOf(t, MinimumType.SECONDARY, REFERENCE, 0.5)).isEqualTo(7.5);
+        assertThat(OcAnalysis.cycleOf(REFERENCE.timeOf(-3) - 0.01, MinimumType.PRIMARY, REFERENCE, 0.5)).isEqualTo(-3);
+    }
+
+    @Test
+    void nonPositivePeriodIsRefusedNamingTheValue() {
+        assertThatThrownBy(() -> new Ephemeris(2455000.0, 0.0))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("period 0.0");
+        assertThatThrownBy(() -> new Ephemeris(2455000.0, -1.25))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("period -1.25");
+    }
+}
