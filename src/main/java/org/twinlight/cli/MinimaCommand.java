@@ -303,7 +303,9 @@ public final class MinimaCommand implements Callable<Integer> {
         for (EphemerisFit f : oc.fits()) {
             bic.append(String.format(Locale.ROOT, " %s %.1f", f.model().label(), f.bic()));
         }
-        o.println(bic + " → preferred: " + oc.preferred().label());
+        o.println(bic + " → preferred: " + oc.preferred().label() + (oc.periodChangeFound() ? ""
+                : " (no significant period change)"));
+        oc.modelNotes().forEach(n -> o.println("  " + n));
         OcSeriesDifference d = oc.primaryMinusSecondary();
         if (d != null) {
             o.printf(Locale.ROOT, "primary − secondary O−C: %.2f ± %.2f min, trend %.3e ± %.3e d/cycle%n",

@@ -9,6 +9,7 @@ import java.io.UncheckedIOException;
 import java.nio.file.Path;
 import org.twinlight.timing.Ephemeris;
 import org.twinlight.timing.minima.EphemerisFit;
+import org.twinlight.timing.minima.EphemerisModel;
 import org.twinlight.timing.minima.EphemerisParameter;
 import org.twinlight.timing.minima.MinimumMethod;
 import org.twinlight.timing.minima.MinimumSearchResult;
@@ -21,7 +22,9 @@ import org.twinlight.timing.minima.OcSeriesDifference;
 /**
  * Writes {@code ephemeris.json}: the fitted linear ephemeris as {@code epoch} and {@code period}
  * ({@code {"value", "uncertainty"}}, days), the {@code timeScale}, the {@code quadratic} and
- * (when fitted) {@code lightTime} models, the {@code bic} of each model with the preferred one,
+ * (when fitted) {@code lightTime} models, the {@code bic} of each model with the preferred one and
+ * the {@code modelChoice} (the verdict, "no significant period change" unless a richer model
+ * passed the strong-evidence and physical checks, with the notes),
  * the primary − secondary drift, and the {@code skipped} eclipses with their reasons. Numbers
  * that could not be estimated are written as {@code null}.
  */
@@ -107,6 +110,17 @@ public final class EphemerisJson {
                 number(bic, f.model().label(), f.bic());
             }
             bic.put("preferred", oc.preferred().label());
+            ObjectNode choice = root.putObject("modelChoice");
+            choice.put("preferred", oc.preferred().label());
+            choice.put("periodChange", oc.periodChangeFound());
+            choice.put("verdict", oc.periodChangeFound()
+                    ? (oc.preferred() == EphemerisModel.QUADRATIC ? "period change (quadratic ephemeris)"
+                            : "light-time orbit of a third body")
+                    : "no significant period change");
+            choice.put("deltaBicThreshold", OcResult.strongEvidenceDeltaBic());
+            choice.put("thresholdSource", "Kass & Raftery 1995, J. Am. Stat. Assoc. 90, 773: ΔBIC > 6 is strong evidence");
+            ArrayNode notes = choice.putArray("notes");
+            oc.modelNotes().forEach(notes::add);
             OcSeriesDifference d = oc.primaryMinusSecondary();
             if (d != null) {
                 ObjectNode diff = root.putObject("primaryMinusSecondary");

@@ -20,8 +20,9 @@ import org.twinlight.timing.minima.OcResult;
 /**
  * The O−C diagram as a PNG: O−C in minutes against cycle number, primary minima as filled
  * circles and secondary minima as diamonds in another colour, each with its 1σ error bar; the
- * fitted linear ephemeris as a thin line and, when the BIC prefers it, the quadratic or
- * light-time curve as a thicker one.
+ * fitted linear ephemeris drawn as the answer ("no significant period change") unless a quadratic
+ * or light-time model passed the strong-evidence and physical checks of the O−C analysis; then
+ * that curve is the thick one and the linear ephemeris a thin grey line.
  */
 public final class OcPlot {
     private static final double MINUTES_PER_DAY = 1440.0;
@@ -55,15 +56,19 @@ public final class OcPlot {
         double minE = points.stream().mapToDouble(OcPoint::cycle).min().orElse(0);
         double maxE = points.stream().mapToDouble(OcPoint::cycle).max().orElse(1);
         if (result != null) {
-            addCurve(chart, result.linear(), MinimumType.PRIMARY, minE, maxE, "linear ephemeris", Color.GRAY, 1.2f);
+            EphemerisFit preferred = result.preferredFit();
+            boolean linearAnswer = preferred.model() == EphemerisModel.LINEAR;
+            addCurve(chart, result.linear(), MinimumType.PRIMARY, minE, maxE,
+                    linearAnswer ? "linear ephemeris: no significant period change" : "linear ephemeris",
+                    linearAnswer ? PlotFiles.MODEL : Color.GRAY, linearAnswer ? 2.2f : 1.2f);
             if (result.linear().parameter("secondaryOffset").isPresent()) {
                 addCurve(chart, result.linear(), MinimumType.SECONDARY, minE, maxE,
                         "linear ephemeris, secondary minima (fitted offset)", PlotFiles.SECOND.brighter(), 1.2f);
             }
-            EphemerisFit preferred = result.preferredFit();
-            if (preferred.model() != EphemerisModel.LINEAR) {
-                String name = (preferred.model() == EphemerisModel.QUADRATIC ? "quadratic ephemeris"
-                        : "light-time orbit") + " (preferred by BIC)";
+            if (!linearAnswer) {
+                String name = String.format(Locale.ROOT, "%s (ΔBIC = %.1f against linear, > %.0f; checks passed)",
+                        preferred.model() == EphemerisModel.QUADRATIC ? "quadratic ephemeris" : "light-time orbit",
+                        result.linear().bic() - preferred.bic(), OcResult.strongEvidenceDeltaBic());
                 addCurve(chart, preferred, MinimumType.PRIMARY, minE, maxE, name, PlotFiles.MODEL, 2.2f);
                 if (significantSecondaryOffset(preferred)) {
                     addCurve(chart, preferred, MinimumType.SECONDARY, minE, maxE, "same, secondary minima",

@@ -90,8 +90,16 @@ class MinimaCommandTest {
         assertThat(json.get("timeScale").asText()).isEqualTo("BJD_TDB");
         assertThat(json.at("/period/value").asDouble()).isBetween(PERIOD - 1e-3, PERIOD + 1e-3);
         assertThat(json.at("/period/uncertainty").asDouble()).isPositive();
-        assertThat(json.at("/quadratic/dPdE/value").asDouble()).isBetween(3e-5, 9e-5);
+        // Injected T = T0 + P·E + Q·E² with Q = 3e-5 d: dP/dE = 2Q = 6e-5 d/cycle. Accept 4σ of the
+        // fit's own error, and require that band to be narrower than 3e-5 so that a factor-2 error
+        // in dP/dE (3e-5 or 1.2e-4) cannot pass.
+        double dPdE = json.at("/quadratic/dPdE/value").asDouble();
+        double dPdESigma = json.at("/quadratic/dPdE/uncertainty").asDouble();
+        assertThat(dPdESigma).isPositive().isLessThan(3e-5 / 4);
+        assertThat(dPdE).isCloseTo(6e-5, within(4 * dPdESigma));
         assertThat(json.at("/bic/preferred").asText()).isEqualTo("quadratic");
+        assertThat(json.at("/modelChoice/periodChange").asBoolean()).isTrue();
+        assertThat(json.at("/modelChoice/deltaBicThreshold").asDouble()).isEqualTo(6.0);
         assertThat(json.get("skipped")).isNotEmpty();
         assertThat(json.at("/skipped/0/reason").asText()).isNotBlank();
 

@@ -37,13 +37,35 @@ final class EphemerisLightTimeFitter {
 
     private static final int GRID = 300;
     private static final int CANDIDATES = 3;
-    private static final double MAX_ECCENTRICITY = 0.95;
+    static final double MAX_ECCENTRICITY = 0.95;
     /** A start that has not converged by then is abandoned (others usually reach the optimum). */
     private static final int MAX_ITERATIONS = 150;
     /** Iterations from each start before the best starts are polished. */
     private static final int SCOUT_ITERATIONS = 25;
 
     private EphemerisLightTimeFitter() {
+    }
+
+    /**
+     * Outer periods the timings can constrain, days: from three times the typical spacing of the
+     * timings (at least one binary period), and at least a thirtieth of their span, to twice the span.
+     */
+    record SearchRange(double minDays, double maxDays, double spanDays) {
+    }
+
+    /** The range of outer periods searched for timings at {@code times} of a binary of period {@code periodDays}. */
+    static SearchRange searchRange(double[] times, double periodDays) {
+        double[] sortedTimes = times.clone();
+        Arrays.sort(sortedTimes);
+        int n = sortedTimes.length;
+        double span = sortedTimes[n - 1] - sortedTimes[0];
+        double[] gaps = new double[Math.max(1, n - 1)];
+        for (int i = 1; i < n; i++) {
+            gaps[i - 1] = sortedTimes[i] - sortedTimes[i - 1];
+        }
+        Arrays.sort(gaps);
+        double typicalGap = Math.max(gaps[gaps.length / 2], periodDays);
+        return new SearchRange(Math.max(3 * typicalGap, span / 30), 2 * span, span);
     }
 
     /** The fit, or null when the timings cannot constrain an orbit (too short a span, no convergence). */
@@ -56,15 +78,9 @@ final class EphemerisLightTimeFitter {
         }
         double[] sortedTimes = times.clone();
         Arrays.sort(sortedTimes);
-        double span = sortedTimes[n - 1] - sortedTimes[0];
-        double[] gaps = new double[n - 1];
-        for (int i = 1; i < n; i++) {
-            gaps[i - 1] = sortedTimes[i] - sortedTimes[i - 1];
-        }
-        Arrays.sort(gaps);
-        double typicalGap = Math.max(gaps[gaps.length / 2], reference.periodDays());
-        double pMin = Math.max(3 * typicalGap, span / 30);
-        double pMax = 2 * span;
+        SearchRange range = searchRange(times, reference.periodDays());
+        double pMin = range.minDays();
+        double pMax = range.maxDays();
         if (!(pMin < pMax)) {
             return null;
         }

@@ -24,8 +24,9 @@ import org.twinlight.WorkFailedException;
  * <li>a linear one plus the light-travel-time effect of a third body (Irwin 1952), see
  * {@link EphemerisLightTimeFitter},</li>
  * </ul>
- * compared by the Bayesian information criterion BIC = χ² + k·ln n (Schwarz 1978, Ann. Stat. 6,
- * 461): the smallest wins. When both primary and secondary minima are present (four timings or
+ * each with its Bayesian information criterion BIC = χ² + k·ln n (Schwarz 1978, Ann. Stat. 6,
+ * 461). A richer model than the linear one is preferred only on strong evidence and physical
+ * checks, see {@link OcModelChoice}; otherwise the answer is "no significant period change". When both primary and secondary minima are present (four timings or
  * more), every model has one more free parameter, the displacement of the secondaries from phase
  * 0.5, so eccentric orbits are fitted without bias. Uncertainties are the formal ones multiplied by
  * max(1, √(χ²/(n − k))) (common practice, no source), so scatter beyond the stated timing errors
@@ -98,13 +99,12 @@ public final class OcAnalysis {
         if (tryLightTime && n >= MIN_TIMINGS_FOR_LIGHT_TIME) {
             lightTime = EphemerisLightTimeFitter.fit(cycle, secondary, oc, sigma, reference, withSecondary);
         }
-        EphemerisFit best = linear;
-        for (EphemerisFit f : new EphemerisFit[] {quadratic, lightTime}) {
-            if (f != null && f.bic() < best.bic()) {
-                best = f;
-            }
+        double[] times = new double[n];
+        for (int i = 0; i < n; i++) {
+            times[i] = reference.timeOf(cycle[i]);
         }
-        return new OcResult(reference, points, linear, quadratic, lightTime, best.model(),
+        OcModelChoice.Choice choice = OcModelChoice.choose(linear, quadratic, lightTime, times, reference.periodDays());
+        return new OcResult(reference, points, linear, quadratic, lightTime, choice.preferred(), choice.notes(),
                 seriesDifference(cycle, secondary, oc, sigma));
     }
 

@@ -14,16 +14,19 @@ import java.util.stream.Stream;
  * @param linear the linear ephemeris fit
  * @param quadratic the quadratic ephemeris fit, or null when there are too few timings
  * @param lightTime the light-travel-time fit, or null when not attempted or not possible
- * @param preferred the model with the smallest BIC
+ * @param preferred the model the data support: linear unless a richer one passed the strong-evidence
+ *     and physical checks of {@link OcModelChoice}
+ * @param modelNotes why each richer model was or was not accepted, for people
  * @param primaryMinusSecondary primary and secondary drifts, or null without two of each type
  */
 public record OcResult(Ephemeris reference, List<OcPoint> points, EphemerisFit linear, EphemerisFit quadratic,
-        EphemerisFit lightTime, EphemerisModel preferred, OcSeriesDifference primaryMinusSecondary) {
+        EphemerisFit lightTime, EphemerisModel preferred, List<String> modelNotes, OcSeriesDifference primaryMinusSecondary) {
 
     public OcResult {
         Objects.requireNonNull(reference, "reference");
         Objects.requireNonNull(linear, "linear");
         points = List.copyOf(points);
+        modelNotes = List.copyOf(modelNotes);
     }
 
     /** The fit of the preferred model. */
@@ -33,6 +36,16 @@ public record OcResult(Ephemeris reference, List<OcPoint> points, EphemerisFit l
             case QUADRATIC -> quadratic;
             case LIGHT_TIME -> lightTime;
         };
+    }
+
+    /** True when a period change (quadratic or light-time) passed the checks. */
+    public boolean periodChangeFound() {
+        return preferred != EphemerisModel.LINEAR;
+    }
+
+    /** The ΔBIC above which a richer model counts (strong evidence, Kass &amp; Raftery 1995). */
+    public static double strongEvidenceDeltaBic() {
+        return OcModelChoice.STRONG_DELTA_BIC;
     }
 
     /** Every fitted model, linear first. */
