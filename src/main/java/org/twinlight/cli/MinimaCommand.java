@@ -246,17 +246,18 @@ public final class MinimaCommand implements Callable<Integer> {
         o.printf(Locale.ROOT, "%s: %d points, time scale %s%n", lc.source(), lc.size(), scale);
         o.printf(Locale.ROOT, "eclipse windows: primary %.1f min, secondary %.1f min%n",
                 search.primaryWindowDays() * 1440, search.secondaryWindowDays() * 1440);
-        o.printf(Locale.ROOT, "%-9s %-9s %-17s %-10s %-10s %-10s %s%n", "cycle", "type", "time (" + scale + ")",
-                "σ tpl (s)", "σ kvw (s)", "kvw−tpl(s)", "points");
+        o.printf(Locale.ROOT, "%-9s %-9s %-17s %-10s %-10s %-10s %-7s %s%n", "cycle", "type", "time (" + scale + ")",
+                "σ tpl (s)", "σ kvw (s)", "kvw−tpl(s)", "points", "β");
         List<MinimumTime> tpl = search.minima(MinimumMethod.TEMPLATE);
         List<MinimumTime> kvw = search.minima(MinimumMethod.KVW);
         for (MinimumTime t : search.minima(chosen)) {
             MinimumTime a = find(tpl, t);
             MinimumTime b = find(kvw, t);
-            o.printf(Locale.ROOT, "%-9s %-9s %-17.6f %-10s %-10s %-10s %d%n", MinimaCsv.cycleText(t.cycle()),
+            o.printf(Locale.ROOT, "%-9s %-9s %-17.6f %-10s %-10s %-10s %-7d %s%n", MinimaCsv.cycleText(t.cycle()),
                     t.type().label(), t.timeDays(), seconds(a == null ? Double.NaN : a.errorDays()),
                     seconds(b == null ? Double.NaN : b.errorDays()),
-                    seconds(a == null || b == null ? Double.NaN : b.timeDays() - a.timeDays()), t.nPoints());
+                    seconds(a == null || b == null ? Double.NaN : b.timeDays() - a.timeDays()), t.nPoints(),
+                    Double.isFinite(t.beta()) ? String.format(Locale.ROOT, "%.2f", t.beta()) : "-");
         }
         if (search.secondaryDeeperThanPrimary()) {
             o.printf(Locale.ROOT, "warning: the eclipses at phase %.3f (depth %.3f) are deeper than those at phase 0 "

@@ -8,8 +8,9 @@ import org.twinlight.timing.Ephemeris;
 import org.twinlight.timing.minima.MinimumTime;
 
 /**
- * Writes {@code minima.csv}: {@code cycle,type,time,error,method,n_points}, one row per minimum
- * and method, after {@code #} comment lines naming the time scale, the source and the ephemeris
+ * Writes {@code minima.csv}: {@code cycle,type,time,error,method,n_points} (the contract's
+ * columns, in that order), then {@code beta}, the correlated-noise factor; one row per minimum and
+ * method, after {@code #} comment lines naming the time scale, the source and the ephemeris
  * of the cycle numbers. Times and errors in days; cycle an integer for primary, n + 0.5 for
  * secondary.
  */
@@ -26,11 +27,15 @@ public final class MinimaCsv {
         sb.append("# source: ").append(source).append('\n');
         sb.append(String.format(Locale.ROOT, "# cycle numbers from epoch %.8f, period %.10f d%n",
                 ephemeris.epochDays(), ephemeris.periodDays()));
-        sb.append("cycle,type,time,error,method,n_points\n");
+        sb.append("# beta: correlated-noise factor of the light near the eclipse (Winn et al. 2008); the error "
+                + "already includes max(1, beta); empty when it could not be estimated\n");
+        sb.append("cycle,type,time,error,method,n_points,beta\n");
         for (MinimumTime m : minima) {
             sb.append(cycleText(m.cycle())).append(',').append(m.type().label()).append(',')
                     .append(String.format(Locale.ROOT, "%.8f,%.8f", m.timeDays(), m.errorDays())).append(',')
-                    .append(m.method().label()).append(',').append(m.nPoints()).append('\n');
+                    .append(m.method().label()).append(',').append(m.nPoints()).append(',')
+                    .append(Double.isFinite(m.beta()) ? String.format(Locale.ROOT, "%.2f", m.beta()) : "")
+                    .append('\n');
         }
         AtomicFiles.writeString(target, sb.toString());
     }

@@ -25,7 +25,12 @@ import org.twinlight.photometry.LightCurve;
  * <li>{@link MinimumMethod#TEMPLATE}: a least-squares fit of a symmetric template, made by folding
  * all eclipses of that type on their Kwee–van Woerden minima, see {@link MinimumTemplateFit}.</li>
  * </ol>
- * Each eclipse window is centred on the ephemeris prediction (corrected by the mean offset seen in
+ * <p>Both errors are multiplied by max(1, β), β the time-averaging factor of the out-of-eclipse
+ * light within three eclipse durations of the eclipse (else of the whole curve) on the time scale
+ * of the eclipse's branches (Winn et al. 2008, ApJ 683, 1076; see {@link CorrelatedNoise}), so that noise
+ * correlated over tens of minutes (atmosphere, guiding, spots) does not make them too small.
+ *
+ * <p>Each eclipse window is centred on the ephemeris prediction (corrected by the mean offset seen in
  * the folded light curve). An eclipse is skipped, with the reason, when its window has too few
  * points, when one branch of the eclipse has fewer than three points (one-sided), when a gap
  * longer than a quarter of the eclipse lies inside it (partial coverage), when no minimum is found
@@ -80,13 +85,27 @@ public final class MinimumFinder {
 
         List<MinimumTime> minima = new ArrayList<>();
         List<MinimumSkip> skipped = new ArrayList<>();
-        measureType(MinimumType.PRIMARY, 0.0, pWindow, pDuration, pShift, t, f, w, eph, settings, minima, skipped);
-        measureType(MinimumType.SECONDARY, sp, sWindow, sDuration, sShift, t, f, w, eph, settings, minima, skipped);
+        boolean[] inEclipse = new boolean[t.length];
+        for (int i = 0; i < t.length; i++) {
+            inEclipse[i] = Math.abs(phaseFrom(t[i] - pShift, eph, 0.0)) * p < pWindow / 2
+                    || Math.abs(phaseFrom(t[i] - sShift, eph, sp)) * p < sWindow / 2;
+        }
+        double[][] outside = CorrelatedNoise.outOfEclipseResiduals(t, f, w, inEclipse, Math.max(pDuration, sDuration));
+        measureType(MinimumType.PRIMARY, 0.0, pWindow, pDuration, pShift, t, f, w, eph, settings, outside, minima,
+                skipped);
+        measureType(MinimumType.SECONDARY, sp, sWindow, sDuration, sShift, t, f, w, eph, settings, outside, minima,
+                skipped);
         minima.sort(Comparator.comparingDouble(MinimumTime::cycle).thenComparing(MinimumTime::method));
         skipped.sort(Comparator.comparingDouble(MinimumSkip::predictedTimeDays));
         return new MinimumSearchResult(minima, skipped, pWindow, sWindow, pDuration, sDuration,
                 primary == null ? Double.NaN : primary.depth(), secondary == null ? Double.NaN : secondary.depth(),
                 lc.timeScale());
+    }
+
+    /** Phase of time {@code time} from the eclipse at {@code phase}, in [−0.5, 0.5). */
+    private static double phaseFrom(double time, Ephemeris eph, double phase) {
+        double c = eph.cyclesSinceEpoch(time) - phase;
+        return c - Math.floor(c + 0.5);
     }
 
     private static double clampShift(double shift, double duration) {
@@ -99,8 +118,8 @@ public final class MinimumFinder {
     }
 
     private static void measureType(MinimumType type, double phase, double window, double duration, double shift,
-            double[] t, double[] f, double[] w, Ephemeris eph, MinimumSettings settings, List<MinimumTime> minima,
-            List<MinimumSkip> skipped) {
+            double[] t, double[] f, double[] w, Ephemeris eph, MinimumSettings settings, double[][] outside,
+            List<MinimumTime> minima, List<MinimumSkip> skipped) {
         double half = window / 2;
         double branch = duration / 2;
         double search = SEARCH_FRACTION * duration;
@@ -138,6 +157,7 @@ public final class MinimumFinder {
             return;
         }
         MinimumTemplate template = buildTemplate(candidates, t, f, w, branch, half);
+        double globalBeta = CorrelatedNoise.beta(outside[0], outside[1], branch);
         for (Candidate c : candidates) {
             int count = c.to() - c.from();
             if (template == null) {
@@ -163,7 +183,14 @@ public final class MinimumFinder {
                         significance, settings.minDepthSignificance())));
                 continue;
             }
-            double kvwError = replicaError(x, fc, wc, fit, c.kvw().trialStepDays(), search, half,
+            double reach = half + 6 * duration;
+            double[][] near = CorrelatedNoise.between(outside, c.centre() - reach, c.centre() + reach);
+            double beta = CorrelatedNoise.beta(near[0], near[1], branch);
+            if (!Double.isFinite(beta)) {
+                beta = globalBeta;
+            }
+            double inflate = Double.isFinite(beta) ? Math.max(1, beta) : 1;
+            double kvwError = inflate * replicaError(x, fc, wc, fit, c.kvw().trialStepDays(), search, half,
                     MIN_REFLECT_FRACTION * duration, settings, c.cycle());
             if (Double.isNaN(kvwError)) {
                 skipped.add(new MinimumSkip(c.cycle(), type, c.predicted(), count,
@@ -171,10 +198,10 @@ public final class MinimumFinder {
                                 + "is unknown; the template time is kept"));
             } else {
                 minima.add(new MinimumTime(c.cycle(), type, c.centre() + c.kvw().timeDays(), kvwError,
-                        MinimumMethod.KVW, count, c.kvw().classicErrorDays()));
+                        MinimumMethod.KVW, count, c.kvw().classicErrorDays(), beta, false));
             }
-            minima.add(new MinimumTime(c.cycle(), type, c.centre() + fit.timeDays(), fit.errorDays(),
-                    MinimumMethod.TEMPLATE, count, Double.NaN));
+            minima.add(new MinimumTime(c.cycle(), type, c.centre() + fit.timeDays(), inflate * fit.errorDays(),
+                    MinimumMethod.TEMPLATE, count, Double.NaN, beta, false));
         }
     }
 
@@ -300,7 +327,7 @@ public final class MinimumFinder {
     }
 
     /** First index with t[i] ≥ value. */
-    private static int lowerBound(double[] t, double value) {
+    static int lowerBound(double[] t, double value) {
         int lo = 0;
         int hi = t.length;
         while (lo < hi) {

@@ -15,9 +15,14 @@ import java.util.Objects;
  * @param nPoints number of data points used
  * @param classicErrorDays for {@link MinimumMethod#KVW}: the error from the original
  *     Kwee–van Woerden formula, days, kept for comparison; NaN otherwise
+ * @param beta the correlated-noise factor β of the eclipse's residuals (Winn et al. 2008, see
+ *     {@link CorrelatedNoise}); {@code errorDays} already includes the factor max(1, β); NaN when
+ *     it could not be estimated (too few points) or the timing came from elsewhere
+ * @param partial true when the eclipse was only partly covered and its time comes from the
+ *     template (whose shape is fixed by the well-covered eclipses) alone
  */
 public record MinimumTime(double cycle, MinimumType type, double timeDays, double errorDays,
-        MinimumMethod method, int nPoints, double classicErrorDays) {
+        MinimumMethod method, int nPoints, double classicErrorDays, double beta, boolean partial) {
 
     public MinimumTime {
         Objects.requireNonNull(type, "type");
@@ -26,6 +31,6 @@ public record MinimumTime(double cycle, MinimumType type, double timeDays, doubl
 
     /** A timing from elsewhere (e.g. a list of published minima): no point count, no classic error. */
     public static MinimumTime of(double cycle, MinimumType type, double timeDays, double errorDays, MinimumMethod method) {
-        return new MinimumTime(cycle, type, timeDays, errorDays, method, 0, Double.NaN);
+        return new MinimumTime(cycle, type, timeDays, errorDays, method, 0, Double.NaN, Double.NaN, false);
     }
 }

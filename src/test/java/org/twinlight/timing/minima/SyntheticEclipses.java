@@ -10,7 +10,10 @@ import org.twinlight.time.TimeScale;
 /**
  * Synthetic light curves for the timing tests: flat out of eclipse, each eclipse a smooth
  * symmetric dip 1 − D·(1 − (x/h)²)^1.5 for |x| &lt; h (x time from minimum, h half-duration),
- * white Gaussian noise. Times of the minima may be displaced per eclipse (an O−C).
+ * white Gaussian noise plus, optionally, Gaussian noise correlated in time with an exponential
+ * covariance σ²·exp(−|Δt|/τ) (an Ornstein–Uhlenbeck process, drawn exactly at uneven times by
+ * x_{i+1} = ρx_i + √(1 − ρ²)·σ·N(0,1), ρ = exp(−Δt/τ); e.g. Gillespie 1996, Phys. Rev. E 54,
+ * 2084, eq. 1.3; from memory). Times of the minima may be displaced per eclipse (an O−C).
  */
 final class SyntheticEclipses {
     double periodDays = 2.5;
@@ -21,6 +24,10 @@ final class SyntheticEclipses {
     double halfDurationDays = 0.08;
     double cadenceDays = 2.0 / 1440;
     double noise = 0.002;
+    /** σ of the correlated part of the noise (0: white noise only). */
+    double redNoise = 0.0;
+    /** τ of the correlated part, days. */
+    double redTimescaleDays = 30.0 / 1440;
     /** Displacement (days) of the minimum of cycle E (E integer primary, n + 0.5 secondary). */
     DoubleUnaryOperator ocDays = e -> 0.0;
     /** Fractional dip (0 out of eclipse, 1 at the deepest) at time x from minimum, half-duration h. */
@@ -55,9 +62,14 @@ final class SyntheticEclipses {
         double[] t = new double[n];
         double[] f = new double[n];
         double[] e = new double[n];
+        double red = redNoise * random.nextGaussian();
         for (int i = 0; i < n; i++) {
             t[i] = startDays + i * cadenceDays;
-            f[i] = flux(t[i]) + noise * random.nextGaussian();
+            if (i > 0) {
+                double rho = Math.exp(-(t[i] - t[i - 1]) / redTimescaleDays);
+                red = rho * red + Math.sqrt(1 - rho * rho) * redNoise * random.nextGaussian();
+            }
+            f[i] = flux(t[i]) + noise * random.nextGaussian() + (redNoise > 0 ? red : 0);
             e[i] = noise;
         }
         return new LightCurve("synthetic", null, TimeScale.BJD_TDB, ValueKind.FLUX, t, f, e, Map.of());
