@@ -257,7 +257,8 @@ public final class MinimaCommand implements Callable<Integer> {
                     t.type().label(), t.timeDays(), seconds(a == null ? Double.NaN : a.errorDays()),
                     seconds(b == null ? Double.NaN : b.errorDays()),
                     seconds(a == null || b == null ? Double.NaN : b.timeDays() - a.timeDays()), t.nPoints(),
-                    Double.isFinite(t.beta()) ? String.format(Locale.ROOT, "%.2f", t.beta()) : "-");
+                    (Double.isFinite(t.beta()) ? String.format(Locale.ROOT, "%.2f", t.beta()) : "-")
+                            + (t.partial() ? "  partly covered: time from the template" : ""));
         }
         if (search.secondaryDeeperThanPrimary()) {
             o.printf(Locale.ROOT, "warning: the eclipses at phase %.3f (depth %.3f) are deeper than those at phase 0 "

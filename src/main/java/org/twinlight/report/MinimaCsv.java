@@ -9,7 +9,8 @@ import org.twinlight.timing.minima.MinimumTime;
 
 /**
  * Writes {@code minima.csv}: {@code cycle,type,time,error,method,n_points} (the contract's
- * columns, in that order), then {@code beta}, the correlated-noise factor; one row per minimum and
+ * columns, in that order), then {@code beta}, the correlated-noise factor, and {@code coverage} ({@code full} or
+ * {@code partial}); one row per minimum and
  * method, after {@code #} comment lines naming the time scale, the source and the ephemeris
  * of the cycle numbers. Times and errors in days; cycle an integer for primary, n + 0.5 for
  * secondary.
@@ -29,13 +30,15 @@ public final class MinimaCsv {
                 ephemeris.epochDays(), ephemeris.periodDays()));
         sb.append("# beta: correlated-noise factor of the light near the eclipse (Winn et al. 2008); the error "
                 + "already includes max(1, beta); empty when it could not be estimated\n");
-        sb.append("cycle,type,time,error,method,n_points,beta\n");
+        sb.append("# coverage: full, or partial (time from the template, shape and depth fixed by the well-covered "
+                + "eclipses)\n");
+        sb.append("cycle,type,time,error,method,n_points,beta,coverage\n");
         for (MinimumTime m : minima) {
             sb.append(cycleText(m.cycle())).append(',').append(m.type().label()).append(',')
                     .append(String.format(Locale.ROOT, "%.8f,%.8f", m.timeDays(), m.errorDays())).append(',')
                     .append(m.method().label()).append(',').append(m.nPoints()).append(',')
                     .append(Double.isFinite(m.beta()) ? String.format(Locale.ROOT, "%.2f", m.beta()) : "")
-                    .append('\n');
+                    .append(',').append(m.partial() ? "partial" : "full").append('\n');
         }
         AtomicFiles.writeString(target, sb.toString());
     }

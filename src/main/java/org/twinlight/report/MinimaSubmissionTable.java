@@ -55,6 +55,8 @@ public final class MinimaSubmissionTable {
         sb.append("#             TPL = least-squares fit of a symmetric template, error from the covariance\n");
         sb.append("#             scaled by the reduced chi-square\n");
         sb.append("#   NPTS      number of data points used\n");
+        sb.append("#   COVER     full = the eclipse was covered; part = partly covered, TIME from the template\n");
+        sb.append("#             with its shape and depth fixed by the well-covered eclipses\n");
         if (withFilter) {
             sb.append("#   FILTER    filter or photometric band\n");
         }
@@ -62,8 +64,8 @@ public final class MinimaSubmissionTable {
             sb.append("#   OBSERVER  observer (to the end of the line)\n");
         }
         sb.append("#\n");
-        sb.append(String.format(Locale.ROOT, "%-17s %-10s %-4s %-9s %-10s %-6s %-5s", "#TIME", "ERROR", "TYPE", "CYCLE",
-                "O-C", "METHOD", "NPTS"));
+        sb.append(String.format(Locale.ROOT, "%-17s %-10s %-4s %-9s %-10s %-6s %-5s %-5s", "#TIME", "ERROR", "TYPE",
+                "CYCLE", "O-C", "METHOD", "NPTS", "COVER"));
         if (withFilter) {
             sb.append(String.format(Locale.ROOT, " %-8s", "FILTER"));
         }
@@ -73,9 +75,9 @@ public final class MinimaSubmissionTable {
         sb.append('\n');
         for (MinimumTime m : c.minima()) {
             double oc = m.timeDays() - c.ephemeris().timeOf(m.cycle());
-            sb.append(String.format(Locale.ROOT, "%-17.8f %-10.8f %-4s %-9s %+-10.6f %-6s %-5d", m.timeDays(),
+            sb.append(String.format(Locale.ROOT, "%-17.8f %-10.8f %-4s %-9s %+-10.6f %-6s %-5d %-5s", m.timeDays(),
                     m.errorDays(), m.type() == MinimumType.PRIMARY ? "P" : "S", MinimaCsv.cycleText(m.cycle()), oc,
-                    m.method() == MinimumMethod.KVW ? "KVW" : "TPL", m.nPoints()));
+                    m.method() == MinimumMethod.KVW ? "KVW" : "TPL", m.nPoints(), m.partial() ? "part" : "full"));
             if (withFilter) {
                 sb.append(String.format(Locale.ROOT, " %-8s", c.filter().trim().replace(' ', '_')));
             }

@@ -31,10 +31,14 @@ import org.twinlight.photometry.LightCurve;
  * correlated over tens of minutes (atmosphere, guiding, spots) does not make them too small.
  *
  * <p>Each eclipse window is centred on the ephemeris prediction (corrected by the mean offset seen in
- * the folded light curve). An eclipse is skipped, with the reason, when its window has too few
- * points, when one branch of the eclipse has fewer than three points (one-sided), when a gap
- * longer than a quarter of the eclipse lies inside it (partial coverage), when no minimum is found
- * near the expected time, or when its depth is not significant.
+ * the folded light curve). An eclipse whose coverage is one-sided (a branch with fewer than three
+ * points) or partial (a gap longer than a quarter of the eclipse inside it) but which holds at
+ * least six points inside the eclipse is timed from the template alone, with its shape and
+ * fractional depth fixed by the well-covered eclipses of the same type (at least two), and flagged
+ * {@link MinimumTime#partial()}; the Kwee–van Woerden method, which needs both branches, is not
+ * applied to it. An eclipse is skipped, with the reason, when its window has too few points, when
+ * it is partly covered and cannot be timed so, when no minimum is found near the expected time, or
+ * when its depth is not significant.
  */
 public final class MinimumFinder {
 
@@ -44,6 +48,13 @@ public final class MinimumFinder {
     private static final double MAX_GAP_FRACTION = 0.25;
     /** The minimum is searched within ± this fraction of the eclipse duration around the prediction. */
     private static final double SEARCH_FRACTION = 0.15;
+    /** Out-of-eclipse light within this many eclipse durations of an eclipse gives its β. */
+    private static final double NOISE_REACH_DURATIONS = 6;
+    /** Fewest points inside a partly covered eclipse for a model-based time. */
+    private static final int MIN_POINTS_PARTIAL = 6;
+    /** Fewest well-covered eclipses of a type that fix the template for the partly covered ones. */
+    private static final int MIN_FULL_FOR_PARTIAL = 2;
+    private static final String TOO_FEW = "too few points";
     /** Smallest half-width of the reflected part of the eclipse, fraction of the eclipse duration. */
     private static final double MIN_REFLECT_FRACTION = 0.25;
 
@@ -126,6 +137,7 @@ public final class MinimumFinder {
         long first = (long) Math.floor(eph.cyclesSinceEpoch(t[0]) - phase) - 1;
         long last = (long) Math.ceil(eph.cyclesSinceEpoch(t[t.length - 1]) - phase) + 1;
         List<Candidate> candidates = new ArrayList<>();
+        List<Partial> partials = new ArrayList<>();
         for (long n = first; n <= last; n++) {
             double cycle = n + type.cycleOffset();
             double predicted = eph.timeOf(n + phase);
@@ -138,7 +150,11 @@ public final class MinimumFinder {
             }
             String why = coverageProblem(t, from, to, centre, branch, settings.minPoints());
             if (why != null) {
-                skipped.add(new MinimumSkip(cycle, type, predicted, count, why));
+                if (!why.startsWith(TOO_FEW) && inEclipseCount(t, from, to, centre, branch) >= MIN_POINTS_PARTIAL) {
+                    partials.add(new Partial(cycle, predicted, centre, from, to, why));
+                } else {
+                    skipped.add(new MinimumSkip(cycle, type, predicted, count, why));
+                }
                 continue;
             }
             double[] x = new double[count];
@@ -153,11 +169,9 @@ public final class MinimumFinder {
             }
             candidates.add(new Candidate(cycle, predicted, centre, from, to, kvw));
         }
-        if (candidates.isEmpty()) {
-            return;
-        }
-        MinimumTemplate template = buildTemplate(candidates, t, f, w, branch, half);
+        MinimumTemplate template = candidates.isEmpty() ? null : buildTemplate(candidates, t, f, w, branch, half);
         double globalBeta = CorrelatedNoise.beta(outside[0], outside[1], branch);
+        List<Double> fractionalDepths = new ArrayList<>();
         for (Candidate c : candidates) {
             int count = c.to() - c.from();
             if (template == null) {
@@ -183,12 +197,8 @@ public final class MinimumFinder {
                         significance, settings.minDepthSignificance())));
                 continue;
             }
-            double reach = half + 6 * duration;
-            double[][] near = CorrelatedNoise.between(outside, c.centre() - reach, c.centre() + reach);
-            double beta = CorrelatedNoise.beta(near[0], near[1], branch);
-            if (!Double.isFinite(beta)) {
-                beta = globalBeta;
-            }
+            fractionalDepths.add(fit.depth() / (fit.model()[0] + fit.depth() * template.value(x[0] - fit.timeDays())));
+            double beta = betaNear(outside, c.centre(), half + NOISE_REACH_DURATIONS * duration, branch, globalBeta);
             double inflate = Double.isFinite(beta) ? Math.max(1, beta) : 1;
             double kvwError = inflate * replicaError(x, fc, wc, fit, c.kvw().trialStepDays(), search, half,
                     MIN_REFLECT_FRACTION * duration, settings, c.cycle());
@@ -203,13 +213,75 @@ public final class MinimumFinder {
             minima.add(new MinimumTime(c.cycle(), type, c.centre() + fit.timeDays(), inflate * fit.errorDays(),
                     MinimumMethod.TEMPLATE, count, Double.NaN, beta, false));
         }
+        measurePartials(type, partials, template, fractionalDepths, t, f, w, duration, outside, globalBeta, minima,
+                skipped);
+    }
+
+    /** A partly covered eclipse: enough points inside it for a fit of the fixed template. */
+    private record Partial(double cycle, double predicted, double centre, int from, int to, String coverage) {
+    }
+
+    /**
+     * Times of partly covered eclipses from the template whose shape and fractional depth are
+     * fixed by the well-covered eclipses of the same type (at least {@link #MIN_FULL_FOR_PARTIAL});
+     * the depth's scatter between those eclipses enters the error.
+     */
+    private static void measurePartials(MinimumType type, List<Partial> partials, MinimumTemplate template,
+            List<Double> fractionalDepths, double[] t, double[] f, double[] w, double duration, double[][] outside,
+            double globalBeta, List<MinimumTime> minima, List<MinimumSkip> skipped) {
+        double half = duration * MinimumSettings.WINDOW_PER_DURATION / 2;
+        double depth = fractionalDepths.stream().mapToDouble(Double::doubleValue).average().orElse(Double.NaN);
+        double depthSigma = fractionalDepths.size() < 2 ? Double.NaN : Math.sqrt(fractionalDepths.stream()
+                .mapToDouble(d -> (d - depth) * (d - depth)).sum() / (fractionalDepths.size() - 1));
+        for (Partial pc : partials) {
+            int count = pc.to() - pc.from();
+            if (template == null || fractionalDepths.size() < MIN_FULL_FOR_PARTIAL) {
+                skipped.add(new MinimumSkip(pc.cycle(), type, pc.predicted(), count, pc.coverage() + "; fewer than "
+                        + MIN_FULL_FOR_PARTIAL + " well-covered " + type.label() + " eclipses to fix the template "
+                        + "for a model-based time"));
+                continue;
+            }
+            double[] x = new double[count];
+            for (int i = 0; i < count; i++) {
+                x[i] = t[pc.from() + i] - pc.centre();
+            }
+            double[] fc = Arrays.copyOfRange(f, pc.from(), pc.to());
+            double[] wc = Arrays.copyOfRange(w, pc.from(), pc.to());
+            MinimumTemplateFit.Result fit = MinimumTemplateFit.fitFixedDepth(x, fc, wc, template, depth, depthSigma,
+                    0.0, SEARCH_FRACTION * duration);
+            if (!fit.ok()) {
+                skipped.add(new MinimumSkip(pc.cycle(), type, pc.predicted(), count, pc.coverage() + "; "
+                        + fit.failure()));
+                continue;
+            }
+            double beta = betaNear(outside, pc.centre(), half + NOISE_REACH_DURATIONS * duration, duration / 2,
+                    globalBeta);
+            double inflate = Double.isFinite(beta) ? Math.max(1, beta) : 1;
+            minima.add(new MinimumTime(pc.cycle(), type, pc.centre() + fit.timeDays(), inflate * fit.errorDays(),
+                    MinimumMethod.TEMPLATE, count, Double.NaN, beta, true));
+        }
+    }
+
+    /** β of the out-of-eclipse light within {@code reach} of {@code centre}, else the whole curve's. */
+    private static double betaNear(double[][] outside, double centre, double reach, double branch, double globalBeta) {
+        double[][] near = CorrelatedNoise.between(outside, centre - reach, centre + reach);
+        double beta = CorrelatedNoise.beta(near[0], near[1], branch);
+        return Double.isFinite(beta) ? beta : globalBeta;
+    }
+
+    private static int inEclipseCount(double[] t, int from, int to, double centre, double branch) {
+        int n = 0;
+        for (int i = from; i < to; i++) {
+            n += Math.abs(t[i] - centre) < branch ? 1 : 0;
+        }
+        return n;
     }
 
     /** Why an eclipse window cannot be measured, or null when its coverage is good. */
     static String coverageProblem(double[] t, int from, int to, double centre, double branch, int minPoints) {
         int count = to - from;
         if (count < minPoints) {
-            return "too few points: " + count + " in the window, need at least " + minPoints;
+            return TOO_FEW + ": " + count + " in the window, need at least " + minPoints;
         }
         int before = 0;
         int after = 0;

@@ -113,6 +113,110 @@ final class MinimumTemplateFit {
         return new Result(t, sigmaT, b, sigmaB, model, red, null);
     }
 
+    /**
+     * Fit of a partly covered eclipse with the template's shape and fractional depth fixed by the
+     * well-covered eclipses: flux = a·(1 − D·ψ(t − T)), baseline a and time T free. The error of T
+     * is the covariance of (a, T) scaled by χ²/(n − 2), combined in quadrature with the shift of T
+     * when D moves by ±σ_D (the scatter of the depths of the well-covered eclipses).
+     *
+     * @param depth D, fractional depth at ψ = 1
+     * @param depthSigma σ_D
+     * @return the result; its {@code depth} is D·a (flux units), {@code depthError} its share of σ_D
+     */
+    static Result fitFixedDepth(double[] x, double[] f, double[] w, MinimumTemplate template, double depth,
+            double depthSigma, double guess, double searchHalfDays) {
+        int n = x.length;
+        if (n < 6) {
+            return Result.failed("too few points for the template fit (" + n + ")");
+        }
+        double t = fixedDepthTime(x, f, w, template, depth, guess, searchHalfDays);
+        if (Double.isNaN(t)) {
+            return Result.failed(String.format(Locale.ROOT,
+                    "template fit: minimum not found within ±%.1f min of the expected time", searchHalfDays * 1440));
+        }
+        double a = fixedDepthBaseline(x, f, w, template, depth, t);
+        double[][] fisher = new double[2][2];
+        double chi2 = 0;
+        double[] model = new double[n];
+        for (int i = 0; i < n; i++) {
+            double psi = template.value(x[i] - t);
+            model[i] = a * (1 - depth * psi);
+            double r = f[i] - model[i];
+            chi2 += w[i] * r * r;
+            double[] grad = {1 - depth * psi, a * depth * template.slope(x[i] - t)};
+            for (int p = 0; p < 2; p++) {
+                for (int q = 0; q < 2; q++) {
+                    fisher[p][q] += w[i] * grad[p] * grad[q];
+                }
+            }
+        }
+        double det = fisher[0][0] * fisher[1][1] - fisher[0][1] * fisher[1][0];
+        if (!(det > 0)) {
+            return Result.failed("template fit: the time of minimum is not constrained by the covered part");
+        }
+        double red = chi2 / (n - 2);
+        double sigmaFit = Math.sqrt(fisher[0][0] / det * red);
+        double shift = 0;
+        if (depthSigma > 0) {
+            double up = fixedDepthTime(x, f, w, template, depth + depthSigma, t, searchHalfDays);
+            double down = fixedDepthTime(x, f, w, template, Math.max(1e-6, depth - depthSigma), t, searchHalfDays);
+            shift = Double.isNaN(up) || Double.isNaN(down) ? Double.POSITIVE_INFINITY : Math.abs(up - down) / 2;
+        }
+        double sigmaT = Math.hypot(sigmaFit, shift);
+        if (!Double.isFinite(sigmaT) || !(sigmaT > 0)) {
+            return Result.failed("template fit: the time of minimum is not constrained by the covered part");
+        }
+        double sigmaA = Math.sqrt(fisher[1][1] / det * red);
+        return new Result(t, sigmaT, depth * a, depth * sigmaA + depthSigma * a, model, red, null);
+    }
+
+    /** The best T for a fixed fractional depth, NaN when it lies at the edge of the search. */
+    private static double fixedDepthTime(double[] x, double[] f, double[] w, MinimumTemplate template, double depth,
+            double guess, double searchHalfDays) {
+        double lo = guess - searchHalfDays;
+        double step = 2 * searchHalfDays / (SCAN - 1);
+        int best = 0;
+        double bestChi2 = Double.POSITIVE_INFINITY;
+        for (int j = 0; j < SCAN; j++) {
+            double c = fixedDepthChi2(x, f, w, template, depth, lo + j * step);
+            if (c < bestChi2) {
+                bestChi2 = c;
+                best = j;
+            }
+        }
+        if (best == 0 || best == SCAN - 1) {
+            return Double.NaN;
+        }
+        return new BrentOptimizer(1e-12, 1e-9 * step).optimize(new MaxEval(200),
+                new UnivariateObjectiveFunction(tt -> fixedDepthChi2(x, f, w, template, depth, tt)),
+                GoalType.MINIMIZE, new SearchInterval(lo + (best - 1) * step, lo + (best + 1) * step,
+                        lo + best * step)).getPoint();
+    }
+
+    private static double fixedDepthChi2(double[] x, double[] f, double[] w, MinimumTemplate template, double depth,
+            double t) {
+        double a = fixedDepthBaseline(x, f, w, template, depth, t);
+        double sum = 0;
+        for (int i = 0; i < x.length; i++) {
+            double r = f[i] - a * (1 - depth * template.value(x[i] - t));
+            sum += w[i] * r * r;
+        }
+        return sum;
+    }
+
+    /** a = Σw·f·g / Σw·g², g = 1 − D·ψ(x − T). */
+    private static double fixedDepthBaseline(double[] x, double[] f, double[] w, MinimumTemplate template,
+            double depth, double t) {
+        double sfg = 0;
+        double sgg = 0;
+        for (int i = 0; i < x.length; i++) {
+            double g = 1 - depth * template.value(x[i] - t);
+            sfg += w[i] * f[i] * g;
+            sgg += w[i] * g * g;
+        }
+        return sfg / sgg;
+    }
+
     /** χ²(T) with the baseline and depth solved for. */
     static double chi2(double[] x, double[] f, double[] w, MinimumTemplate template, double t) {
         double[] ab = linear(x, f, w, template, t);

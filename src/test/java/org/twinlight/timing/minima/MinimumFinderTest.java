@@ -141,12 +141,16 @@ class MinimumFinderTest {
                 || (t > t25 + 0.01 && t < t25 + 0.07));
         MinimumSearchResult r = MinimumFinder.find(lc, new Ephemeris(sim.epochDays, sim.periodDays),
                 MinimumSettings.defaults().withBootstrapSamples(40));
-        assertThat(skipOf(r, 1).reason()).startsWith("partial coverage");
-        assertThat(skipOf(r, 2).reason()).startsWith("one-sided coverage");
+        // One well-covered primary cannot fix the template for the partly covered ones.
+        assertThat(skipOf(r, 1).reason()).startsWith("partial coverage").contains("well-covered");
+        assertThat(skipOf(r, 2).reason()).startsWith("one-sided coverage").contains("well-covered");
         assertThat(skipOf(r, 3).reason()).startsWith("too few points");
-        assertThat(skipOf(r, 2.5).reason()).startsWith("partial coverage");
+        // Three well-covered secondaries do: cycle 2.5 gets a model-based time, flagged.
         assertThat(r.minima(MinimumMethod.TEMPLATE)).extracting(MinimumTime::cycle)
-                .containsExactly(0.0, 0.5, 1.5, 3.5);
+                .containsExactly(0.0, 0.5, 1.5, 2.5, 3.5);
+        assertThat(r.minima(MinimumMethod.TEMPLATE)).filteredOn(MinimumTime::partial)
+                .extracting(MinimumTime::cycle).containsExactly(2.5);
+        assertThat(r.minima(MinimumMethod.KVW)).extracting(MinimumTime::cycle).doesNotContain(2.5);
         for (MinimumTime m : r.minima()) {
             assertThat(m.timeDays()).isCloseTo(sim.trueTime(m.cycle()), within(5 * m.errorDays()));
         }
