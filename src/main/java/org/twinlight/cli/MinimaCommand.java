@@ -8,6 +8,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.concurrent.Callable;
+import java.util.function.DoubleUnaryOperator;
 import org.twinlight.BadInputException;
 import org.twinlight.WorkFailedException;
 import org.twinlight.photometry.LightCurve;
@@ -16,6 +17,9 @@ import org.twinlight.report.InputDigest;
 import org.twinlight.report.MinimaCsv;
 import org.twinlight.report.MinimaSubmissionTable;
 import org.twinlight.report.OcPlot;
+import org.twinlight.time.SkyDirection;
+import org.twinlight.time.TimeConverter;
+import org.twinlight.time.TimeScale;
 import org.twinlight.timing.Ephemeris;
 import org.twinlight.timing.minima.EphemerisFit;
 import org.twinlight.timing.minima.EphemerisParameter;
@@ -96,9 +100,31 @@ public final class MinimaCommand implements Callable<Integer> {
     @Option(names = "--observer", paramLabel = "NAME", description = "Observer, written into the submission table.")
     String observer;
 
-    @Option(names = "--filter", paramLabel = "NAME", description = "Filter or band: the band measured when the file holds "
-            + "several, and the filter written into the submission table (default: the file's band, if it names one).")
-    String filter;
+    @Option(names = "--band", paramLabel = "NAME", description = "Band: the one measured when the file holds "
+            + "several, and the band written into the submission table (default: the file's band, if it names one).")
+    String band;
+
+    @Option(names = "--object", paramLabel = "NAME", description = "Name of the star, written into the submission table.")
+    String object;
+
+    @Option(names = "--ra", paramLabel = "RA",
+            description = "Target right ascension, J2000: decimal degrees or hh:mm:ss.s (as for the time command). "
+                    + "Needed by --to-scale from or to HJD/BJD; written into the submission table.")
+    String ra;
+
+    @Option(names = "--dec", paramLabel = "DEC",
+            description = "Target declination, J2000: decimal degrees or ±dd:mm:ss.s.")
+    String dec;
+
+    @Option(names = "--to-scale", paramLabel = "SCALE",
+            description = "Convert the times of minimum (and --epoch) from the data's time scale to this one, "
+                    + "e.g. BJD_TDB, before the O−C and every output (needs the data's scale declared).")
+    String toScale;
+
+    @Option(names = "--allow-unknown-scale",
+            description = "Write the results even though the time scale of the data is unknown (by default this is "
+                    + "refused: times of minimum without a time scale cannot be compared with others).")
+    boolean allowUnknownScale;
 
     @Spec
     CommandSpec spec;
@@ -126,6 +152,12 @@ public final class MinimaCommand implements Callable<Integer> {
         if (minPoints < 6) {
             throw new BadInputException("option --min-points: " + minPoints + " is not allowed; expected ≥ 6");
         }
+        checkOneLine("--observer", observer);
+        checkOneLine("--object", object);
+        checkOneLine("--band", band);
+        TimeScale target = toScale == null ? null : TimeScale.parse(toScale).filter(TimeScale::isKnown)
+                .orElseThrow(() -> new BadInputException("option --to-scale: unknown time scale '" + toScale
+                        + "'; expected one of " + TimeScale.acceptedLabels().replace(", unknown", "")));
         Ephemeris given = new Ephemeris(epochDays, periodDays);
         MinimumSettings settings = MinimumSettings.defaults().withSecondaryPhase(secondaryPhase).withMinPoints(minPoints);
         if (window != null) {
@@ -135,14 +167,43 @@ public final class MinimaCommand implements Callable<Integer> {
         OutputTargets.checkDirectory(out, List.of("minima.csv", "ephemeris.json", "o-c.png", "minima-submission.txt"),
                 List.of(file));
         LightCurve lc = oneBand(photometry.readBands(file, o));
-        String filterName = filter != null ? filter : lc.band();
+        String bandName = band != null ? band : lc.band();
+        TimeScale dataScale = lc.timeScale();
+        TimeScale scale = target != null ? target : dataScale;
+        if (target != null && !dataScale.isKnown()) {
+            throw BadInputException.at(file, null, null, "the time scale of the times is not declared, so they cannot "
+                    + "be converted to " + target.label() + "; declare it with --time-scale (e.g. HJD_UTC or JD_UTC)");
+        }
+        if (!scale.isKnown() && !allowUnknownScale) {
+            throw BadInputException.at(file, null, null, "the time scale of the times is not declared, and times of "
+                    + "minimum without one cannot be compared with others; declare it with --time-scale (e.g. "
+                    + "HJD_UTC), convert with --to-scale BJD_TDB, or write the results anyway with "
+                    + "--allow-unknown-scale");
+        }
+        boolean convert = target != null && !target.equals(dataScale);
+        SkyDirection direction = null;
+        if (convert && TimeConverter.needsDirection(dataScale, target)) {
+            direction = SkyPositionOptions.parse(ra, dec, "option --to-scale: converting " + dataScale.label()
+                    + " to " + target.label());
+        } else if (ra != null || dec != null) {
+            direction = SkyPositionOptions.parse(ra, dec, "writing the coordinates into the submission table");
+        }
         MinimumSearchResult search = MinimumFinder.find(lc, given, settings);
+        if (convert) {
+            SkyDirection d = direction;
+            DoubleUnaryOperator toTarget = t -> convertTime(t, dataScale, target, d);
+            search = search.inTimeScale(toTarget, target);
+            given = new Ephemeris(toTarget.applyAsDouble(epochDays), periodDays);
+            o.printf(Locale.ROOT, "times of minimum and --epoch converted from %s to %s (epoch %.6f)%n",
+                    dataScale.label(), target.label(), given.epochDays());
+        }
         List<MinimumTime> timings = search.minima(chosen);
         if (timings.isEmpty()) {
             throw new WorkFailedException("no eclipse could be measured in " + file + " (" + search.skipped().size()
                     + " skipped: " + reasonSummary(search.skipped()) + "); check --period/--epoch, or widen --window");
         }
         OcResult oc = null;
+        Ephemeris givenEphemeris = given;
         long cycles = timings.stream().mapToDouble(MinimumTime::cycle).distinct().count();
         if (cycles >= 2) {
             oc = OcAnalysis.analyse(timings, given, true);
@@ -153,47 +214,72 @@ public final class MinimaCommand implements Callable<Integer> {
         Ephemeris reference = oc != null ? oc.reference() : given;
         List<OcPoint> points = oc != null ? oc.points() : timings.stream()
                 .map(m -> new OcPoint(m.cycle(), m.type(), m.timeDays(), m.errorDays(),
-                        m.timeDays() - given.timeOf(m.cycle())))
+                        m.timeDays() - givenEphemeris.timeOf(m.cycle())))
                 .toList();
 
         String version = VersionInfo.version();
         String source = file.getFileName().toString();
-        MinimaCsv.write(out.resolve("minima.csv"), search.minima(), lc.timeScale(), source, given);
+        MinimaCsv.write(out.resolve("minima.csv"), search.minima(), scale, source, given);
         EphemerisJson.write(out.resolve("ephemeris.json"), new EphemerisJson.Content(given, oc, search, chosen,
                 secondaryPhase, source, InputDigest.sha256(file), version));
         OcPlot.write(out.resolve("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
-                reference.epochDays(), reference.periodDays()), lc.timeScale(), chosen.label());
+                reference.epochDays(), reference.periodDays()), scale, chosen.label());
         MinimaSubmissionTable.write(out.resolve("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,
-                lc.timeScale(), source, reference, observer, filterName, version));
+                scale, convert ? dataScale : null, source, reference, object, direction, observer, bandName, version));
 
-        printSummary(o, lc, search, chosen, oc);
+        printSummary(o, lc, scale, search, chosen, oc);
         o.flush();
         return 0;
     }
 
-    /** The light curve of the band named by --filter, or the only one; several without --filter is bad input. */
+    /** The light curve of the band named by --band, or the only one; several without --band is bad input. */
     private LightCurve oneBand(Map<String, LightCurve> bands) {
-        if (bands.size() == 1 && filter == null) {
+        if (bands.size() == 1 && band == null) {
             return bands.values().iterator().next();
         }
-        if (filter != null) {
-            LightCurve chosen = bands.get(filter);
+        if (band != null) {
+            LightCurve chosen = bands.get(band);
             if (chosen != null) {
                 return chosen;
             }
             if (bands.size() == 1) {
-                // A file without a band column: --filter only labels the table.
+                // A file without a band column: --band only labels the table.
                 LightCurve only = bands.values().iterator().next();
                 if (only.band() == null || only.band().isEmpty()) {
                     return only;
                 }
             }
-            throw BadInputException.at(file, null, photometry.bandColumn, "no band '" + filter
+            throw BadInputException.at(file, null, photometry.bandColumn, "no band '" + band
                     + "' in the file; it holds " + String.join(", ", bands.keySet()));
         }
         throw BadInputException.at(file, null, photometry.bandColumn, "the file holds " + bands.size() + " bands ("
-                + String.join(", ", bands.keySet()) + "); choose one with --filter, times of minimum are measured "
+                + String.join(", ", bands.keySet()) + "); choose one with --band, times of minimum are measured "
                 + "band by band");
+    }
+
+    /** A converted time; a time outside the converter's range is bad input naming the option. */
+    private static double convertTime(double time, TimeScale from, TimeScale to, SkyDirection direction) {
+        try {
+            return TimeConverter.convert(time, from, to, direction);
+        } catch (BadInputException e) {
+            throw new BadInputException("option --to-scale: " + String.format(Locale.ROOT, "%.6f", time) + ": "
+                    + e.getMessage());
+        }
+    }
+
+    /** Text that goes into an output file must stay on one line: no control characters. */
+    static void checkOneLine(String option, String text) {
+        if (text == null) {
+            return;
+        }
+        for (int i = 0; i < text.length(); i++) {
+            char c = text.charAt(i);
+            if (Character.isISOControl(c) || c == '\u2028' || c == '\u2029') {
+                throw new BadInputException(String.format(Locale.ROOT, "option %s: the text contains a control "
+                        + "character (U+%04X) at position %d; give it on one line, without line breaks or tabs",
+                        option, (int) c, i + 1));
+            }
+        }
     }
 
     /** A phase (plain number below 1) or a duration with a unit d, h or min, as days. */
@@ -240,10 +326,10 @@ public final class MinimaCommand implements Callable<Integer> {
         return String.join(", ", parts);
     }
 
-    private void printSummary(PrintWriter o, LightCurve lc, MinimumSearchResult search, MinimumMethod chosen,
-            OcResult oc) {
-        String scale = lc.timeScale().label();
-        o.printf(Locale.ROOT, "%s: %d points, time scale %s%n", lc.source(), lc.size(), scale);
+    private void printSummary(PrintWriter o, LightCurve lc, TimeScale timeScale, MinimumSearchResult search,
+            MinimumMethod chosen, OcResult oc) {
+        String scale = timeScale.label();
+        o.printf(Locale.ROOT, "%s: %d points, time scale %s%n", lc.source(), lc.size(), lc.timeScale().label());
         o.printf(Locale.ROOT, "eclipse windows: primary %.1f min, secondary %.1f min%n",
                 search.primaryWindowDays() * 1440, search.secondaryWindowDays() * 1440);
         o.printf(Locale.ROOT, "%-9s %-9s %-17s %-10s %-10s %-10s %-7s %s%n", "cycle", "type", "time (" + scale + ")",

@@ -123,23 +123,7 @@ public final class TimeCommand implements Callable<Integer> {
         if (!TimeConverter.needsDirection(fromScale, toScale)) {
             return null;
         }
-        if (ra == null || dec == null) {
-            throw new BadInputException("converting " + fromScale.label() + " to " + toScale.label()
-                    + " needs the target's position: give --ra and --dec (J2000; degrees, or hh:mm:ss.s and ±dd:mm:ss)");
-        }
-        double raDeg;
-        double decDeg;
-        try {
-            raDeg = SkyDirection.parseRaDeg(ra);
-        } catch (IllegalArgumentException e) {
-            throw new BadInputException("option --ra: " + e.getMessage());
-        }
-        try {
-            decDeg = SkyDirection.parseDecDeg(dec);
-        } catch (IllegalArgumentException e) {
-            throw new BadInputException("option --dec: " + e.getMessage());
-        }
-        return new SkyDirection(raDeg, decDeg);
+        return SkyPositionOptions.parse(ra, dec, "converting " + fromScale.label() + " to " + toScale.label());
     }
 
     /** Shortest text that reads back to the same double, never in exponent form. */

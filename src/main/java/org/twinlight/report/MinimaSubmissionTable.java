@@ -3,6 +3,7 @@ package org.twinlight.report;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
+import org.twinlight.time.SkyDirection;
 import org.twinlight.time.TimeScale;
 import org.twinlight.timing.Ephemeris;
 import org.twinlight.timing.minima.MinimumMethod;
@@ -11,7 +12,8 @@ import org.twinlight.timing.MinimumType;
 
 /**
  * Writes {@code minima-submission.txt}: one line per time of minimum, white-space separated fixed
- * columns after a {@code #} header that states the time scale and explains every column, ready
+ * columns after a {@code #} header that names the object and its position, states the time scale
+ * (and the scale it was converted from) and explains every column, ready
  * to send to a timing database or a colleague. The observer, when given, is the last column so
  * that it may contain spaces.
  */
@@ -22,14 +24,18 @@ public final class MinimaSubmissionTable {
      *
      * @param minima the minima (one method)
      * @param timeScale time scale of the times
+     * @param convertedFrom the data's time scale when the times were converted to {@code timeScale}, else null
      * @param source the photometry file
      * @param ephemeris ephemeris of the cycle numbers and O−C
+     * @param object name of the star, or null
+     * @param position its J2000 position, or null
      * @param observer observer name, or null
      * @param filter filter or band name, or null
      * @param softwareVersion twinlight's version
      */
-    public record Content(List<MinimumTime> minima, TimeScale timeScale, String source, Ephemeris ephemeris,
-            String observer, String filter, String softwareVersion) {
+    public record Content(List<MinimumTime> minima, TimeScale timeScale, TimeScale convertedFrom, String source,
+            Ephemeris ephemeris, String object, SkyDirection position, String observer, String filter,
+            String softwareVersion) {
     }
 
     private MinimaSubmissionTable() {
@@ -41,8 +47,21 @@ public final class MinimaSubmissionTable {
         StringBuilder sb = new StringBuilder();
         sb.append("# Times of minimum of an eclipsing binary, measured with twinlight ").append(c.softwareVersion())
                 .append('\n');
+        sb.append("# Object: ").append(c.object() == null || c.object().isBlank() ? "not given" : c.object().trim())
+                .append('\n');
+        if (c.position() != null) {
+            sb.append(String.format(Locale.ROOT, "# Position (J2000): RA %s = %.6f deg, Dec %s = %+.6f deg%n",
+                    sexagesimal(c.position().raDeg() / 15, false, 2), c.position().raDeg(),
+                    sexagesimal(c.position().decDeg(), true, 1), c.position().decDeg()));
+        } else {
+            sb.append("# Position (J2000): not given\n");
+        }
         sb.append("# Source photometry: ").append(c.source()).append('\n');
-        sb.append("# Time scale: ").append(c.timeScale().label()).append(describe(c.timeScale())).append('\n');
+        sb.append("# Time scale: ").append(c.timeScale().label()).append(describe(c.timeScale()));
+        if (c.convertedFrom() != null) {
+            sb.append("; converted from ").append(c.convertedFrom().label()).append(" by twinlight");
+        }
+        sb.append('\n');
         sb.append(String.format(Locale.ROOT, "# Ephemeris of CYCLE and O-C: Min I = %.8f + %.10f * E%n",
                 c.ephemeris().epochDays(), c.ephemeris().periodDays()));
         sb.append("#\n# Columns (separated by spaces; lines starting with # are comments):\n");
@@ -87,6 +106,18 @@ public final class MinimaSubmissionTable {
             sb.append('\n');
         }
         AtomicFiles.writeString(target, sb.toString());
+    }
+
+    /** hh:mm:ss.ss or ±dd:mm:ss.s, with {@code decimals} decimals of the seconds. */
+    static String sexagesimal(double value, boolean signed, int decimals) {
+        double scale = Math.pow(10, decimals);
+        long total = Math.round(Math.abs(value) * 3600 * scale);
+        long units = total / (3600 * (long) scale);
+        long minutes = total / (60 * (long) scale) % 60;
+        double seconds = (total % (60 * (long) scale)) / scale;
+        String text = String.format(Locale.ROOT, "%02d:%02d:%0" + (3 + decimals) + "." + decimals + "f", units,
+                minutes, seconds);
+        return signed ? (value < 0 ? "-" : "+") + text : text;
     }
 
     private static String describe(TimeScale scale) {

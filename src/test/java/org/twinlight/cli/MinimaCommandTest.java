@@ -34,19 +34,24 @@ class MinimaCommandTest {
      * coverage, timed from the template) and a period change Q = 3e-5 d.
      */
     static Path writeLightCurve(Path dir) throws IOException {
+        return writeLightCurve(dir, EPOCH);
+    }
+
+    /** The same light curve with its primary of cycle 0 at {@code epoch}. */
+    static Path writeLightCurve(Path dir, double epoch) throws IOException {
         StringBuilder sb = new StringBuilder("time,flux,flux_err\n");
         Random random = new Random(3);
         double q = 3e-5;
-        for (double t = EPOCH - 0.5; t < EPOCH + 20; t += 2.0 / 1440) {
-            double tPrimary4 = EPOCH + 4 * PERIOD;
+        for (double t = epoch - 0.5; t < epoch + 20; t += 2.0 / 1440) {
+            double tPrimary4 = epoch + 4 * PERIOD;
             if (t > tPrimary4 - 0.02 && t < tPrimary4 + 0.3) {
                 continue;
             }
-            long n = Math.round((t - EPOCH) / PERIOD);
+            long n = Math.round((t - epoch) / PERIOD);
             double f = 1;
             for (long k = n - 1; k <= n + 1; k++) {
-                f -= 0.3 * dip(t - (EPOCH + k * PERIOD + q * k * k));
-                f -= 0.12 * dip(t - (EPOCH + (k + 0.5) * PERIOD + q * k * k));
+                f -= 0.3 * dip(t - (epoch + k * PERIOD + q * k * k));
+                f -= 0.12 * dip(t - (epoch + (k + 0.5) * PERIOD + q * k * k));
             }
             sb.append(String.format(Locale.ROOT, "%.7f,%.6f,0.002%n", t, f + 0.002 * random.nextGaussian()));
         }
@@ -74,7 +79,8 @@ class MinimaCommandTest {
         StringWriter e = new StringWriter();
         int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
                 "--epoch", String.valueOf(EPOCH), "--out", out.toString(), "--time-scale", "BJD_TDB",
-                "--observer", "A. Nonymous", "--filter", "V");
+                "--observer", "A. Nonymous", "--band", "V", "--object", "Synthetic Pair 1", "--ra", "12:34:56.78",
+                "--dec", "-05:06:07.8");
         assertThat(code).as(e.toString()).isZero();
         for (String name : List.of("minima.csv", "ephemeris.json", "o-c.png", "minima-submission.txt")) {
             assertThat(out.resolve(name)).isRegularFile();
@@ -107,7 +113,8 @@ class MinimaCommandTest {
 
         String table = Files.readString(out.resolve("minima-submission.txt"));
         assertThat(table).contains("Time scale: BJD_TDB").contains("OBSERVER").contains("A. Nonymous")
-                .contains("FILTER");
+                .contains("FILTER").contains("# Object: Synthetic Pair 1")
+                .contains("RA 12:34:56.78 = 188.736583 deg, Dec -05:06:07.8 = -5.102167 deg");
         assertThat(o.toString()).contains("partly covered").contains("preferred: quadratic")
                 .doesNotContain("warning");
         List<String> rows = table.lines().filter(l -> !l.startsWith("#")).toList();
@@ -132,7 +139,7 @@ class MinimaCommandTest {
         StringWriter e = new StringWriter();
         int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
                 "--epoch", String.valueOf(EPOCH), "--out", out.toString(), "--method", "kvw", "--oc-reference",
-                "fitted", "--window", "300min");
+                "fitted", "--window", "300min", "--allow-unknown-scale");
         assertThat(code).as(e.toString()).isZero();
         JsonNode json = new ObjectMapper().readTree(out.resolve("ephemeris.json").toFile());
         assertThat(json.get("method").asText()).isEqualTo("kvw");
@@ -150,7 +157,8 @@ class MinimaCommandTest {
         StringWriter o = new StringWriter();
         StringWriter e = new StringWriter();
         int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
-                "--epoch", String.valueOf(EPOCH + PERIOD / 2), "--out", dir.resolve("out").toString());
+                "--epoch", String.valueOf(EPOCH + PERIOD / 2), "--out", dir.resolve("out").toString(),
+                "--allow-unknown-scale");
         assertThat(code).as(e.toString()).isZero();
         assertThat(o.toString()).contains("warning").contains("epoch may be a secondary minimum");
     }
@@ -184,9 +192,9 @@ class MinimaCommandTest {
         assertThat(r.err()).contains("--period").contains("-2.5");
     }
 
-    /** A two-band file is measured band by band: --filter chooses the band, without it the bands are listed. */
+    /** A two-band file is measured band by band: --band chooses the band, without it the bands are listed. */
     @Test
-    void severalBandsNeedAFilter(@TempDir Path dir) throws IOException {
+    void severalBandsNeedABand(@TempDir Path dir) throws IOException {
         List<String> lines = Files.readAllLines(writeLightCurve(dir));
         StringBuilder sb = new StringBuilder("time,flux,flux_err,band\n");
         for (int i = 1; i < lines.size(); i++) {
@@ -196,13 +204,13 @@ class MinimaCommandTest {
         Files.writeString(file, sb.toString());
         Run without = runWithPeriod(dir, file, "2.5");
         assertThat(without.code()).isEqualTo(2);
-        assertThat(without.err()).contains("two-bands.csv").contains("--filter").contains("V").contains("R");
+        assertThat(without.err()).contains("two-bands.csv").contains("--band").contains("V").contains("R");
 
         StringWriter o = new StringWriter();
         StringWriter e = new StringWriter();
         Path out = dir.resolve("out-r");
         int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD), "--epoch",
-                String.valueOf(EPOCH), "--out", out.toString(), "--filter", "R");
+                String.valueOf(EPOCH), "--out", out.toString(), "--band", "R", "--allow-unknown-scale");
         assertThat(code).as(e.toString()).isZero();
         assertThat(Files.readString(out.resolve("minima-submission.txt"))).contains("FILTER").contains(" R ");
     }
@@ -214,6 +222,84 @@ class MinimaCommandTest {
         cl.setOut(new PrintWriter(o));
         assertThat(cl.execute("--help")).isZero();
         assertThat(o.toString()).contains("--secondary-phase").contains("--window").contains("--method")
-                .contains("--observer").contains("--filter").contains("--time-scale");
+                .contains("--observer").contains("--band").contains("--time-scale").contains("--object")
+                .contains("--ra").contains("--dec").contains("--to-scale").contains("--allow-unknown-scale")
+                .doesNotContain("--filter");
+    }
+
+    /** Runs minima on {@code file} with the extra arguments; the output directory is DIR/out. */
+    private static Run run(Path dir, Path file, double epoch, String... extra) {
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        List<String> args = new java.util.ArrayList<>(List.of("minima", file.toString(), "--period",
+                String.valueOf(PERIOD), "--epoch", String.valueOf(epoch), "--out", dir.resolve("out").toString()));
+        args.addAll(List.of(extra));
+        int code = commandLine(o, e).execute(args.toArray(new String[0]));
+        return new Run(code, e.toString());
+    }
+
+    @Test
+    void unknownTimeScaleIsRefusedUnlessAllowed(@TempDir Path dir) throws IOException {
+        Path file = writeLightCurve(dir);
+        Run r = run(dir, file, EPOCH);
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("synthetic-system.csv").contains("time scale").contains("--time-scale")
+                .contains("--allow-unknown-scale").doesNotContain("Exception");
+        assertThat(dir.resolve("out").resolve("minima-submission.txt")).doesNotExist();
+        Run converted = run(dir, file, EPOCH, "--to-scale", "BJD_TDB");
+        assertThat(converted.code()).isEqualTo(2);
+        assertThat(converted.err()).contains("cannot be converted").contains("--time-scale");
+    }
+
+    /** Text that reaches an output file must stay on one line: a newline is refused naming the option. */
+    @Test
+    void controlCharactersInTextOptionsAreRefused(@TempDir Path dir) throws IOException {
+        Path file = writeLightCurve(dir);
+        for (String option : List.of("--observer", "--object", "--band")) {
+            Run r = run(dir, file, EPOCH, "--time-scale", "BJD_TDB", option, "A. Nonymous\n2460001.0 0.001 P");
+            assertThat(r.code()).as(option).isEqualTo(2);
+            assertThat(r.err()).contains("option " + option).contains("control character").contains("U+000A");
+        }
+        assertThat(run(dir, file, EPOCH, "--time-scale", "BJD_TDB", "--to-scale", "NOT_A_SCALE").err())
+                .contains("option --to-scale").contains("NOT_A_SCALE");
+        Run noPosition = run(dir, file, EPOCH, "--time-scale", "JD_UTC", "--to-scale", "BJD_TDB");
+        assertThat(noPosition.code()).isEqualTo(2);
+        assertThat(noPosition.err()).contains("--ra").contains("--dec");
+        assertThat(run(dir, file, EPOCH, "--time-scale", "BJD_TDB", "--ra", "25:00:00", "--dec", "10").err())
+                .contains("option --ra");
+    }
+
+    /**
+     * --to-scale BJD_TDB converts the times of minimum. Outside value: ERFA (pyerfa 2.0.0.1, row 2 of
+     * src/test/resources/org/twinlight/time/erfa-reference.csv): at MJD_UTC 55646.5465312767 towards
+     * RA 3.064188574°, Dec −2.956755898°, BMJD_TDB = 55646.541538662830, a shift of −431.360 s. The
+     * primary of cycle 0 sits at that instant; its converted time must differ from the unconverted
+     * one by that shift within 0.05 s (the shift changes by less than 9 s a day, and the measured
+     * minimum lies within seconds of the reference instant).
+     */
+    @Test
+    void timesAreConvertedToBarycentricDynamicalTime(@TempDir Path dir) throws IOException {
+        double epoch = 2400000.5 + 55646.5465312767;
+        Path file = writeLightCurve(dir, epoch);
+        Run plain = run(dir, file, epoch, "--time-scale", "JD_UTC");
+        assertThat(plain.code()).as(plain.err()).isZero();
+        double before = cycleZeroTime(dir.resolve("out").resolve("minima.csv"));
+        Path again = dir.resolve("again");
+        Files.createDirectories(again);
+        Run converted = run(again, file, epoch, "--time-scale", "JD_UTC", "--to-scale", "BJD_TDB", "--ra",
+                "3.064188574", "--dec", "-2.956755898", "--object", "Synthetic Pair 1");
+        assertThat(converted.code()).as(converted.err()).isZero();
+        double after = cycleZeroTime(again.resolve("out").resolve("minima.csv"));
+        double expectedShiftSeconds = (55646.541538662830 - 55646.5465312767) * 86400;
+        assertThat((after - before) * 86400).isCloseTo(expectedShiftSeconds, within(0.05));
+        assertThat(Files.readString(again.resolve("out").resolve("minima-submission.txt")))
+                .contains("Time scale: BJD_TDB").contains("converted from JD_UTC");
+        JsonNode json = new ObjectMapper().readTree(again.resolve("out").resolve("ephemeris.json").toFile());
+        assertThat(json.get("timeScale").asText()).isEqualTo("BJD_TDB");
+    }
+
+    private static double cycleZeroTime(Path csv) throws IOException {
+        return Files.readAllLines(csv).stream().filter(l -> l.startsWith("0,primary,") && l.contains(",template,"))
+                .mapToDouble(l -> Double.parseDouble(l.split(",")[2])).findFirst().orElseThrow();
     }
 }

@@ -1,6 +1,7 @@
 package org.twinlight.timing.minima;
 
 import java.util.List;
+import java.util.function.DoubleUnaryOperator;
 import org.twinlight.time.TimeScale;
 
 /**
@@ -23,6 +24,21 @@ public record MinimumSearchResult(List<MinimumTime> minima, List<MinimumSkip> sk
     public MinimumSearchResult {
         minima = List.copyOf(minima);
         skipped = List.copyOf(skipped);
+    }
+
+    /**
+     * The same result with every time (minima and predicted times of skipped eclipses) mapped by
+     * {@code convert} into {@code scale}; errors, windows and durations are unchanged (a change of
+     * time scale alters intervals by less than 1 part in 10⁴).
+     */
+    public MinimumSearchResult inTimeScale(DoubleUnaryOperator convert, TimeScale scale) {
+        List<MinimumTime> m = minima.stream().map(t -> new MinimumTime(t.cycle(), t.type(),
+                convert.applyAsDouble(t.timeDays()), t.errorDays(), t.method(), t.nPoints(), t.classicErrorDays(),
+                t.beta(), t.partial())).toList();
+        List<MinimumSkip> s = skipped.stream().map(k -> new MinimumSkip(k.cycle(), k.type(),
+                convert.applyAsDouble(k.predictedTimeDays()), k.nPoints(), k.reason())).toList();
+        return new MinimumSearchResult(m, s, primaryWindowDays, secondaryWindowDays, primaryDurationDays,
+                secondaryDurationDays, primaryDepth, secondaryDepth, scale);
     }
 
     /** True when the eclipses at the secondary phase are clearly deeper than those at phase 0. */

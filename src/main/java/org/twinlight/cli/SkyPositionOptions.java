@@ -1,0 +1,39 @@
+package org.twinlight.cli;
+
+import org.twinlight.BadInputException;
+import org.twinlight.time.SkyDirection;
+
+/**
+ * Reads a target's J2000 position given as {@code --ra} and {@code --dec} (decimal degrees, or
+ * {@code hh:mm:ss.s} and {@code ±dd:mm:ss}), the same way for every command.
+ */
+final class SkyPositionOptions {
+
+    private SkyPositionOptions() {
+    }
+
+    /**
+     * @param why what the position is needed for, for the message when one of them is missing
+     * @return the direction
+     * @throws BadInputException naming the option that is missing or cannot be read
+     */
+    static SkyDirection parse(String ra, String dec, String why) {
+        if (ra == null || dec == null) {
+            throw new BadInputException(why + " needs the target's position: give --ra and --dec (J2000; degrees, "
+                    + "or hh:mm:ss.s and ±dd:mm:ss)");
+        }
+        double raDeg;
+        double decDeg;
+        try {
+            raDeg = SkyDirection.parseRaDeg(ra);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("option --ra: " + e.getMessage());
+        }
+        try {
+            decDeg = SkyDirection.parseDecDeg(dec);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("option --dec: " + e.getMessage());
+        }
+        return new SkyDirection(raDeg, decDeg);
+    }
+}
