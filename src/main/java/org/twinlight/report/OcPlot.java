@@ -60,7 +60,7 @@ public final class OcPlot {
             boolean linearAnswer = preferred.model() == EphemerisModel.LINEAR;
             addCurve(chart, result.linear(), MinimumType.PRIMARY, minE, maxE,
                     linearAnswer ? "linear ephemeris: no significant period change" : "linear ephemeris",
-                    linearAnswer ? PlotFiles.MODEL : Color.GRAY, linearAnswer ? 2.2f : 1.2f);
+                    linearAnswer ? Color.DARK_GRAY : Color.GRAY, linearAnswer ? 2.2f : 1.2f);
             if (result.linear().parameter("secondaryOffset").isPresent()) {
                 addCurve(chart, result.linear(), MinimumType.SECONDARY, minE, maxE,
                         "linear ephemeris, secondary minima (fitted offset)", PlotFiles.SECOND.brighter(), 1.2f);
