@@ -206,9 +206,9 @@ public final class MinimaCommand implements Callable<Integer> {
         Ephemeris givenEphemeris = given;
         long cycles = timings.stream().mapToDouble(MinimumTime::cycle).distinct().count();
         if (cycles >= 2) {
-            oc = OcAnalysis.analyse(timings, given, true);
+            oc = OcAnalysis.analyse(timings, given, true, search.secondaryOffsetDays());
             if (fittedReference) {
-                oc = OcAnalysis.analyse(timings, oc.linear().linearPart(), true);
+                oc = OcAnalysis.analyse(timings, oc.linear().linearPart(), true, search.secondaryOffsetDays());
             }
         }
         Ephemeris reference = oc != null ? oc.reference() : given;

@@ -61,10 +61,10 @@ public final class OcPlot {
             addCurve(chart, result.linear(), MinimumType.PRIMARY, minE, maxE,
                     linearAnswer ? "linear ephemeris: no significant period change" : "linear ephemeris",
                     linearAnswer ? Color.DARK_GRAY : Color.GRAY, linearAnswer ? 2.2f : 1.2f);
-            if (result.linear().parameter("secondaryOffset").isPresent()) {
-                addCurve(chart, result.linear(), MinimumType.SECONDARY, minE, maxE,
-                        "linear ephemeris, secondary minima (fitted offset)", PlotFiles.SECOND.brighter(), 1.2f);
-            }
+            result.linear().parameter("secondaryOffset").ifPresent(offset -> addCurve(chart, result.linear(),
+                    MinimumType.SECONDARY, minE, maxE, "linear ephemeris, secondary minima ("
+                            + (Double.isNaN(offset.uncertainty()) ? "offset fixed at the measured phase" : "fitted offset")
+                            + ")", PlotFiles.SECOND.brighter(), 1.2f));
             if (!linearAnswer) {
                 String name = String.format(Locale.ROOT, "%s (ΔBIC = %.1f against linear, > %.0f; checks passed)",
                         preferred.model() == EphemerisModel.QUADRATIC ? "quadratic ephemeris" : "light-time orbit",

@@ -53,6 +53,19 @@ public record EphemerisFit(EphemerisModel model, Ephemeris reference, double off
         return new Ephemeris(reference.epochDays() + offsetDays, reference.periodDays() + periodCorrectionDays);
     }
 
+    /**
+     * This fit, made on O−C from which a fixed secondary offset {@code secondaryDays} had been
+     * subtracted, expressed against the original O−C: the offset is added back and listed as a
+     * parameter without uncertainty (it was not fitted).
+     */
+    public EphemerisFit withFixedSecondaryOffset(double secondaryDays) {
+        List<EphemerisParameter> p = new java.util.ArrayList<>(parameters);
+        p.removeIf(q -> q.name().equals("secondaryOffset"));
+        p.add(new EphemerisParameter("secondaryOffset", secondaryDays, Double.NaN, "d"));
+        return new EphemerisFit(model, reference, offsetDays, periodCorrectionDays, quadraticDays, secondaryDays,
+                lightTime, p, chi2, n, freeParameters, bic, errorScale);
+    }
+
     /** χ²/(n − k), NaN when n ≤ k. */
     public double reducedChi2() {
         return n > freeParameters ? chi2 / (n - freeParameters) : Double.NaN;

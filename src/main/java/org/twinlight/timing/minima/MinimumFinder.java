@@ -110,7 +110,8 @@ public final class MinimumFinder {
         skipped.sort(Comparator.comparingDouble(MinimumSkip::predictedTimeDays));
         return new MinimumSearchResult(minima, skipped, pWindow, sWindow, pDuration, sDuration,
                 primary == null ? Double.NaN : primary.depth(), secondary == null ? Double.NaN : secondary.depth(),
-                lc.timeScale());
+                lc.timeScale(), primary == null || secondary == null ? Double.NaN
+                        : (sp - 0.5) * p + secondary.centreShiftDays() - primary.centreShiftDays());
     }
 
     /** Phase of time {@code time} from the eclipse at {@code phase}, in [−0.5, 0.5). */

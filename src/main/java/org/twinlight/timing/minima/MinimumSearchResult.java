@@ -16,10 +16,13 @@ import org.twinlight.time.TimeScale;
  * @param primaryDepth fractional depth of the primary eclipse in the folded light curve, NaN when not seen
  * @param secondaryDepth the same for the secondary eclipse
  * @param timeScale time scale of every time here
+ * @param secondaryOffsetDays displacement of the secondary eclipses from phase 0.5 seen in the
+ *     folded light curve, days (secondary minus primary centre, minus half a period); NaN when
+ *     either eclipse is not seen
  */
 public record MinimumSearchResult(List<MinimumTime> minima, List<MinimumSkip> skipped, double primaryWindowDays,
         double secondaryWindowDays, double primaryDurationDays, double secondaryDurationDays, double primaryDepth,
-        double secondaryDepth, TimeScale timeScale) {
+        double secondaryDepth, TimeScale timeScale, double secondaryOffsetDays) {
 
     public MinimumSearchResult {
         minima = List.copyOf(minima);
@@ -38,7 +41,7 @@ public record MinimumSearchResult(List<MinimumTime> minima, List<MinimumSkip> sk
         List<MinimumSkip> s = skipped.stream().map(k -> new MinimumSkip(k.cycle(), k.type(),
                 convert.applyAsDouble(k.predictedTimeDays()), k.nPoints(), k.reason())).toList();
         return new MinimumSearchResult(m, s, primaryWindowDays, secondaryWindowDays, primaryDurationDays,
-                secondaryDurationDays, primaryDepth, secondaryDepth, scale);
+                secondaryDurationDays, primaryDepth, secondaryDepth, scale, secondaryOffsetDays);
     }
 
     /** True when the eclipses at the secondary phase are clearly deeper than those at phase 0. */

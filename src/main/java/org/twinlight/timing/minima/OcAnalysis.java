@@ -36,6 +36,8 @@ public final class OcAnalysis {
 
     /** Fewest timings for which the light-time model is tried. */
     public static final int MIN_TIMINGS_FOR_LIGHT_TIME = 15;
+    /** Largest widening of the period's error that fitting the secondary offset may cost (common practice, no source). */
+    public static final double MAX_PERIOD_ERROR_INFLATION = 2.0;
     /** Days per Julian year, for dP/dt in seconds per year (IAU: 365.25 d). */
     private static final double DAYS_PER_JULIAN_YEAR = 365.25;
     private static final double SECONDS_PER_DAY = 86400.0;
@@ -63,6 +65,19 @@ public final class OcAnalysis {
      * @throws WorkFailedException when there are fewer than two cycles to fit
      */
     public static OcResult analyse(List<MinimumTime> minima, Ephemeris reference, boolean tryLightTime) {
+        return analyse(minima, reference, tryLightTime, Double.NaN);
+    }
+
+    /**
+     * As {@link #analyse(List, Ephemeris, boolean)}, with the displacement of the secondaries from
+     * phase 0.5 measured elsewhere (e.g. in the folded light curve), days, or NaN when unknown. It
+     * is used only when the timings cannot fit that displacement without losing the period:
+     * when fitting it would widen the period's error more than {@link #MAX_PERIOD_ERROR_INFLATION}
+     * times (primaries and secondaries from different seasons), it is fixed at this value (at 0
+     * when unknown), with a note.
+     */
+    public static OcResult analyse(List<MinimumTime> minima, Ephemeris reference, boolean tryLightTime,
+            double measuredSecondaryOffsetDays) {
         checkTimings(minima);
         List<MinimumTime> sorted = new ArrayList<>(minima);
         sorted.sort(Comparator.comparingDouble(MinimumTime::timeDays));
@@ -90,22 +105,55 @@ public final class OcAnalysis {
         }
         boolean withSecondary = anyPrimary && anySecondary && n >= 4;
         EphemerisFit linear = polynomial(EphemerisModel.LINEAR, cycle, secondary, oc, sigma, reference, withSecondary);
+        String secondaryNote = null;
+        double[] ocFit = oc.clone();
+        double fixedOffset = Double.NaN;
+        if (withSecondary) {
+            EphemerisFit pooled = polynomial(EphemerisModel.LINEAR, cycle, secondary, oc, sigma, reference, false);
+            double inflation = linear.parameter("period").orElseThrow().uncertainty()
+                    / pooled.parameter("period").orElseThrow().uncertainty();
+            if (inflation > MAX_PERIOD_ERROR_INFLATION) {
+                fixedOffset = Double.isFinite(measuredSecondaryOffsetDays) ? measuredSecondaryOffsetDays : 0;
+                secondaryNote = String.format(Locale.ROOT, "the secondary offset from phase 0.5 cannot be separated "
+                        + "from the period with these timings (fitting it would widen the period's error %.1f-fold, "
+                        + "e.g. primaries and secondaries from different seasons): it is fixed at %.2f min, %s",
+                        inflation, fixedOffset * 1440, Double.isFinite(measuredSecondaryOffsetDays)
+                                ? "the offset measured in the folded light curve" : "i.e. the secondary at phase 0.5");
+                withSecondary = false;
+                for (int i = 0; i < n; i++) {
+                    ocFit[i] -= secondary[i] ? fixedOffset : 0;
+                }
+                linear = polynomial(EphemerisModel.LINEAR, cycle, secondary, ocFit, sigma, reference, false)
+                        .withFixedSecondaryOffset(fixedOffset);
+            }
+        }
         EphemerisFit quadratic = null;
         int quadraticK = (withSecondary ? 4 : 3);
         if (n > quadraticK && distinct >= 3) {
-            quadratic = polynomial(EphemerisModel.QUADRATIC, cycle, secondary, oc, sigma, reference, withSecondary);
+            quadratic = fixed(polynomial(EphemerisModel.QUADRATIC, cycle, secondary, ocFit, sigma, reference,
+                    withSecondary), fixedOffset);
         }
         EphemerisFit lightTime = null;
         if (tryLightTime && n >= MIN_TIMINGS_FOR_LIGHT_TIME) {
-            lightTime = EphemerisLightTimeFitter.fit(cycle, secondary, oc, sigma, reference, withSecondary);
+            lightTime = fixed(EphemerisLightTimeFitter.fit(cycle, secondary, ocFit, sigma, reference, withSecondary),
+                    fixedOffset);
         }
         double[] times = new double[n];
         for (int i = 0; i < n; i++) {
             times[i] = reference.timeOf(cycle[i]);
         }
         OcModelChoice.Choice choice = OcModelChoice.choose(linear, quadratic, lightTime, times, reference.periodDays());
-        return new OcResult(reference, points, linear, quadratic, lightTime, choice.preferred(), choice.notes(),
+        List<String> notes = new ArrayList<>(choice.notes());
+        if (secondaryNote != null) {
+            notes.add(secondaryNote);
+        }
+        return new OcResult(reference, points, linear, quadratic, lightTime, choice.preferred(), notes,
                 seriesDifference(cycle, secondary, oc, sigma));
+    }
+
+    /** {@code fit} with the secondary offset fixed at {@code offsetDays}; unchanged when that is NaN or fit is null. */
+    private static EphemerisFit fixed(EphemerisFit fit, double offsetDays) {
+        return fit == null || Double.isNaN(offsetDays) ? fit : fit.withFixedSecondaryOffset(offsetDays);
     }
 
     private static void checkTimings(List<MinimumTime> minima) {

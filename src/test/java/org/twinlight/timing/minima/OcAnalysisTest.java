@@ -152,6 +152,53 @@ class OcAnalysisTest {
         assertThat(offset.value()).isCloseTo(0.003, within(4 * offset.uncertainty()));
     }
 
+    /**
+     * Primaries from one season (cycles 0–39) and secondaries from another (cycles 300–339), the
+     * secondaries 0.003 d late: fitting the offset would leave the period to the primaries alone,
+     * so it is fixed at the measured 0.003 d with a note, and the period, now fixed by the whole
+     * span, is recovered within 4σ with an error near the pooled-fit value σ_T·√(1/Σ(E − Ē)²)
+     * (weighted least squares, e.g. Press et al., Numerical Recipes 3rd ed., eq. 15.2.9),
+     * computed here.
+     */
+    @Test
+    void secondaryOffsetIsFixedWhenSeasonsDoNotOverlap() {
+        Random random = new Random(11);
+        double sigma = 2e-4;
+        List<MinimumTime> list = new ArrayList<>();
+        double[] cycles = new double[80];
+        for (int i = 0; i < 40; i++) {
+            cycles[i] = i;
+            cycles[40 + i] = 300.5 + i;
+            list.add(MinimumTime.of(i, MinimumType.PRIMARY, calculated(i) + sigma * random.nextGaussian(), sigma,
+                    MinimumMethod.TEMPLATE));
+            list.add(MinimumTime.of(300.5 + i, MinimumType.SECONDARY,
+                    calculated(300.5 + i) + 0.003 + sigma * random.nextGaussian(), sigma, MinimumMethod.TEMPLATE));
+        }
+        double mean = java.util.Arrays.stream(cycles).average().orElseThrow();
+        double sxx = java.util.Arrays.stream(cycles).map(c -> (c - mean) * (c - mean)).sum();
+        double pooledSigma = sigma / Math.sqrt(sxx);
+        OcResult r = OcAnalysis.analyse(list, REFERENCE, false, 0.003);
+        EphemerisParameter period = r.linear().parameter("period").orElseThrow();
+        assertThat(period.value()).isCloseTo(3.2145678, within(4 * period.uncertainty()));
+        assertThat(period.uncertainty()).isCloseTo(pooledSigma, within(0.3 * pooledSigma));
+        assertThat(r.linear().parameter("secondaryOffset").orElseThrow().value()).isEqualTo(0.003);
+        assertThat(r.linear().parameter("secondaryOffset").orElseThrow().uncertainty()).isNaN();
+        assertThat(r.modelNotes()).anyMatch(n -> n.contains("cannot be separated") && n.contains("4.32 min"));
+
+        // Interleaved primaries and secondaries fit the offset themselves.
+        List<MinimumTime> interleaved = new ArrayList<>();
+        for (int i = 0; i < 20; i++) {
+            interleaved.add(MinimumTime.of(i, MinimumType.PRIMARY, calculated(i) + sigma * random.nextGaussian(),
+                    sigma, MinimumMethod.TEMPLATE));
+            interleaved.add(MinimumTime.of(i + 0.5, MinimumType.SECONDARY,
+                    calculated(i + 0.5) + 0.003 + sigma * random.nextGaussian(), sigma, MinimumMethod.TEMPLATE));
+        }
+        OcResult free = OcAnalysis.analyse(interleaved, REFERENCE, false, 0.0);
+        assertThat(free.modelNotes()).noneMatch(n -> n.contains("cannot be separated"));
+        EphemerisParameter fitted = free.linear().parameter("secondaryOffset").orElseThrow();
+        assertThat(fitted.value()).isCloseTo(0.003, within(4 * fitted.uncertainty()));
+    }
+
     @Test
     void collidingCyclesAreRefusedNamingTheCycle() {
         double t1 = REFERENCE.timeOf(12) + 0.01;
