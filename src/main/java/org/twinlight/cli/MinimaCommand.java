@@ -346,6 +346,7 @@ public final class MinimaCommand implements Callable<Integer> {
                     (Double.isFinite(t.beta()) ? String.format(Locale.ROOT, "%.2f", t.beta()) : "-")
                             + (t.partial() ? "  partly covered: time from the template" : ""));
         }
+        search.notes().forEach(n -> o.println("note: " + n));
         if (search.secondaryDeeperThanPrimary()) {
             o.printf(Locale.ROOT, "warning: the eclipses at phase %.3f (depth %.3f) are deeper than those at phase 0 "
                     + "(depth %.3f): the epoch may be a secondary minimum; add %.6f d to --epoch to count the deeper "

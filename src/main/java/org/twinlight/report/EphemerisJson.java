@@ -66,6 +66,9 @@ public final class EphemerisJson {
         root.put("method", c.method().label());
         // where secondaries were looked for, and where the linear ephemeris puts them (offset fitted)
         root.put("secondaryPhaseAssumed", c.secondaryPhase());
+        root.put("secondaryPhaseUsed", c.search().secondaryPhase());
+        ArrayNode searchNotes = root.putArray("searchNotes");
+        c.search().notes().forEach(searchNotes::add);
         if (c.oc() != null) {
             c.oc().linear().parameter("secondaryOffset").ifPresent(off -> {
                 double p = c.oc().linear().parameter("period").orElseThrow().value();

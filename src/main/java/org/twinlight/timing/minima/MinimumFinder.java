@@ -48,6 +48,8 @@ public final class MinimumFinder {
     private static final double MAX_GAP_FRACTION = 0.25;
     /** The minimum is searched within ± this fraction of the eclipse duration around the prediction. */
     private static final double SEARCH_FRACTION = 0.15;
+    /** The search for a secondary elsewhere leaves out this many primary durations around phase 0. */
+    private static final double EXCLUDE_PRIMARY_DURATIONS = 0.6;
     /** Out-of-eclipse light within this many eclipse durations of an eclipse gives its β. */
     private static final double NOISE_REACH_DURATIONS = 6;
     /** Fewest points inside a partly covered eclipse for a model-based time. */
@@ -80,6 +82,33 @@ public final class MinimumFinder {
                             + "check --period and --epoch, or give the eclipse window with --window",
                     eph.epochDays(), p, lc.source()));
         }
+        List<String> notes = new ArrayList<>();
+        if (secondary == null && primary != null) {
+            // No secondary where expected: look at every other phase (an eccentric orbit can put it
+            // anywhere, even right next to the primary).
+            double exclude = EXCLUDE_PRIMARY_DURATIONS * primary.durationDays() / p;
+            MinimumProfileEstimate other = MinimumProfileEstimate.estimate(t, f, eph, 0.5, 0.5 - exclude);
+            double phase = other == null ? Double.NaN : 0.5 + other.centreShiftDays() / p;
+            if (other != null && Math.abs(phase - sp) > other.durationDays() / p) {
+                double newSpacing = Math.min(phase, 1 - phase);
+                double widest = settings.estimateWindow() ? MinimumSettings.WINDOW_PER_DURATION
+                        * Math.max(primary.durationDays(), other.durationDays()) : settings.windowDays();
+                if (widest < newSpacing * p) {
+                    notes.add(String.format(Locale.ROOT, "no secondary eclipse at phase %.4f; one is seen at phase "
+                            + "%.4f (depth %.3g) and measured there; give --secondary-phase %.4f to say so", sp, phase,
+                            other.depth(), phase));
+                    sp = phase;
+                    spacing = newSpacing;
+                    MinimumProfileEstimate narrower = MinimumProfileEstimate.estimate(t, f, eph, 0.0, spacing / 2);
+                    primary = narrower != null ? narrower : primary;
+                    secondary = MinimumProfileEstimate.estimate(t, f, eph, sp, spacing / 2);
+                } else {
+                    notes.add(String.format(Locale.ROOT, "no secondary eclipse at phase %.4f; a dip is seen at phase "
+                            + "%.4f (depth %.3g), too close to the primary to be measured with a %.4f d window",
+                            sp, phase, other.depth(), widest));
+                }
+            }
+        }
         double pWindow = settings.estimateWindow()
                 ? MinimumSettings.WINDOW_PER_DURATION * primary.durationDays() : settings.windowDays();
         double sWindow = !settings.estimateWindow() ? settings.windowDays()
@@ -111,7 +140,7 @@ public final class MinimumFinder {
         return new MinimumSearchResult(minima, skipped, pWindow, sWindow, pDuration, sDuration,
                 primary == null ? Double.NaN : primary.depth(), secondary == null ? Double.NaN : secondary.depth(),
                 lc.timeScale(), primary == null || secondary == null ? Double.NaN
-                        : (sp - 0.5) * p + secondary.centreShiftDays() - primary.centreShiftDays());
+                        : (sp - 0.5) * p + secondary.centreShiftDays() - primary.centreShiftDays(), sp, notes);
     }
 
     /** Phase of time {@code time} from the eclipse at {@code phase}, in [−0.5, 0.5). */
