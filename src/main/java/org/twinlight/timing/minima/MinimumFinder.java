@@ -187,10 +187,7 @@ public final class MinimumFinder {
                 }
                 continue;
             }
-            double[] x = new double[count];
-            for (int i = 0; i < count; i++) {
-                x[i] = t[from + i] - centre;
-            }
+            double[] x = offsets(t, from, to, centre);
             MinimumKweeVanWoerden.Result kvw = MinimumKweeVanWoerden.measure(x, Arrays.copyOfRange(f, from, to), 0.0,
                     search, half, MIN_REFLECT_FRACTION * duration);
             if (!kvw.ok()) {
@@ -209,10 +206,7 @@ public final class MinimumFinder {
                         "no " + type.label() + " eclipse is seen in the folded light curve"));
                 continue;
             }
-            double[] x = new double[count];
-            for (int i = 0; i < count; i++) {
-                x[i] = t[c.from() + i] - c.centre();
-            }
+            double[] x = offsets(t, c.from(), c.to(), c.centre());
             double[] fc = Arrays.copyOfRange(f, c.from(), c.to());
             double[] wc = Arrays.copyOfRange(w, c.from(), c.to());
             MinimumTemplateFit.Result fit = MinimumTemplateFit.fit(x, fc, wc, template, c.kvw().timeDays(), search);
@@ -271,10 +265,7 @@ public final class MinimumFinder {
                         + "for a model-based time"));
                 continue;
             }
-            double[] x = new double[count];
-            for (int i = 0; i < count; i++) {
-                x[i] = t[pc.from() + i] - pc.centre();
-            }
+            double[] x = offsets(t, pc.from(), pc.to(), pc.centre());
             double[] fc = Arrays.copyOfRange(f, pc.from(), pc.to());
             double[] wc = Arrays.copyOfRange(w, pc.from(), pc.to());
             MinimumTemplateFit.Result fit = MinimumTemplateFit.fitFixedDepth(x, fc, wc, template, depth, depthSigma,
@@ -297,6 +288,15 @@ public final class MinimumFinder {
         double[][] near = CorrelatedNoise.between(outside, centre - reach, centre + reach);
         double beta = CorrelatedNoise.beta(near[0], near[1], branch);
         return Double.isFinite(beta) ? beta : globalBeta;
+    }
+
+    /** Times t[from..to) relative to {@code centre}. */
+    private static double[] offsets(double[] t, int from, int to, double centre) {
+        double[] x = new double[to - from];
+        for (int i = 0; i < x.length; i++) {
+            x[i] = t[from + i] - centre;
+        }
+        return x;
     }
 
     private static int inEclipseCount(double[] t, int from, int to, double centre, double branch) {

@@ -4,7 +4,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.timing.Ephemeris;
@@ -25,12 +24,7 @@ public class CorrelatedNoiseTest {
             SyntheticEclipses sim = new SyntheticEclipses();
             sim.noise = white;
             sim.redNoise = red;
-            Random jitter = new Random(1000 + seed);
-            double[] oc = new double[40];
-            for (int i = 0; i < oc.length; i++) {
-                oc[i] = (jitter.nextDouble() - 0.5) * 6.0 / 1440;
-            }
-            sim.ocDays = e -> oc[(int) Math.floor(2 * e) + 4];
+            sim.randomOc(1000 + seed, 3.0, 16);
             LightCurve lc = sim.sample(sim.epochDays - 0.6, sim.epochDays + 9.5, seed);
             MinimumSearchResult r = MinimumFinder.find(lc, new Ephemeris(sim.epochDays, sim.periodDays),
                     MinimumSettings.defaults().withBootstrapSamples(60).withSeed(seed));

@@ -11,7 +11,6 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
-import java.util.Random;
 import java.util.function.DoubleBinaryOperator;
 import java.util.function.DoublePredicate;
 import java.util.stream.IntStream;
@@ -47,12 +46,7 @@ class MinimumFinderTest {
             sim.cadenceDays = cadenceMinutes / 1440;
             sim.noise = noise;
             sim.shape = shape;
-            Random jitter = new Random(1000 + seed);
-            double[] oc = new double[40];
-            for (int i = 0; i < oc.length; i++) {
-                oc[i] = (jitter.nextDouble() - 0.5) * 6.0 / 1440;
-            }
-            sim.ocDays = e -> oc[(int) Math.floor(2 * e) + 4];
+            sim.randomOc(1000 + seed, 3.0, 16);
             LightCurve sampled = sim.sample(sim.epochDays - 0.6, sim.epochDays + 9.5, seed);
             double[] stated = sampled.fluxErrors();
             for (int i = 0; i < stated.length; i++) {

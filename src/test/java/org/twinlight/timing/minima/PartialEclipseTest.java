@@ -51,12 +51,7 @@ public class PartialEclipseTest {
         int whole = 0;
         for (long seed = 1; seed <= seeds; seed++) {
             SyntheticEclipses sim = thirtyDayBinary();
-            double[] oc = new double[2 * (int) (days / sim.periodDays) + 8];
-            java.util.Random jitter = new java.util.Random(50 + seed);
-            for (int i = 0; i < oc.length; i++) {
-                oc[i] = (jitter.nextDouble() - 0.5) * 10.0 / 1440;
-            }
-            sim.ocDays = e -> oc[(int) Math.floor(2 * e) + 2];
+            sim.randomOc(50 + seed, 5.0, (int) (days / sim.periodDays) + 2);
             LightCurve lc = groundNights(sim, days, seed);
             MinimumSearchResult r = MinimumFinder.find(lc, new Ephemeris(sim.epochDays, sim.periodDays),
                     MinimumSettings.defaults().withBootstrapSamples(40).withSeed(seed));

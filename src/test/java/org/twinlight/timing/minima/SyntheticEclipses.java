@@ -38,6 +38,19 @@ final class SyntheticEclipses {
         return Math.abs(u) >= 1 ? 0 : Math.pow(1 - u * u, 1.5);
     }
 
+    /**
+     * Displaces every minimum from cycle −2 to {@code cycles} by its own random O−C, uniform within
+     * ±{@code halfRangeMinutes}.
+     */
+    void randomOc(long seed, double halfRangeMinutes, int cycles) {
+        Random jitter = new Random(seed);
+        double[] oc = new double[2 * cycles + 8];
+        for (int i = 0; i < oc.length; i++) {
+            oc[i] = (jitter.nextDouble() - 0.5) * 2 * halfRangeMinutes / 1440;
+        }
+        ocDays = e -> oc[(int) Math.floor(2 * e) + 4];
+    }
+
     /** The true time of the minimum of cycle E. */
     double trueTime(double cycle) {
         double n = Math.floor(cycle);
