@@ -41,19 +41,23 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 /**
- * {@code minima FILE --period P --epoch T0 --out DIR}: times of minimum of every covered
- * eclipse, O−C and ephemeris fits; writes {@code minima.csv}, {@code ephemeris.json},
+ * {@code minima FILE --period P --epoch T0 --out DIR [--band B] [--object NAME] [--ra R --dec D]
+ * [--to-scale SCALE] [--allow-unknown-scale]}: times of minimum of every covered eclipse, O−C and
+ * ephemeris fits; writes {@code minima.csv}, {@code ephemeris.json},
  * {@code o-c.png} and {@code minima-submission.txt}.
  */
 @Command(name = "minima", mixinStandardHelpOptions = true, sortOptions = false,
         description = {
             "Times of minimum of every primary and secondary eclipse covered by the light curve, measured by "
-                    + "Kwee & van Woerden (1956) and by a fit of a symmetric template, with honest errors; "
-                    + "O−C against the ephemeris; linear, quadratic and light-time (third body) ephemeris fits "
-                    + "compared by BIC.",
+                    + "Kwee & van Woerden (1956) and by a fit of a symmetric template, with errors widened for "
+                    + "correlated noise (the factor beta of Winn et al. 2008); partly covered eclipses are timed from "
+                    + "the template of the well-covered ones and flagged. O−C against the ephemeris; linear, "
+                    + "quadratic and light-time (third body) ephemeris fits; a period change is claimed only on "
+                    + "strong evidence (BIC lower by more than 6, Kass & Raftery 1995) and physical checks, "
+                    + "otherwise the answer is: no significant period change.",
             "Writes minima.csv, ephemeris.json, o-c.png and minima-submission.txt to --out. "
-                    + "Eclipses with too few points, one-sided or partial coverage are skipped and listed with "
-                    + "the reason."})
+                    + "Eclipses that cannot be timed are listed with the reason. Data without a declared time "
+                    + "scale are refused unless --allow-unknown-scale."})
 public final class MinimaCommand implements Callable<Integer> {
 
     @Parameters(index = "0", paramLabel = "FILE", description = "Photometry file (delimited text or FITS table).")

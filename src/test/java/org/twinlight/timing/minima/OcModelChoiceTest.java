@@ -49,9 +49,10 @@ public class OcModelChoiceTest {
     }
 
     /**
-     * Constant period, honest errors: over 100 noise sets (8 seasons of 5 timings, light-time model
-     * tried) a period change is claimed in at most 5 % (the requirement). Under the old rule
-     * (smallest BIC wins) the same sets claimed one in far more.
+     * Constant period, honest errors: over 100 noise sets (4 seasons of 5 timings, light-time model
+     * tried) a period change is claimed in at most 5 % (the requirement). The plain smallest-BIC
+     * rule claims one in more than 10 % of the same sets. OcModelChoiceBench runs 300 sets of this
+     * and two other shapes.
      */
     @Test
     void constantPeriodRarelyClaimsAChange() {
@@ -59,7 +60,7 @@ public class OcModelChoiceTest {
         int oldRuleClaims = 0;
         int sets = 100;
         for (long seed = 0; seed < sets; seed++) {
-            OcResult r = OcAnalysis.analyse(groundTimings(8, 5, 0.0005, t -> 0, new Random(seed)), REFERENCE, true);
+            OcResult r = OcAnalysis.analyse(groundTimings(4, 5, 0.0005, t -> 0, new Random(seed)), REFERENCE, true);
             if (r.periodChangeFound()) {
                 claims++;
             }
