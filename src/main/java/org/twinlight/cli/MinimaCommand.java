@@ -218,7 +218,7 @@ public final class MinimaCommand implements Callable<Integer> {
         Ephemeris reference = oc != null ? oc.reference() : given;
         List<OcPoint> points = oc != null ? oc.points() : timings.stream()
                 .map(m -> new OcPoint(m.cycle(), m.type(), m.timeDays(), m.errorDays(),
-                        m.timeDays() - givenEphemeris.timeOf(m.cycle())))
+                        m.timeDays() - givenEphemeris.timeOf(m.cycle()), m.partial()))
                 .toList();
 
         String version = VersionInfo.version();

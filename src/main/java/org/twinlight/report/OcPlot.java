@@ -19,7 +19,8 @@ import org.twinlight.timing.minima.OcResult;
 
 /**
  * The O−C diagram as a PNG: O−C in minutes against cycle number, primary minima as filled
- * circles and secondary minima as diamonds in another colour, each with its 1σ error bar; the
+ * circles and secondary minima as diamonds in another colour (triangles for partly covered
+ * eclipses), each with its 1σ error bar; the
  * fitted linear ephemeris drawn as the answer ("no significant period change") unless a quadratic
  * or light-time model passed the strong-evidence and physical checks of the O−C analysis; then
  * that curve is the thick one and the linear ephemeris a thin grey line.
@@ -76,10 +77,14 @@ public final class OcPlot {
                 }
             }
         }
-        addPoints(chart, points, MinimumType.PRIMARY, "primary (" + method + ")", PlotFiles.MODEL.darker(),
+        addPoints(chart, points, MinimumType.PRIMARY, false, "primary (" + method + ")", PlotFiles.MODEL.darker(),
                 SeriesMarkers.CIRCLE);
-        addPoints(chart, points, MinimumType.SECONDARY, "secondary (" + method + ")", PlotFiles.SECOND,
+        addPoints(chart, points, MinimumType.SECONDARY, false, "secondary (" + method + ")", PlotFiles.SECOND,
                 SeriesMarkers.DIAMOND);
+        addPoints(chart, points, MinimumType.PRIMARY, true, "primary, partly covered (template only)",
+                PlotFiles.MODEL.darker(), SeriesMarkers.TRIANGLE_UP);
+        addPoints(chart, points, MinimumType.SECONDARY, true, "secondary, partly covered (template only)",
+                PlotFiles.SECOND, SeriesMarkers.TRIANGLE_DOWN);
         PlotFiles.writePng(chart, target);
     }
 
@@ -90,9 +95,9 @@ public final class OcPlot {
                 .orElse(false);
     }
 
-    private static void addPoints(XYChart chart, List<OcPoint> points, MinimumType type, String name, Color color,
-            org.knowm.xchart.style.markers.Marker marker) {
-        List<OcPoint> sel = points.stream().filter(p -> p.type() == type).toList();
+    private static void addPoints(XYChart chart, List<OcPoint> points, MinimumType type, boolean partial, String name,
+            Color color, org.knowm.xchart.style.markers.Marker marker) {
+        List<OcPoint> sel = points.stream().filter(p -> p.type() == type && p.partial() == partial).toList();
         if (sel.isEmpty()) {
             return;
         }

@@ -97,7 +97,7 @@ public final class OcAnalysis {
             anySecondary |= secondary[i];
             oc[i] = m.timeDays() - reference.timeOf(m.cycle());
             sigma[i] = m.errorDays();
-            points.add(new OcPoint(m.cycle(), m.type(), m.timeDays(), m.errorDays(), oc[i]));
+            points.add(new OcPoint(m.cycle(), m.type(), m.timeDays(), m.errorDays(), oc[i], m.partial()));
         }
         long distinct = Arrays.stream(cycle).distinct().count();
         if (distinct < 2) {
