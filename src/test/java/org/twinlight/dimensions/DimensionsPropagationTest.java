@@ -1,0 +1,74 @@
+package org.twinlight.dimensions;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import org.junit.jupiter.api.Test;
+
+class DimensionsPropagationTest {
+
+    private static final BinaryElements CENTRAL = new BinaryElements(3.2145, 0.02, 87.5, 95.0, 118.0, 0.105, 0.071,
+            6400, 5600, Double.NaN);
+
+    private static double[][] diagonal(double... sigmas) {
+        double[][] c = new double[sigmas.length][sigmas.length];
+        for (int i = 0; i < sigmas.length; i++) {
+            c[i][i] = sigmas[i] * sigmas[i];
+        }
+        return c;
+    }
+
+    @Test
+    void aLinearQuantityGetsExactlyTheInputSpread() {
+        // R₁ = r₁·a is linear in r₁: with only r₁ uncertain, σ(R₁) = a·σ(r₁) exactly; 10,000 draws
+        // estimate a standard deviation to 0.7 % (1/√(2N)), so 3 % is a 4σ band.
+        double[][] cov = diagonal(0, 0, 0, 0, 0, 0.002, 0, 0, 0, 0);
+        DimensionsPropagation.Result r = DimensionsPropagation.propagate(CENTRAL, cov, 10_000, 7);
+        double a = r.central().get(Quantity.SEMI_MAJOR_AXIS);
+        DimensionEstimate radius = r.estimates().get(Quantity.RADIUS1);
+        assertThat(radius.uncertainty()).isCloseTo(a * 0.002, within(0.03 * a * 0.002));
+        assertThat(radius.firstOrderUncertainty()).isCloseTo(a * 0.002, within(1e-6 * a));
+        assertThat(r.estimates().get(Quantity.MASS1).uncertainty()).isLessThan(1e-9);
+    }
+
+    @Test
+    void massErrorFromTheVelocitiesFollowsTheHandbookForm() {
+        // M₁ ∝ (K₁+K₂)² K₂ (Torres et al. 2010, §3): to first order
+        // σ(M₁)/M₁ = √[(2σ₁/(K₁+K₂))² + (2/(K₁+K₂) + 1/K₂)² σ₂²] for independent K errors.
+        double s1 = 0.4;
+        double s2 = 0.6;
+        double[][] cov = diagonal(0, 0, 0, s1, s2, 0, 0, 0, 0, 0);
+        DimensionsPropagation.Result r = DimensionsPropagation.propagate(CENTRAL, cov, 10_000, 11);
+        double sum = CENTRAL.k1Kms() + CENTRAL.k2Kms();
+        double rel = Math.hypot(2 * s1 / sum, (2 / sum + 1 / CENTRAL.k2Kms()) * s2);
+        DimensionEstimate m1 = r.estimates().get(Quantity.MASS1);
+        assertThat(m1.uncertainty() / m1.value()).isCloseTo(rel, within(0.03 * rel));
+        assertThat(m1.firstOrderUncertainty() / m1.value()).isCloseTo(rel, within(0.01 * rel));
+        assertThat(m1.firstOrderDiffers()).isFalse();
+    }
+
+    @Test
+    void perfectlyCorrelatedRadiiMoveTogether() {
+        // r₁ and r₂ with correlation +1 and σ in the ratio of the values: R₂/R₁ then never changes,
+        // so the sum of radii has σ = a(σ₁+σ₂), not a√(σ₁²+σ₂²).
+        double[][] cov = new double[10][10];
+        cov[5][5] = 0.003 * 0.003;
+        cov[6][6] = 0.002 * 0.002;
+        cov[5][6] = cov[6][5] = 0.003 * 0.002;
+        DimensionsPropagation.Result r = DimensionsPropagation.propagate(CENTRAL, cov, 10_000, 3);
+        double a = r.central().get(Quantity.SEMI_MAJOR_AXIS);
+        assertThat(r.estimates().get(Quantity.RADIUS1).uncertainty()).isCloseTo(a * 0.003, within(0.03 * a * 0.003));
+        assertThat(r.estimates().get(Quantity.RADIUS2).uncertainty()).isCloseTo(a * 0.002, within(0.03 * a * 0.002));
+    }
+
+    @Test
+    void theSameSeedGivesTheSameResult() {
+        double[][] cov = diagonal(1e-6, 0.005, 0.3, 0.5, 0.7, 0.001, 0.001, 100, 120, 0);
+        DimensionsPropagation.Result a = DimensionsPropagation.propagate(CENTRAL, cov, 2000, 5);
+        DimensionsPropagation.Result b = DimensionsPropagation.propagate(CENTRAL, cov, 2000, 5);
+        assertThat(a.estimates().get(Quantity.LUMINOSITY2).uncertainty())
+                .isEqualTo(b.estimates().get(Quantity.LUMINOSITY2).uncertainty());
+        // e = 0.02 ± 0.005 keeps almost every draw physical
+        assertThat(a.rejected()).isLessThan(20);
+    }
+}
