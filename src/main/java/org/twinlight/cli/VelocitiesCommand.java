@@ -52,7 +52,7 @@ public final class VelocitiesCommand implements Callable<Integer> {
 
     @Option(names = "--jitter", paramLabel = "KMS|fit", defaultValue = "0",
             description = "Extra scatter added in quadrature to every error: a value in km/s, or 'fit' for the "
-                    + "value that makes chi2/nu = 1 (default: ${DEFAULT-VALUE}).")
+                    + "value for each star that makes its chi2/nu = 1 (default: ${DEFAULT-VALUE}).")
     String jitter;
 
     @Option(names = "--max-iterations", paramLabel = "N", defaultValue = "200",
@@ -117,7 +117,7 @@ public final class VelocitiesCommand implements Callable<Integer> {
         }
         double gamma = sum / n;
         return new VelocityParameters(orbit.periodDays(), orbit.epochDays(), orbit.eccentricity(), orbit.omegaDeg(),
-                halfRange(data.star1()), halfRange(data.star2()), gamma, new double[data.instruments().size()], 0.0);
+                halfRange(data.star1()), halfRange(data.star2()), gamma, new double[data.instruments().size()], 0.0, 0.0);
     }
 
     private static double halfRange(StarVelocities s) {

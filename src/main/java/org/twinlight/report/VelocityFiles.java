@@ -41,11 +41,13 @@ public final class VelocityFiles {
             o.put("free", e.free());
             o.put("unit", e.unit());
         }
-        ObjectNode jitter = params.putObject("jitter");
-        jitter.put("value", r.best().jitterKms());
-        jitter.putNull("uncertainty");
-        jitter.put("free", settings.fitJitter());
-        jitter.put("unit", "km/s");
+        for (int n = 1; n <= 2; n++) {
+            ObjectNode jitter = params.putObject("jitter" + n);
+            jitter.put("value", r.best().jitterKms(n));
+            jitter.putNull("uncertainty");
+            jitter.put("free", settings.fitJitter());
+            jitter.put("unit", "km/s");
+        }
         root.set("derived", derived);
         ObjectNode stats = root.putObject("statistics");
         stats.put("n", r.n());
@@ -114,8 +116,11 @@ public final class VelocityFiles {
                     Math.abs(e.value()) >= 1e5 ? String.format(Locale.ROOT, "%.6f", e.value())
                             : String.format(Locale.ROOT, "%.6g", e.value()), unc, e.unit()));
         }
-        if (r.best().jitterKms() > 0) {
-            sb.append(String.format(Locale.ROOT, "%-22s %16.4g %14s km/s%n", "jitter", r.best().jitterKms(), "-"));
+        for (int n = 1; n <= 2; n++) {
+            if (r.best().jitterKms(n) > 0) {
+                sb.append(String.format(Locale.ROOT, "%-22s %16.4g %14s km/s%n", "jitter" + n, r.best().jitterKms(n),
+                        "-"));
+            }
         }
         sb.append(String.format(Locale.ROOT, "%nn = %d (star 1: %d, star 2: %d), chi2 = %.2f, reduced chi2 = %.3f, "
                 + "rms = %.3g / %.3g km/s, %d iterations; times in %s%n", r.n(), data.star1().size(),

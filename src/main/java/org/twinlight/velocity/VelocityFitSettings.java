@@ -10,8 +10,8 @@ import java.util.Set;
  *     as e cos ω and e sin ω), {@code period}, {@code epoch}
  * @param jitterKms a fixed jitter added in quadrature to the errors (0 = none); ignored when
  *     {@code fitJitter}
- * @param fitJitter choose the jitter for which χ²/ν = 1 (0 when the scatter is already within
- *     the errors)
+ * @param fitJitter choose each star's jitter so that its χ² equals its share of the degrees of
+ *     freedom (0 when the scatter is already within the errors)
  * @param maxIterations iteration limit of the solver
  */
 public record VelocityFitSettings(Set<String> free, double jitterKms, boolean fitJitter, int maxIterations) {

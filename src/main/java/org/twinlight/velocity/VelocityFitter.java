@@ -25,7 +25,7 @@ import org.twinlight.WorkFailedException;
  * asked. Uncertainties come from the covariance scaled by χ²/ν, as the light-curve fit does.
  * Without errors in the file each star's errors are estimated from its scatter (a first fit with
  * equal weights, then the RMS of the star's residuals). With {@code fitJitter} the jitter is the
- * value that makes χ²/ν = 1, found by bisection after each fit, and the fit repeated until it
+ * value for each star that makes its χ² equal its share of the degrees of freedom, found by bisection after each fit, and the fit repeated until it
  * settles.
  */
 public final class VelocityFitter {
@@ -65,7 +65,8 @@ public final class VelocityFitter {
         boolean estimated = !data.star1().hasErrors() || !data.star2().hasErrors();
         double[] sigma1 = errors(data.star1());
         double[] sigma2 = errors(data.star2());
-        VelocityParameters p = start.withJitterKms(settings.fitJitter() ? 0.0 : settings.jitterKms());
+        double fixedJitter = settings.fitJitter() ? 0.0 : settings.jitterKms();
+        VelocityParameters p = start.withJitterKms(fixedJitter, fixedJitter);
         int iterations = 0;
         Solved solved = solve(data, p, layout, sigma1, sigma2, settings.maxIterations());
         iterations += solved.iterations;
@@ -85,21 +86,26 @@ public final class VelocityFitter {
         }
         List<String> notes = new ArrayList<>();
         if (settings.fitJitter()) {
-            int dof = data.size() - layout.size();
+            // each star's share of the degrees of freedom, so each star's chi2 matches its own share
+            double share = (double) (data.size() - layout.size()) / data.size();
             for (int round = 0; round < JITTER_ROUNDS; round++) {
-                double s = jitterForUnitReducedChi2(data, p, sigma1, sigma2, dof);
-                boolean settled = Math.abs(s - p.jitterKms()) <= 1e-3 * Math.max(s, 1e-3);
-                p = p.withJitterKms(s);
+                VelocityModel.Residuals r = VelocityModel.residuals(data, p);
+                double s1 = jitterForUnitReducedChi2(r.residual1(), sigma1, share * data.star1().size());
+                double s2 = jitterForUnitReducedChi2(r.residual2(), sigma2, share * data.star2().size());
+                boolean settled = Math.abs(s1 - p.jitter1Kms()) <= 1e-3 * Math.max(s1, 1e-3)
+                        && Math.abs(s2 - p.jitter2Kms()) <= 1e-3 * Math.max(s2, 1e-3);
+                p = p.withJitterKms(s1, s2);
                 if (settled) {
                     break;
                 }
                 solved = solve(data, p, layout, sigma1, sigma2, settings.maxIterations());
                 iterations += solved.iterations;
-                p = solved.best.withJitterKms(s);
+                p = solved.best.withJitterKms(s1, s2);
             }
-            notes.add(String.format(Locale.ROOT, "jitter %.3f km/s added in quadrature to every error: the value "
-                    + "for which chi2/nu = 1%s", p.jitterKms(), p.jitterKms() == 0
-                            ? " (zero: the scatter is within the errors)" : ""));
+            notes.add(String.format(Locale.ROOT, "jitter %.3f km/s (star 1) and %.3f km/s (star 2) added in "
+                    + "quadrature to the errors: the values for which each star's chi2 equals its share of the "
+                    + "degrees of freedom (zero when the scatter is within the errors)", p.jitter1Kms(),
+                    p.jitter2Kms()));
         }
         if (estimated) {
             notes.add("the file gives no errors for " + (!data.star1().hasErrors() && !data.star2().hasErrors()
@@ -172,17 +178,16 @@ public final class VelocityFitter {
         return r;
     }
 
-    private static double jitterForUnitReducedChi2(VelocityData d, VelocityParameters p, double[] sigma1,
-            double[] sigma2, int dof) {
-        VelocityModel.Residuals r = VelocityModel.residuals(d, p);
-        if (chi2(r, sigma1, sigma2, 0) <= dof) {
+    /** The jitter s with Σ r²/(σ² + s²) = {@code dof}, by bisection; 0 when the errors already suffice. */
+    private static double jitterForUnitReducedChi2(double[] r, double[] sigma, double dof) {
+        if (chi2(r, sigma, 0) <= dof) {
             return 0.0;
         }
         double lo = 0;
-        double hi = Math.max(rms(r.residual1()), rms(r.residual2())) * 10 + 1e-6;
+        double hi = rms(r) * 10 + 1e-6;
         for (int i = 0; i < 100; i++) {
             double mid = 0.5 * (lo + hi);
-            if (chi2(r, sigma1, sigma2, mid) > dof) {
+            if (chi2(r, sigma, mid) > dof) {
                 lo = mid;
             } else {
                 hi = mid;
@@ -191,14 +196,11 @@ public final class VelocityFitter {
         return 0.5 * (lo + hi);
     }
 
-    private static double chi2(VelocityModel.Residuals r, double[] sigma1, double[] sigma2, double jitter) {
+    private static double chi2(double[] r, double[] sigma, double jitter) {
         double s2 = jitter * jitter;
         double sum = 0;
-        for (int i = 0; i < r.residual1().length; i++) {
-            sum += r.residual1()[i] * r.residual1()[i] / (sigma1[i] * sigma1[i] + s2);
-        }
-        for (int i = 0; i < r.residual2().length; i++) {
-            sum += r.residual2()[i] * r.residual2()[i] / (sigma2[i] * sigma2[i] + s2);
+        for (int i = 0; i < r.length; i++) {
+            sum += r[i] * r[i] / (sigma[i] * sigma[i] + s2);
         }
         return sum;
     }
@@ -217,7 +219,7 @@ public final class VelocityFitter {
     private static VelocityFitResult summarise(VelocityData data, VelocityParameters p, Layout layout,
             double[] sigma1, double[] sigma2, Solved solved, int iterations, boolean estimated, List<String> notes) {
         VelocityModel.Residuals r = VelocityModel.residuals(data, p);
-        double chi2 = chi2(r, sigma1, sigma2, p.jitterKms());
+        double chi2 = chi2(r.residual1(), sigma1, p.jitter1Kms()) + chi2(r.residual2(), sigma2, p.jitter2Kms());
         int dof = data.size() - layout.size();
         double scale = chi2 / dof;
         // the Jacobian at the optimum, recomputed with the final jitter
@@ -326,7 +328,7 @@ public final class VelocityFitter {
             for (int j = 1; j <= offsets; j++) {
                 off[j] = x[i++];
             }
-            return new VelocityParameters(pd, t0, e, w, x[0], x[1], x[2], off, base.jitterKms());
+            return new VelocityParameters(pd, t0, e, w, x[0], x[1], x[2], off, base.jitter1Kms(), base.jitter2Kms());
         }
 
         /** Keeps the solver inside the model's domain: e below 0.95, a positive period. */

@@ -10,7 +10,7 @@ import org.twinlight.orbit.RadialVelocityCurve;
  *
  * <p>Star n's measurement from instrument j is modelled as
  * v = γ + δⱼ ± K_n [cos(ν+ω) + e cos ω] (+ for star 1, − for star 2), with δ₀ = 0; its weight
- * is 1/(σ² + s²) with s the jitter (e.g. Gregory 2005, ApJ 631, 1198, for the jitter term).
+ * is 1/(σ² + s_n²) with s_n the jitter of star n (e.g. Gregory 2005, ApJ 631, 1198, for the jitter term).
  */
 public final class VelocityModel {
 
@@ -64,11 +64,12 @@ public final class VelocityModel {
      */
     public static double[] normalisedResiduals(VelocityData d, VelocityParameters p, double[] sigma1, double[] sigma2) {
         Residuals r = residuals(d, p);
-        double s2 = p.jitterKms() * p.jitterKms();
+        double s1 = p.jitter1Kms() * p.jitter1Kms();
+        double s2 = p.jitter2Kms() * p.jitter2Kms();
         double[] out = new double[d.size()];
         int n1 = d.star1().size();
         for (int i = 0; i < n1; i++) {
-            out[i] = r.residual1()[i] / Math.sqrt(sigma1[i] * sigma1[i] + s2);
+            out[i] = r.residual1()[i] / Math.sqrt(sigma1[i] * sigma1[i] + s1);
         }
         for (int i = 0; i < d.star2().size(); i++) {
             out[n1 + i] = r.residual2()[i] / Math.sqrt(sigma2[i] * sigma2[i] + s2);
@@ -79,8 +80,8 @@ public final class VelocityModel {
     /** The Gaussian log-likelihood −½ Σ [r²/(σ²+s²) + ln 2π(σ²+s²)] of both stars. */
     public static double logLikelihood(VelocityData d, VelocityParameters p, double[] sigma1, double[] sigma2) {
         Residuals r = residuals(d, p);
-        double s2 = p.jitterKms() * p.jitterKms();
-        return part(r.residual1(), sigma1, s2) + part(r.residual2(), sigma2, s2);
+        return part(r.residual1(), sigma1, p.jitter1Kms() * p.jitter1Kms())
+                + part(r.residual2(), sigma2, p.jitter2Kms() * p.jitter2Kms());
     }
 
     private static double part(double[] r, double[] sigma, double s2) {

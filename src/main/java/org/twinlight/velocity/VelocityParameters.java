@@ -14,10 +14,11 @@ import java.util.Arrays;
  * @param gammaKms systemic velocity, km/s, on the scale of the first instrument
  * @param offsetsKms velocity offset of each instrument from the first (the first is 0), km/s,
  *     added to the model of that instrument's measurements
- * @param jitterKms extra scatter added in quadrature to every error, km/s (0 = none)
+ * @param jitter1Kms extra scatter added in quadrature to every error of star 1, km/s (0 = none)
+ * @param jitter2Kms the same for star 2 (the stars' lines differ, so their extra scatter may too)
  */
 public record VelocityParameters(double periodDays, double epochDays, double eccentricity, double omegaDeg,
-        double k1Kms, double k2Kms, double gammaKms, double[] offsetsKms, double jitterKms) {
+        double k1Kms, double k2Kms, double gammaKms, double[] offsetsKms, double jitter1Kms, double jitter2Kms) {
 
     public VelocityParameters {
         offsetsKms = offsetsKms.clone();
@@ -42,16 +43,22 @@ public record VelocityParameters(double periodDays, double epochDays, double ecc
         return offsetsKms.clone();
     }
 
-    public VelocityParameters withJitterKms(double jitter) {
+    /** The jitter of star {@code n} (1 or 2), km/s. */
+    public double jitterKms(int n) {
+        return n == 1 ? jitter1Kms : jitter2Kms;
+    }
+
+    public VelocityParameters withJitterKms(double jitter1, double jitter2) {
         return new VelocityParameters(periodDays, epochDays, eccentricity, omegaDeg, k1Kms, k2Kms, gammaKms,
-                offsetsKms, jitter);
+                offsetsKms, jitter1, jitter2);
     }
 
     @Override
     public boolean equals(Object o) {
         return o instanceof VelocityParameters p && p.periodDays == periodDays && p.epochDays == epochDays
                 && p.eccentricity == eccentricity && p.omegaDeg == omegaDeg && p.k1Kms == k1Kms && p.k2Kms == k2Kms
-                && p.gammaKms == gammaKms && Arrays.equals(p.offsetsKms, offsetsKms) && p.jitterKms == jitterKms;
+                && p.gammaKms == gammaKms && Arrays.equals(p.offsetsKms, offsetsKms) && p.jitter1Kms == jitter1Kms
+                && p.jitter2Kms == jitter2Kms;
     }
 
     @Override
@@ -62,7 +69,7 @@ public record VelocityParameters(double periodDays, double epochDays, double ecc
     @Override
     public String toString() {
         return String.format(java.util.Locale.ROOT, "VelocityParameters[P=%s, T0=%s, e=%s, w=%s, K1=%s, K2=%s, "
-                + "gamma=%s, offsets=%s, jitter=%s]", periodDays, epochDays, eccentricity, omegaDeg, k1Kms, k2Kms,
-                gammaKms, Arrays.toString(offsetsKms), jitterKms);
+                + "gamma=%s, offsets=%s, jitter=%s/%s]", periodDays, epochDays, eccentricity, omegaDeg, k1Kms, k2Kms,
+                gammaKms, Arrays.toString(offsetsKms), jitter1Kms, jitter2Kms);
     }
 }

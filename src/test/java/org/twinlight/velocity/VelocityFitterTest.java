@@ -15,12 +15,12 @@ import org.twinlight.time.TimeScale;
 class VelocityFitterTest {
 
     private static final VelocityParameters CIRCULAR = new VelocityParameters(3.2145, 2460100.3812, 0.0, 90.0, 78.0,
-            96.5, -14.2, new double[] {0.0, 2.3}, 0.0);
+            96.5, -14.2, new double[] {0.0, 2.3}, 0.0, 0.0);
 
     private static VelocityParameters wrongStart(VelocityParameters truth) {
         return new VelocityParameters(truth.periodDays(), truth.epochDays(), truth.eccentricity() * 0.5,
                 truth.omegaDeg() + 20, truth.k1Kms() * 0.8, truth.k2Kms() * 1.2, truth.gammaKms() + 5,
-                new double[truth.instrumentCount()], 0.0);
+                new double[truth.instrumentCount()], 0.0, 0.0);
     }
 
     private static double spread(List<Double> pulls) {
@@ -54,7 +54,7 @@ class VelocityFitterTest {
         // e = 0.25, ω = 140°: fitted as e cos ω, e sin ω from a start at half e and ω + 20°; 20 seeds,
         // pulls of K1, K2, e and ω pooled (80 values, standard error of the spread 0.08: band ±3σ).
         VelocityParameters truth = new VelocityParameters(5.71, 2460200.0, 0.25, 140.0, 55.0, 70.0, 3.0,
-                new double[] {0.0}, 0.0);
+                new double[] {0.0}, 0.0, 0.0);
         List<Double> pulls = new ArrayList<>();
         for (long seed = 100; seed < 120; seed++) {
             VelocityData d = SyntheticVelocities.make(truth, 40, 1.0, 1.5, 1, seed);
@@ -69,13 +69,15 @@ class VelocityFitterTest {
     }
 
     @Test
-    void jitterBringsTheReducedChiSquareToOne() {
-        // errors of 0.5 km/s stated, scatter of 2 km/s: the jitter must come out near √(2² − 0.5²) = 1.94
-        VelocityData noisy = SyntheticVelocities.make(CIRCULAR, 60, 2.0, 2.0, 2, 9);
+    void eachStarGetsItsOwnJitter() {
+        // errors of 0.5 km/s stated for both, true scatter 1 and 3 km/s: the jitters must come out near
+        // √(1² − 0.5²) = 0.87 and √(3² − 0.5²) = 2.96 (the added variance), each to about s/√(2N)
+        VelocityData noisy = SyntheticVelocities.make(CIRCULAR, 80, 1.0, 3.0, 2, 9);
         VelocityData stated = withErrors(noisy, 0.5);
         VelocityFitResult r = VelocityFitter.fit(stated, CIRCULAR, new VelocityFitSettings(Set.of(), 0, true, 200));
         assertThat(r.reducedChi2()).isCloseTo(1.0, within(0.01));
-        assertThat(r.best().jitterKms()).isCloseTo(Math.sqrt(4 - 0.25), within(0.4));
+        assertThat(r.best().jitter1Kms()).isCloseTo(Math.sqrt(1 - 0.25), within(0.3));
+        assertThat(r.best().jitter2Kms()).isCloseTo(Math.sqrt(9 - 0.25), within(0.8));
     }
 
     @Test
