@@ -32,6 +32,7 @@ public final class DimensionsBench {
     public static void main(String[] args) {
         int seeds = args.length > 0 ? Integer.parseInt(args[0]) : 500;
         timePropagation();
+        timeCommand();
         VelocityParameters circular = new VelocityParameters(3.2145, 2460100.3812, 0.0, 90.0, 78.0, 96.5, -14.2,
                 new double[] {0.0, 2.3}, 0.0, 0.0);
         pulls("circular, 2 instruments, 30 epochs", circular, Set.of(), false, 1.0, seeds);
@@ -62,6 +63,38 @@ public final class DimensionsBench {
         DimensionsPropagation.propagate(el, cov, 10_000, 999);
         System.out.printf(Locale.ROOT, "propagation, 10,000 draws: %.1f ms warm (mean of %d), %.1f ms this run%n", ms,
                 runs, (System.nanoTime() - c0) / 1e6);
+    }
+
+    /** The whole dimensions command in this JVM (files read, 10,000 draws, JSON, table and two PNGs written). */
+    private static void timeCommand() {
+        try {
+            java.nio.file.Path dir = java.nio.file.Files.createTempDirectory("dimensions-bench");
+            java.nio.file.Path fit = java.nio.file.Files.writeString(dir.resolve("fit.json"), """
+                    {"parameters": {
+                      "period": {"value": 3.2145, "uncertainty": 0.0, "free": false},
+                      "radius1": {"value": 0.105, "uncertainty": 0.001, "free": true},
+                      "radius2": {"value": 0.071, "uncertainty": 0.001, "free": true},
+                      "inclination": {"value": 88.2, "uncertainty": 0.3, "free": true},
+                      "surfaceBrightnessRatio": {"value": 0.62, "uncertainty": 0.01, "free": true}},
+                     "correlation": {"names": ["radius1", "radius2", "inclination", "surfaceBrightnessRatio"],
+                       "matrix": [[1,0.5,-0.3,0],[0.5,1,-0.8,0],[-0.3,-0.8,1,0],[0,0,0,1]]},
+                     "model": {"period": 3.2145, "epoch": 2460100.3812, "radius1": 0.105, "radius2": 0.071,
+                       "inclination": 88.2, "surfaceBrightnessRatio": 0.62},
+                     "timeScale": "BJD_TDB"}
+                    """);
+            for (int run = 1; run <= 4; run++) {
+                long t0 = System.nanoTime();
+                int code = org.twinlight.cli.TwinlightCommand.commandLine()
+                        .setOut(new java.io.PrintWriter(java.io.Writer.nullWriter()))
+                        .execute("dimensions", "--fit", fit.toString(), "--k1", "95", "--k1-error", "0.5", "--k2",
+                                "118", "--k2-error", "0.6", "--teff1", "6400", "--teff1-error", "100", "--draws", "10000",
+                                "--out", dir.resolve("out").toString());
+                System.out.printf(Locale.ROOT, "dimensions command in-process, run %d: %.0f ms (exit %d)%n", run,
+                        (System.nanoTime() - t0) / 1e6, code);
+            }
+        } catch (java.io.IOException e) {
+            throw new java.io.UncheckedIOException(e);
+        }
     }
 
     private static void pulls(String label, VelocityParameters truth, Set<String> free, boolean jitter,
