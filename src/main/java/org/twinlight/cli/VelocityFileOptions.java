@@ -41,18 +41,7 @@ public final class VelocityFileOptions {
 
     /** The options as the library's {@link VelocityReadOptions}. */
     public VelocityReadOptions toReadOptions() {
-        TimeScale scale = null;
-        if (timeScale != null) {
-            scale = TimeScale.parse(timeScale).orElseThrow(() -> new BadInputException(
-                    "option --time-scale: unknown time scale '" + timeScale + "'; expected one of "
-                            + TimeScale.acceptedLabels()));
-        }
-        if (timeOffsetDays != null && !Double.isFinite(timeOffsetDays)) {
-            throw new BadInputException("option --time-offset: expected a finite number of days, got " + timeOffsetDays);
-        }
-        if (hdu != null && hdu < 0) {
-            throw new BadInputException("option --hdu: expected an HDU index >= 0, got " + hdu);
-        }
+        TimeScale scale = PhotometryOptions.timeOptions(timeScale, timeOffsetDays, hdu);
         return new VelocityReadOptions(timeColumn, v1Column, v1ErrorColumn, v2Column, v2ErrorColumn, instrumentColumn,
                 scale, timeOffsetDays, hdu);
     }

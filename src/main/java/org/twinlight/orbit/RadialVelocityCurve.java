@@ -22,18 +22,7 @@ package org.twinlight.orbit;
 public record RadialVelocityCurve(double periodDays, double epochDays, double eccentricity, double omegaDeg) {
 
     public RadialVelocityCurve {
-        if (!(periodDays > 0) || !Double.isFinite(periodDays)) {
-            throw new IllegalArgumentException("period must be a positive number of days, got " + periodDays);
-        }
-        if (!Double.isFinite(epochDays)) {
-            throw new IllegalArgumentException("epoch must be a finite time, got " + epochDays);
-        }
-        if (!(eccentricity >= 0 && eccentricity < 1)) {
-            throw new IllegalArgumentException("eccentricity must be in [0, 1), got " + eccentricity);
-        }
-        if (!Double.isFinite(omegaDeg)) {
-            throw new IllegalArgumentException("omega must be finite, got " + omegaDeg);
-        }
+        Orbit.checkElements(periodDays, epochDays, eccentricity, omegaDeg);
     }
 
     /** Mean anomaly at the epoch of primary conjunction (ν = 90° − ω), radians in (−π, π]. */

@@ -222,8 +222,18 @@ public record ColumnChoice(int time, int value, int error, int band, int quality
     }
 
     private static ColumnChoice checked(Path file, String where, List<String> names, ColumnChoice c) {
-        int[] idx = {c.time, c.value, c.error, c.band, c.quality};
-        String[] roles = {"time", "value", "error", "band", "quality"};
+        checkDistinct(file, where, names, new int[] {c.time, c.value, c.error, c.band, c.quality},
+                new String[] {"time", "value", "error", "band", "quality"});
+        return c;
+    }
+
+    /**
+     * Refuses one column chosen for two roles.
+     *
+     * @param idx the chosen columns, 0-based, −1 for none
+     * @param roles the role of each, for the message
+     */
+    public static void checkDistinct(Path file, String where, List<String> names, int[] idx, String[] roles) {
         for (int i = 0; i < idx.length; i++) {
             for (int j = i + 1; j < idx.length; j++) {
                 if (idx[i] >= 0 && idx[i] == idx[j]) {
@@ -232,7 +242,6 @@ public record ColumnChoice(int time, int value, int error, int band, int quality
                 }
             }
         }
-        return c;
     }
 
     private static BadInputException missing(Path file, String where, List<String> names, String what,

@@ -60,16 +60,7 @@ public final class VelocityFiles {
         putNumber(stats, "rms2", r.rms2Kms());
         stats.put("iterations", r.iterations());
         stats.put("errorsEstimatedFromScatter", r.errorsEstimated());
-        ObjectNode corr = root.putObject("correlation");
-        ArrayNode names = corr.putArray("names");
-        r.freeNames().forEach(names::add);
-        ArrayNode matrix = corr.putArray("matrix");
-        for (double[] row : r.correlation()) {
-            ArrayNode a = matrix.addArray();
-            for (double v : row) {
-                a.add(Math.round(v * 1e6) / 1e6);
-            }
-        }
+        FitFiles.putCorrelation(root, r.freeNames(), r.correlation());
         ArrayNode inst = root.putArray("instruments");
         data.instruments().forEach(inst::add);
         root.put("timeScale", data.timeScale().label());

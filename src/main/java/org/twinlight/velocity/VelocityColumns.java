@@ -100,16 +100,8 @@ record VelocityColumns(int time, int v1, int e1, int v2, int e2, int instrument)
     }
 
     private static VelocityColumns checked(Path file, String where, List<String> names, VelocityColumns c) {
-        int[] idx = {c.time, c.v1, c.e1, c.v2, c.e2, c.instrument};
-        String[] roles = {"time", "v1", "v1_err", "v2", "v2_err", "instrument"};
-        for (int i = 0; i < idx.length; i++) {
-            for (int j = i + 1; j < idx.length; j++) {
-                if (idx[i] >= 0 && idx[i] == idx[j]) {
-                    throw BadInputException.at(file, where, label(names, idx[i]), "the same column is chosen as "
-                            + roles[i] + " and as " + roles[j] + "; choose different columns");
-                }
-            }
-        }
+        ColumnChoice.checkDistinct(file, where, names, new int[] {c.time, c.v1, c.e1, c.v2, c.e2, c.instrument},
+                new String[] {"time", "v1", "v1_err", "v2", "v2_err", "instrument"});
         return c;
     }
 

@@ -3,14 +3,10 @@ package org.twinlight.bench;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
-import java.util.Random;
 import java.util.Set;
 import org.twinlight.dimensions.BinaryElements;
 import org.twinlight.dimensions.DimensionsPropagation;
-import org.twinlight.orbit.RadialVelocityCurve;
-import org.twinlight.time.TimeScale;
-import org.twinlight.velocity.StarVelocities;
+import org.twinlight.velocity.SyntheticVelocities;
 import org.twinlight.velocity.VelocityData;
 import org.twinlight.velocity.VelocityFitResult;
 import org.twinlight.velocity.VelocityFitSettings;
@@ -108,7 +104,8 @@ public final class DimensionsBench {
         }
         long t0 = System.nanoTime();
         for (int seed = 1; seed <= seeds; seed++) {
-            VelocityData d = make(truth, free.isEmpty() ? 30 : 40, 1.5, 2.5, statedFraction, seed);
+            VelocityData d = SyntheticVelocities.make(truth, free.isEmpty() ? 30 : 40, 1.5, 2.5, truth.instrumentCount(),
+                    statedFraction, seed);
             VelocityParameters start = new VelocityParameters(truth.periodDays(), truth.epochDays(),
                     truth.eccentricity() * 0.5, truth.omegaDeg() + 20, truth.k1Kms() * 0.8, truth.k2Kms() * 1.2,
                     truth.gammaKms() + 5, new double[truth.instrumentCount()], 0.0, 0.0);
@@ -127,33 +124,5 @@ public final class DimensionsBench {
             System.out.printf(Locale.ROOT, "  %-13s pull mean %+.3f, spread %.3f, |pull| <= 1 in %.1f%%%n", names[k],
                     mean, sd, 100.0 * inside / p.length);
         }
-    }
-
-    private static VelocityData make(VelocityParameters truth, int epochs, double sigma1, double sigma2,
-            double statedFraction, long seed) {
-        Random rng = new Random(seed);
-        RadialVelocityCurve curve = truth.curve();
-        int m = truth.instrumentCount();
-        double[] t = new double[epochs];
-        double[] v1 = new double[epochs];
-        double[] v2 = new double[epochs];
-        double[] e1 = new double[epochs];
-        double[] e2 = new double[epochs];
-        int[] inst = new int[epochs];
-        int[] rows = new int[epochs];
-        for (int i = 0; i < epochs; i++) {
-            t[i] = truth.epochDays() + 40 * truth.periodDays() * rng.nextDouble();
-            inst[i] = i % m;
-            double base = truth.gammaKms() + truth.offsetKms(inst[i]);
-            double shape = curve.shape(t[i]);
-            v1[i] = base + truth.k1Kms() * shape + sigma1 * rng.nextGaussian();
-            v2[i] = base - truth.k2Kms() * shape + sigma2 * rng.nextGaussian();
-            e1[i] = sigma1 * statedFraction;
-            e2[i] = sigma2 * statedFraction;
-            rows[i] = i + 1;
-        }
-        List<String> names = java.util.stream.IntStream.range(0, m).mapToObj(j -> "spec" + j).toList();
-        return new VelocityData("synthetic", TimeScale.BJD_TDB, new StarVelocities(t, v1, e1, inst, rows),
-                new StarVelocities(t.clone(), v2, e2, inst.clone(), rows.clone()), names, Map.of(), List.of());
     }
 }

@@ -12,13 +12,22 @@ import org.twinlight.time.TimeScale;
  * Kepler solution) with Gaussian noise: sparse, irregular epochs over many cycles, as
  * spectroscopic campaigns are; instrument j of {@code instruments} observes every j-th epoch.
  */
-final class SyntheticVelocities {
+public final class SyntheticVelocities {
 
     private SyntheticVelocities() {
     }
 
     static VelocityData make(VelocityParameters truth, int epochs, double sigma1, double sigma2, int instruments,
             long seed) {
+        return make(truth, epochs, sigma1, sigma2, instruments, 1.0, seed);
+    }
+
+    /**
+     * The same with the errors in the data stated as {@code statedFraction} of the true noise
+     * (e.g. 0.25 for errors understated fourfold).
+     */
+    public static VelocityData make(VelocityParameters truth, int epochs, double sigma1, double sigma2,
+            int instruments, double statedFraction, long seed) {
         Random rng = new Random(seed);
         RadialVelocityCurve curve = truth.curve();
         double[] t = new double[epochs];
@@ -35,8 +44,8 @@ final class SyntheticVelocities {
             double shape = curve.shape(t[i]);
             v1[i] = base + truth.k1Kms() * shape + sigma1 * rng.nextGaussian();
             v2[i] = base - truth.k2Kms() * shape + sigma2 * rng.nextGaussian();
-            e1[i] = sigma1;
-            e2[i] = sigma2;
+            e1[i] = sigma1 * statedFraction;
+            e2[i] = sigma2 * statedFraction;
             rows[i] = i + 1;
         }
         List<String> names = java.util.stream.IntStream.range(0, instruments).mapToObj(j -> "spec" + j).toList();
