@@ -23,7 +23,8 @@ import org.apache.commons.math3.random.Well19937c;
  */
 public final class DimensionsPropagation {
 
-    private static final double ROOT_TOLERANCE = 1e-12;
+    /** Pivots below this (in correlation units) end the root: perfectly correlated elements. */
+    private static final double ROOT_TOLERANCE = 1e-10;
 
     private DimensionsPropagation() {
     }
@@ -140,26 +141,32 @@ public final class DimensionsPropagation {
         if (idx.length == 0) {
             return new double[0][0];
         }
-        RealMatrix m = new Array2DRowRealMatrix(idx.length, idx.length);
-        for (int i = 0; i < idx.length; i++) {
-            for (int j = 0; j < idx.length; j++) {
-                m.setEntry(i, j, 0.5 * (cov[idx[i]][idx[j]] + cov[idx[j]][idx[i]]));
+        // decompose the correlation matrix, not the covariance: the variances span 20 orders of
+        // magnitude (a period known to 1e-7 d beside a temperature known to 100 K), which a
+        // tolerance on the covariance itself cannot serve
+        int n = idx.length;
+        double[] sigma = new double[n];
+        for (int i = 0; i < n; i++) {
+            sigma[i] = Math.sqrt(cov[idx[i]][idx[i]]);
+        }
+        RealMatrix m = new Array2DRowRealMatrix(n, n);
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                m.setEntry(i, j, 0.5 * (cov[idx[i]][idx[j]] + cov[idx[j]][idx[i]]) / (sigma[i] * sigma[j]));
             }
         }
         try {
-            return new RectangularCholeskyDecomposition(m, ROOT_TOLERANCE * maxDiagonal(m)).getRootMatrix().getData();
+            double[][] root = new RectangularCholeskyDecomposition(m, ROOT_TOLERANCE).getRootMatrix().getData();
+            for (int i = 0; i < n; i++) {
+                for (int k = 0; k < root[i].length; k++) {
+                    root[i][k] *= sigma[i];
+                }
+            }
+            return root;
         } catch (NonPositiveDefiniteMatrixException e) {
             throw new IllegalArgumentException("the covariance of the elements is not positive semi-definite "
                     + "(a correlation outside [-1, 1], or inconsistent correlations)", e);
         }
-    }
-
-    private static double maxDiagonal(RealMatrix m) {
-        double max = 0;
-        for (int i = 0; i < m.getRowDimension(); i++) {
-            max = Math.max(max, m.getEntry(i, i));
-        }
-        return max;
     }
 
     /** √(J C Jᵀ) per quantity, J by central differences with steps of 1e-3 σ. */

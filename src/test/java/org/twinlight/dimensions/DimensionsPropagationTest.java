@@ -71,4 +71,53 @@ class DimensionsPropagationTest {
         // e = 0.02 ± 0.005 keeps almost every draw physical
         assertThat(a.rejected()).isLessThan(20);
     }
+
+    @Test
+    void sampledErrorsCoverTheTruthOverManyMeasurements() {
+        // Injection: 150 "measurements" of the elements, each the truth plus correlated normal noise
+        // (r2–i correlated at −0.9 as in partial eclipses, r1–i at −0.6, r1–r2 at +0.5, K errors of 1 %); for each, dimensions and
+        // their sampled errors. The pulls (estimate − truth)/σ of M1, R2 and L2 must have a spread
+        // near 1; 150 values estimate a spread to ±0.06, so [0.8, 1.2] is a ±3σ band.
+        double[] s = {1e-7, 0.01, 0.4, 0.95, 1.18, 0.002, 0.002, 150, 150, 0};
+        double[][] cov = diagonal(s);
+        cov[2][6] = cov[6][2] = -0.9 * s[2] * s[6];
+        cov[5][6] = cov[6][5] = 0.5 * s[5] * s[6];
+        cov[2][5] = cov[5][2] = -0.6 * s[2] * s[5];
+        // the test's own noise: independent normals, and for (i, r1, r2) the Commons Math Cholesky
+        // factor of their 3 x 3 correlation matrix
+        int[] block = {2, 5, 6};
+        double[][] corr = new double[3][3];
+        for (int a = 0; a < 3; a++) {
+            for (int b = 0; b < 3; b++) {
+                corr[a][b] = cov[block[a]][block[b]] / (s[block[a]] * s[block[b]]);
+            }
+        }
+        org.apache.commons.math3.linear.RealMatrix chol = new org.apache.commons.math3.linear.CholeskyDecomposition(
+                new org.apache.commons.math3.linear.Array2DRowRealMatrix(corr)).getL();
+        AbsoluteDimensions truth = AbsoluteDimensions.of(CENTRAL);
+        java.util.Random rng = new java.util.Random(42);
+        Quantity[] checked = {Quantity.MASS1, Quantity.RADIUS2, Quantity.LUMINOSITY2};
+        double[][] pulls = new double[checked.length][150];
+        for (int k = 0; k < 150; k++) {
+            double[] x = CENTRAL.toVector();
+            for (int i = 0; i < x.length; i++) {
+                x[i] += s[i] * rng.nextGaussian();
+            }
+            double[] blockNoise = chol.operate(new double[] {rng.nextGaussian(), rng.nextGaussian(), rng.nextGaussian()});
+            for (int a = 0; a < 3; a++) {
+                x[block[a]] = CENTRAL.toVector()[block[a]] + s[block[a]] * blockNoise[a];
+            }
+            DimensionsPropagation.Result r = DimensionsPropagation.propagate(BinaryElements.fromVector(x), cov, 1000, k);
+            for (int q = 0; q < checked.length; q++) {
+                DimensionEstimate e = r.estimates().get(checked[q]);
+                pulls[q][k] = (e.value() - truth.get(checked[q])) / e.uncertainty();
+            }
+        }
+        for (double[] p : pulls) {
+            double mean = java.util.Arrays.stream(p).average().orElseThrow();
+            double sd = Math.sqrt(java.util.Arrays.stream(p).map(v -> (v - mean) * (v - mean)).sum() / (p.length - 1));
+            assertThat(sd).isBetween(0.8, 1.2);
+            assertThat(mean).isCloseTo(0, within(0.3));
+        }
+    }
 }
