@@ -53,7 +53,25 @@ public final class VelocityPlot {
         points(bottom, "star 2", data.star2(), p, res.residual2(), STAR2, SeriesMarkers.DIAMOND, true);
         line(bottom, "zero", new double[] {0, 1}, new double[] {0, 0}, Color.GRAY);
         bottom.getStyler().setLegendVisible(false);
+        // as many characters in the residual panel's tick labels as in the top panel's, so the two
+        // plot areas start at the same place and the phase axes line up
+        double topMax = Math.abs(p.gammaKms()) + Math.max(p.k1Kms(), p.k2Kms()) * (1 + p.eccentricity());
+        double bottomMax = Math.max(maxAbs(res.residual1()), maxAbs(res.residual2()));
+        int extra = Math.max(0, integerDigits(topMax) - integerDigits(bottomMax));
+        bottom.getStyler().setYAxisDecimalPattern("0.0" + "0".repeat(Math.min(3, extra)));
         PlotFiles.writeStackedPng(target, WIDTH, top, bottom);
+    }
+
+    private static double maxAbs(double[] v) {
+        double m = 0;
+        for (double x : v) {
+            m = Math.max(m, Math.abs(x));
+        }
+        return m;
+    }
+
+    private static int integerDigits(double v) {
+        return v < 10 ? 1 : (int) Math.floor(Math.log10(v)) + 1;
     }
 
     private static XYChart chart(int w, int h, String title, String x, String y) {
@@ -67,9 +85,7 @@ public final class VelocityPlot {
         c.getStyler().setLegendPosition(org.knowm.xchart.style.Styler.LegendPosition.OutsideS);
         c.getStyler().setLegendLayout(org.knowm.xchart.style.Styler.LegendLayout.Horizontal);
         c.getStyler().setErrorBarsColorSeriesColor(true);
-        // equal-width tick labels in both panels, so their phase axes line up
-        c.getStyler().setAxisTickLabelsFont(new java.awt.Font(java.awt.Font.MONOSPACED, java.awt.Font.PLAIN, 11));
-        c.getStyler().setyAxisTickLabelsFormattingFunction(v -> String.format(java.util.Locale.ROOT, "%7.1f", v));
+        c.getStyler().setYAxisDecimalPattern("0.0");
         return c;
     }
 
