@@ -120,4 +120,30 @@ class DimensionsPropagationTest {
             assertThat(mean).isCloseTo(0, within(0.3));
         }
     }
+
+    @Test
+    void nearEdgeOnTheLinearErrorOfTheMassIsTooSmallAndIsReportedBeside() {
+        // M ∝ 1/sin³i: at i = 88° ± 3° the first-order error 3 cot(i) σ_i (relative) understates the
+        // spread, because sin i peaks at 90°. The exact relative spread is the standard deviation of
+        // sin³(88°)/sin³(i) over a normal i, integrated here with Commons Math (Simpson, ±6σ).
+        BinaryElements el = new BinaryElements(3.2145, 0.0, 88.0, 95.0, 118.0, 0.105, 0.071, Double.NaN,
+                Double.NaN, Double.NaN);
+        double[][] cov = diagonal(0, 0, 3.0, 0, 0, 0, 0, 0, 0, 0);
+        DimensionsPropagation.Result r = DimensionsPropagation.propagate(el, cov, 20_000, 17);
+        double mu = Math.toRadians(88.0);
+        double sd = Math.toRadians(3.0);
+        org.apache.commons.math3.analysis.integration.SimpsonIntegrator simpson =
+                new org.apache.commons.math3.analysis.integration.SimpsonIntegrator(1e-10, 1e-12, 3, 30);
+        java.util.function.DoubleUnaryOperator density = x -> Math.exp(-0.5 * Math.pow((x - mu) / sd, 2))
+                / (sd * Math.sqrt(2 * Math.PI));
+        double m1 = simpson.integrate(1_000_000, x -> density.applyAsDouble(x) / Math.pow(Math.sin(x), 3),
+                mu - 6 * sd, mu + 6 * sd);
+        double m2 = simpson.integrate(1_000_000, x -> density.applyAsDouble(x) / Math.pow(Math.sin(x), 6),
+                mu - 6 * sd, mu + 6 * sd);
+        double exactRelative = Math.sqrt(m2 - m1 * m1) * Math.pow(Math.sin(mu), 3);
+        DimensionEstimate mass = r.estimates().get(Quantity.MASS1);
+        assertThat(mass.uncertainty() / mass.value()).isCloseTo(exactRelative, within(0.05 * exactRelative));
+        assertThat(mass.firstOrderUncertainty() / mass.value()).isCloseTo(3 / Math.tan(mu) * sd, within(1e-3 * sd));
+        assertThat(mass.firstOrderDiffers()).isTrue();
+    }
 }
