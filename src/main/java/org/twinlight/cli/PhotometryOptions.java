@@ -46,6 +46,16 @@ public final class PhotometryOptions {
                 default -> throw new BadInputException("option --values: expected 'flux' or 'magnitude', got '" + values + "'");
             };
         }
+        TimeScale scale = timeOptions(timeScale, timeOffsetDays, hdu);
+        return new ReadOptions(timeColumn, valueColumn, errorColumn, bandColumn, qualityColumn, kind, scale,
+                timeOffsetDays, hdu);
+    }
+
+    /**
+     * Checks the options --time-scale, --time-offset and --hdu that every reader shares and
+     * returns the time scale (null when not given).
+     */
+    static TimeScale timeOptions(String timeScale, Double timeOffsetDays, Integer hdu) {
         TimeScale scale = null;
         if (timeScale != null) {
             scale = TimeScale.parse(timeScale).orElseThrow(() -> new BadInputException(
@@ -58,8 +68,7 @@ public final class PhotometryOptions {
         if (hdu != null && hdu < 0) {
             throw new BadInputException("option --hdu: expected an HDU index ≥ 0, got " + hdu);
         }
-        return new ReadOptions(timeColumn, valueColumn, errorColumn, bandColumn, qualityColumn, kind, scale,
-                timeOffsetDays, hdu);
+        return scale;
     }
 
     /** Reads one light curve with these options, printing the reader's remarks to {@code console}. */

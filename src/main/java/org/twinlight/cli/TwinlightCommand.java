@@ -11,7 +11,7 @@ import picocli.CommandLine.Option;
 @Command(name = "twinlight",
         mixinStandardHelpOptions = true,
         versionProvider = VersionInfo.class,
-        description = "Eclipsing-binary light curves: inspect, period, times of minimum and O−C, model fit, time scales.",
+        description = "Eclipsing-binary light curves: inspect, period, times of minimum and O−C, model fit, velocities, absolute dimensions, time scales.",
         subcommands = {
             CommandLine.HelpCommand.class,
             SimulateCommand.class,
@@ -21,6 +21,8 @@ import picocli.CommandLine.Option;
             InspectCommand.class,
             MinimaCommand.class,
             PeriodCommand.class,
+            VelocitiesCommand.class,
+            DimensionsCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 

@@ -22,6 +22,14 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
         double inclinationDeg) {
 
     public Orbit {
+        checkElements(periodDays, epochDays, eccentricity, omegaDeg);
+        if (!(inclinationDeg >= 0 && inclinationDeg <= 180)) {
+            throw new IllegalArgumentException("inclination must be in [0, 180] degrees, got " + inclinationDeg);
+        }
+    }
+
+    /** Refuses a period ≤ 0, a non-finite epoch or ω, and e outside [0, 1). */
+    static void checkElements(double periodDays, double epochDays, double eccentricity, double omegaDeg) {
         if (!(periodDays > 0) || !Double.isFinite(periodDays)) {
             throw new IllegalArgumentException("period must be a positive number of days, got " + periodDays);
         }
@@ -33,9 +41,6 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
         }
         if (!Double.isFinite(omegaDeg)) {
             throw new IllegalArgumentException("omega must be finite, got " + omegaDeg);
-        }
-        if (!(inclinationDeg >= 0 && inclinationDeg <= 180)) {
-            throw new IllegalArgumentException("inclination must be in [0, 180] degrees, got " + inclinationDeg);
         }
     }
 

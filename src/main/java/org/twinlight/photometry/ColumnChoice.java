@@ -14,7 +14,7 @@ import org.twinlight.BadInputException;
  * {@code "BJD_TDB"} are the same name. A candidate name matches a column that is called exactly
  * so or starts with it followed by a separator ({@code "bjd"} matches {@code "BJD_TDB"}).
  */
-record ColumnChoice(int time, int value, int error, int band, int quality) {
+public record ColumnChoice(int time, int value, int error, int band, int quality) {
 
     /** Time column names, in order of preference. */
     static final List<String> TIME_NAMES = List.of("time", "bjd", "hjd", "jd", "mjd", "btjd", "bmjd", "hmjd",
@@ -112,7 +112,7 @@ record ColumnChoice(int time, int value, int error, int band, int quality) {
     }
 
     /** Lower-case, separators folded into single underscores, no leading or trailing ones. */
-    static String normalise(String name) {
+    public static String normalise(String name) {
         if (name == null) {
             return "";
         }
@@ -121,7 +121,7 @@ record ColumnChoice(int time, int value, int error, int band, int quality) {
     }
 
     /** Whether a normalised name looks like an uncertainty column. */
-    static boolean isErrorName(String n) {
+    public static boolean isErrorName(String n) {
         return n.equals("err") || n.equals("error") || n.equals("errors") || n.equals("sigma") || n.equals("sig")
                 || n.equals("uncertainty") || n.equals("unc") || n.startsWith("e_") || n.startsWith("err_")
                 || n.startsWith("sigma_") || n.endsWith("err") || n.endsWith("_error") || n.endsWith("_sigma")
@@ -185,7 +185,11 @@ record ColumnChoice(int time, int value, int error, int band, int quality) {
         }
     }
 
-    private static int resolve(Path file, String where, List<String> names, int width, String spec, String option) {
+    /**
+     * The 0-based index of the column an option names (by header name or 1-based number), or −1
+     * when the option is not given.
+     */
+    public static int resolve(Path file, String where, List<String> names, int width, String spec, String option) {
         if (spec == null || spec.isBlank()) {
             return -1;
         }
@@ -218,8 +222,18 @@ record ColumnChoice(int time, int value, int error, int band, int quality) {
     }
 
     private static ColumnChoice checked(Path file, String where, List<String> names, ColumnChoice c) {
-        int[] idx = {c.time, c.value, c.error, c.band, c.quality};
-        String[] roles = {"time", "value", "error", "band", "quality"};
+        checkDistinct(file, where, names, new int[] {c.time, c.value, c.error, c.band, c.quality},
+                new String[] {"time", "value", "error", "band", "quality"});
+        return c;
+    }
+
+    /**
+     * Refuses one column chosen for two roles.
+     *
+     * @param idx the chosen columns, 0-based, −1 for none
+     * @param roles the role of each, for the message
+     */
+    public static void checkDistinct(Path file, String where, List<String> names, int[] idx, String[] roles) {
         for (int i = 0; i < idx.length; i++) {
             for (int j = i + 1; j < idx.length; j++) {
                 if (idx[i] >= 0 && idx[i] == idx[j]) {
@@ -228,7 +242,6 @@ record ColumnChoice(int time, int value, int error, int band, int quality) {
                 }
             }
         }
-        return c;
     }
 
     private static BadInputException missing(Path file, String where, List<String> names, String what,
@@ -237,7 +250,8 @@ record ColumnChoice(int time, int value, int error, int band, int quality) {
                 + String.join(", ", looked) + ")" + listing(names) + "; choose one with " + option + " NAME|N");
     }
 
-    private static String listing(List<String> names) {
+    /** {@code "; the columns are: 1 'time', 2 'flux'"} for messages, or "" without names. */
+    public static String listing(List<String> names) {
         if (names == null) {
             return "";
         }

@@ -26,13 +26,13 @@ import org.twinlight.time.TimeScale;
  * The band is the band column's value when there is one, else the {@code FILTER} or
  * {@code BAND} keyword.
  */
-final class FitsTableReader {
+public final class FitsTableReader {
 
     private FitsTableReader() {
     }
 
     /** Whether the file starts like a FITS file ({@code SIMPLE  =}), or is a gzip file named *.fits.gz etc. */
-    static boolean looksLikeFits(byte[] head, String fileName) {
+    public static boolean looksLikeFits(byte[] head, String fileName) {
         String start = new String(head, 0, Math.min(head.length, 9), java.nio.charset.StandardCharsets.US_ASCII);
         if (start.equals("SIMPLE  =")) {
             return true;
@@ -61,7 +61,7 @@ final class FitsTableReader {
         }
     }
 
-    private static BasicHDU<?> nextHdu(Fits fits, Path file, int index) {
+    public static BasicHDU<?> nextHdu(Fits fits, Path file, int index) {
         try {
             return fits.readHDU();
         } catch (IOException | RuntimeException e) {
@@ -74,7 +74,7 @@ final class FitsTableReader {
         }
     }
 
-    private static int chooseHdu(Path file, List<BasicHDU<?>> hdus, Integer wanted) {
+    public static int chooseHdu(Path file, List<BasicHDU<?>> hdus, Integer wanted) {
         if (wanted != null) {
             if (wanted >= hdus.size()) {
                 throw BadInputException.at(file, "HDU " + wanted, null, "no such HDU; the file has " + hdus.size()
@@ -198,7 +198,7 @@ final class FitsTableReader {
      * A scalar numeric column as doubles: integers through the column's TSCALn, TZEROn and TNULLn
      * (a null value becomes NaN), unsigned bytes as 0..255, floating-point values as stored.
      */
-    static double[] column(BinaryTable table, int col) {
+    public static double[] column(BinaryTable table, int col) {
         Object data = table.getFlattenedColumn(col);
         Quantizer q = table.getDescriptor(col).getQuantizer();
         if (data instanceof double[] d) {

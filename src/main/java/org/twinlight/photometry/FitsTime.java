@@ -50,7 +50,7 @@ import org.twinlight.time.TimeStandard;
  * @param scale the time scale of the resulting Julian dates (never modified)
  * @param declared whether the file declares any time keyword
  */
-record FitsTime(double referenceWholeDays, double referenceFractionDays, double timeZero, double unitDays,
+public record FitsTime(double referenceWholeDays, double referenceFractionDays, double timeZero, double unitDays,
         TimeScale scale, boolean declared) {
 
     /** Whole part of the JD of MJD 0 (2400000.5 split as 2400000 + 0.5). */
@@ -66,7 +66,7 @@ record FitsTime(double referenceWholeDays, double referenceFractionDays, double 
             "(-?\\d{4})-(\\d{2})-(\\d{2})(?:T(\\d{2}):(\\d{2}):(\\d{2}(?:\\.\\d*)?))?");
 
     /** The time in days (a Julian date when the file declares its times) of a value as in the table. */
-    double toDays(double value) {
+    public double toDays(double value) {
         // Reference whole day last: the small terms are summed first so their digits survive.
         return referenceWholeDays + (referenceFractionDays + (timeZero + value) * unitDays);
     }
@@ -81,7 +81,7 @@ record FitsTime(double referenceWholeDays, double referenceFractionDays, double 
      * @param columnUnit {@code TUNITn} of the time column, or null
      * @param typicalTime a time value from the table (for the no-reference rule), NaN if none
      */
-    static FitsTime of(Path file, int hdu, Header table, Header primary, String columnUnit, double typicalTime) {
+    public static FitsTime of(Path file, int hdu, Header table, Header primary, String columnUnit, double typicalTime) {
         Keys k = new Keys(file, hdu, table, primary);
         boolean declared = KEYWORDS.stream().anyMatch(k::has);
         if (!declared) {

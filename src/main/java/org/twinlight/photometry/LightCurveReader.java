@@ -79,7 +79,7 @@ public final class LightCurveReader {
     }
 
     /** The remark made when an option overrides the time scale a file declares itself; none when they agree. */
-    static java.util.List<String> overrideNotes(org.twinlight.time.TimeScale declared,
+    public static java.util.List<String> overrideNotes(org.twinlight.time.TimeScale declared,
             org.twinlight.time.TimeScale option) {
         if (option == null || declared == null || !declared.isKnown() || declared.equals(option)) {
             return java.util.List.of();

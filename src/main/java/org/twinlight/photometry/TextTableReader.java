@@ -39,7 +39,7 @@ import org.twinlight.time.TimeScale;
  *
  * The file is read as UTF-8, or as ISO-8859-1 when it is not valid UTF-8. It is never changed.
  */
-final class TextTableReader {
+public final class TextTableReader {
 
     private static final int DELIMITER_SAMPLE_LINES = 50;
 
@@ -147,7 +147,7 @@ final class TextTableReader {
      * The scale declared by a comment line {@code # time scale: BJD_TDB} before the data (as
      * twinlight's own CSV files carry), or null when there is none.
      */
-    private static TimeScale declaredTimeScale(Path file, List<String> lines, int firstData) {
+    public static TimeScale declaredTimeScale(Path file, List<String> lines, int firstData) {
         for (int i = 0; i < firstData; i++) {
             java.util.regex.Matcher m = TIME_SCALE_COMMENT.matcher(lines.get(i));
             if (m.find()) {
@@ -196,7 +196,7 @@ final class TextTableReader {
         rows.add(lineNumber, band, v[0], v[1], v[2], v[3]);
     }
 
-    private static List<String> lines(Path file) {
+    public static List<String> lines(Path file) {
         byte[] bytes;
         try {
             bytes = Files.readAllBytes(file);
@@ -224,12 +224,12 @@ final class TextTableReader {
         return Arrays.asList(text.split("\r\n|\r|\n", -1));
     }
 
-    private static String stripComment(String line) {
+    public static String stripComment(String line) {
         int hash = line.indexOf('#');
         return hash >= 0 ? line.substring(0, hash) : line;
     }
 
-    static char detectDelimiter(List<String> lines, List<Integer> dataLines) {
+    public static char detectDelimiter(List<String> lines, List<Integer> dataLines) {
         int n = Math.min(dataLines.size(), DELIMITER_SAMPLE_LINES);
         for (char d : new char[] {'\t', ';', ','}) {
             // the first line (perhaps the header) must split, and most of the others: a short or broken
@@ -250,7 +250,7 @@ final class TextTableReader {
     }
 
     /** Splits on {@code delimiter} ({@code ' '} = runs of white space), trims and unquotes the fields. */
-    static List<String> split(String line, char delimiter) {
+    public static List<String> split(String line, char delimiter) {
         List<String> out = new ArrayList<>();
         int n = line.length();
         if (delimiter == ' ') {
@@ -335,17 +335,17 @@ final class TextTableReader {
     }
 
     /** True when {@code s} is not a number in any of the accepted spellings. */
-    static boolean isNotANumber(String s, boolean decimalComma) {
+    public static boolean isNotANumber(String s, boolean decimalComma) {
         return Double.isNaN(number(s, decimalComma)) && !isNanToken(s);
     }
 
-    private static boolean isNanToken(String s) {
+    public static boolean isNanToken(String s) {
         String t = s.trim().toLowerCase(Locale.ROOT);
         return t.equals("nan") || t.equals("+nan") || t.equals("-nan");
     }
 
     /** The number {@code s} spells, or NaN when it spells none (or spells NaN). */
-    static double number(String s, boolean decimalComma) {
+    public static double number(String s, boolean decimalComma) {
         String t = s.trim();
         try {
             return Double.parseDouble(t);

@@ -61,16 +61,7 @@ public final class FitFiles {
         stats.put("iterations", r.iterations());
         stats.put("evaluations", r.evaluations());
         stats.put("errorsEstimatedFromScatter", r.errorsEstimated());
-        ObjectNode corr = root.putObject("correlation");
-        ArrayNode names = corr.putArray("names");
-        r.freeNames().forEach(names::add);
-        ArrayNode matrix = corr.putArray("matrix");
-        for (double[] row : r.correlation()) {
-            ArrayNode a = matrix.addArray();
-            for (double v : row) {
-                a.add(Math.round(v * 1e6) / 1e6);
-            }
-        }
+        putCorrelation(root, r.freeNames(), r.correlation());
         root.set("model", r.model().toJson());
         root.put("timeScale", scale.label());
         ObjectNode input = root.putObject("input");
@@ -98,6 +89,20 @@ public final class FitFiles {
         r.notes().forEach(notes::add);
         root.put("caution", CAUTION);
         return root;
+    }
+
+    /** {@code "correlation": {"names": [..], "matrix": [[..]]}}, entries rounded to 1e-6. */
+    static void putCorrelation(ObjectNode root, List<String> freeNames, double[][] correlation) {
+        ObjectNode corr = root.putObject("correlation");
+        ArrayNode names = corr.putArray("names");
+        freeNames.forEach(names::add);
+        ArrayNode matrix = corr.putArray("matrix");
+        for (double[] row : correlation) {
+            ArrayNode a = matrix.addArray();
+            for (double v : row) {
+                a.add(Math.round(v * 1e6) / 1e6);
+            }
+        }
     }
 
     private static void putEstimates(ObjectNode target, List<Estimate> list, boolean multiBand, boolean withFree) {

@@ -54,4 +54,30 @@ public final class PlotFiles {
             throw new UncheckedIOException("cannot render " + target + ": " + e.getMessage(), e);
         }
     }
+
+    /** Writes charts stacked top to bottom, each at its own height, as one PNG file atomically. */
+    public static void writeStackedPng(Path target, int width, XYChart... charts) {
+        int height = 0;
+        for (XYChart c : charts) {
+            height += c.getHeight();
+        }
+        java.awt.image.BufferedImage img = new java.awt.image.BufferedImage(width, height,
+                java.awt.image.BufferedImage.TYPE_INT_RGB);
+        java.awt.Graphics2D g = img.createGraphics();
+        g.setColor(Color.WHITE);
+        g.fillRect(0, 0, width, height);
+        int y = 0;
+        for (XYChart c : charts) {
+            g.drawImage(BitmapEncoder.getBufferedImage(c), 0, y, null);
+            y += c.getHeight();
+        }
+        g.dispose();
+        try {
+            ByteArrayOutputStream buf = new ByteArrayOutputStream();
+            javax.imageio.ImageIO.write(img, "png", buf);
+            AtomicFiles.writeBytes(target, buf.toByteArray());
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot render " + target + ": " + e.getMessage(), e);
+        }
+    }
 }

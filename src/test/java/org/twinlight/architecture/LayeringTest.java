@@ -11,12 +11,12 @@ import org.junit.jupiter.api.Test;
 
 /**
  * The layering of STYLE/DEVELOPERS.md held by test: the library core (photometry, time, orbit,
- * eclipse, fit, timing, dimensions) knows nothing of the command line, plots or the report layer;
+ * eclipse, fit, timing, dimensions, velocity) knows nothing of the command line, plots or the report layer;
  * arrows point inwards only; no package cycles.
  */
 class LayeringTest {
     private static final String[] CORE = {"org.twinlight.photometry..", "org.twinlight.time..", "org.twinlight.orbit..",
-        "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions.."};
+        "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..", "org.twinlight.velocity.."};
 
     private static JavaClasses classes;
 
@@ -61,7 +61,23 @@ class LayeringTest {
     void timeAndOrbitAreIndependent() {
         noClasses().that().resideInAnyPackage("org.twinlight.time..", "org.twinlight.orbit..")
                 .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.eclipse..",
-                        "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..")
+                        "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..",
+                        "org.twinlight.velocity..")
+                .check(classes);
+    }
+
+    @Test
+    void dimensionsAndVelocitiesStandApartFromTheLightCurveModelAndFit() {
+        // dimensions take numbers (elements, covariance), not fit results or files; velocities know the
+        // orbit, not the eclipse model or the fit, so the fit can later take them as one more data set
+        noClasses().that().resideInAPackage("org.twinlight.dimensions..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.eclipse..", "org.twinlight.fit..",
+                        "org.twinlight.timing..", "org.twinlight.photometry..", "org.twinlight.velocity..",
+                        "com.fasterxml.jackson..", "java.nio.file..")
+                .check(classes);
+        noClasses().that().resideInAPackage("org.twinlight.velocity..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.eclipse..", "org.twinlight.fit..",
+                        "org.twinlight.timing..", "org.twinlight.dimensions..", "com.fasterxml.jackson..")
                 .check(classes);
     }
 

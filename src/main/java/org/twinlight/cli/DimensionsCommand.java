@@ -1,0 +1,257 @@
+package org.twinlight.cli;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.twinlight.BadInputException;
+import org.twinlight.dimensions.BinaryElements;
+import org.twinlight.dimensions.DimensionsPropagation;
+import org.twinlight.dimensions.Quantity;
+import org.twinlight.dimensions.SanityChecks;
+import org.twinlight.report.DimensionsFiles;
+import org.twinlight.report.DimensionsPlots;
+import org.twinlight.report.FitFiles;
+import org.twinlight.report.FitJsonInput;
+import org.twinlight.report.InputDigest;
+import org.twinlight.velocity.VelocityData;
+import org.twinlight.velocity.VelocityFitResult;
+import org.twinlight.velocity.VelocityFitter;
+import org.twinlight.velocity.VelocityParameters;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+
+/** {@code dimensions}: masses, radii, gravities and luminosities from a light-curve fit and velocities. */
+@Command(name = "dimensions", mixinStandardHelpOptions = true, versionProvider = VersionInfo.class,
+        sortOptions = false,
+        description = {"Absolute dimensions of a double-lined eclipsing binary: from fit.json (period, e, i, "
+                + "fractional radii, with their correlations) and K1, K2 (fitted from --velocities, or given): "
+                + "a, M1, M2, q, R1, R2, log g, mean densities, synchronous rotation; with --teff1 (and --teff2): "
+                + "luminosities and bolometric magnitudes (IAU 2015 nominal solar values, Resolutions B2 and B3). "
+                + "Errors by sampling the inputs' covariance.",
+            "Writes dimensions.json, dimensions.txt, mass-radius.png and (with temperatures) mass-luminosity.png."})
+public final class DimensionsCommand implements Callable<Integer> {
+
+    @picocli.CommandLine.Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Option(names = "--fit", required = true, paramLabel = "fit.json", description = "Result of the fit command.")
+    Path fit;
+
+    @Option(names = "--velocities", paramLabel = "RV.csv",
+            description = "Velocity file of both stars: K1 and K2 are fitted with the orbit of fit.json "
+                    + "(as the velocities command does, with e and omega fixed).")
+    Path velocities;
+
+    @Option(names = "--k1", paramLabel = "KMS", description = "K1 in km/s, instead of --velocities.")
+    Double k1;
+
+    @Option(names = "--k1-error", paramLabel = "KMS", description = "1-sigma error of --k1 (default 0: mass errors are then understated).")
+    double k1Error;
+
+    @Option(names = "--k2", paramLabel = "KMS", description = "K2 in km/s, instead of --velocities.")
+    Double k2;
+
+    @Option(names = "--k2-error", paramLabel = "KMS", description = "1-sigma error of --k2.")
+    double k2Error;
+
+    @Option(names = "--teff1", paramLabel = "K", description = "Effective temperature of star 1 (the star eclipsed at primary eclipse).")
+    Double teff1;
+
+    @Option(names = "--teff1-error", paramLabel = "K", description = "Its 1-sigma error.")
+    double teff1Error;
+
+    @Option(names = "--teff2", paramLabel = "K", description = "Effective temperature of star 2 (default: Teff1 times the fourth root of the fitted surface-brightness ratio, an approximation).")
+    Double teff2;
+
+    @Option(names = "--teff2-error", paramLabel = "K", description = "Its 1-sigma error.")
+    double teff2Error;
+
+    @Option(names = "--jitter", paramLabel = "KMS|fit", defaultValue = "0",
+            description = "With --velocities: extra velocity scatter in km/s, or 'fit' (default: ${DEFAULT-VALUE}).")
+    String jitter;
+
+    @Option(names = "--draws", paramLabel = "N", defaultValue = "10000",
+            description = "Number of draws for the error propagation (default: ${DEFAULT-VALUE}).")
+    int draws;
+
+    @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Seed of the draws (default: ${DEFAULT-VALUE}).")
+    long seed;
+
+    @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
+    Path out;
+
+    @Mixin
+    VelocityFileOptions velocityOptions;
+
+    @Override
+    public Integer call() {
+        List<Path> inputs = new ArrayList<>(List.of(fit));
+        if (velocities != null) {
+            inputs.add(velocities);
+        }
+        OutputTargets.checkDirectory(out, List.of("dimensions.json", "dimensions.txt", "mass-radius.png",
+                "mass-luminosity.png"), inputs);
+        checkOptions();
+        FitJsonInput lc = FitJsonInput.read(fit);
+        List<String> notes = new ArrayList<>();
+        if (lc.posterior()) {
+            notes.add("fit.json holds a posterior, but its chain is not read yet: the errors come from normal draws "
+                    + "with fit.json's uncertainties and correlations");
+        }
+        double[] mean = new double[BinaryElements.NAMES.size()];
+        double[][] cov = new double[mean.length][mean.length];
+        String[] fromFit = {"period", "eccentricity", "inclination", null, null, "radius1", "radius2", null, null,
+            "surfaceBrightnessRatio"};
+        for (int i = 0; i < fromFit.length; i++) {
+            if (fromFit[i] == null) {
+                continue;
+            }
+            mean[i] = lc.values().getOrDefault(fromFit[i], i == 1 ? lc.model().common().eccentricity() : Double.NaN);
+            for (int j = 0; j < fromFit.length; j++) {
+                if (fromFit[j] != null) {
+                    cov[i][j] = lc.covariance(fromFit[i], fromFit[j]);
+                }
+            }
+        }
+        if (!(mean[1] >= 0 && mean[1] < 1)) {
+            throw BadInputException.at(fit, "key 'parameters.eccentricity'", null, "expected 0 <= e < 1, got " + mean[1]);
+        }
+        String kSource;
+        String kSha = null;
+        if (velocities != null) {
+            VelocityFitResult v = fitVelocities(lc, notes);
+            mean[3] = v.best().k1Kms();
+            mean[4] = v.best().k2Kms();
+            cov[3][3] = v.covariance("k1", "k1");
+            cov[4][4] = v.covariance("k2", "k2");
+            cov[3][4] = cov[4][3] = v.covariance("k1", "k2");
+            kSource = "velocities " + velocities;
+            kSha = InputDigest.sha256(velocities);
+        } else {
+            mean[3] = k1;
+            mean[4] = k2;
+            cov[3][3] = k1Error * k1Error;
+            cov[4][4] = k2Error * k2Error;
+            kSource = String.format(Locale.ROOT, "given: K1 = %s +- %s, K2 = %s +- %s km/s", k1, k1Error, k2, k2Error);
+            if (k1Error == 0 || k2Error == 0) {
+                notes.add("K1 or K2 was given without an error: the errors of masses and radii leave it out");
+            }
+        }
+        mean[7] = teff1 == null ? Double.NaN : teff1;
+        mean[8] = teff2 == null ? Double.NaN : teff2;
+        cov[7][7] = teff1 == null ? 0 : teff1Error * teff1Error;
+        cov[8][8] = teff2 == null ? 0 : teff2Error * teff2Error;
+        String teff2Source = null;
+        if (teff2 != null) {
+            teff2Source = "given";
+        } else if (teff1 != null && !Double.isNaN(mean[9])) {
+            teff2Source = "Teff1 x J^(1/4) from the fitted central surface-brightness ratio J: an approximation that "
+                    + "treats J as bolometric; in a band it understates the temperature difference (J grows more "
+                    + "slowly than T^4 in the red); give --teff2 for a published result";
+            notes.add("Teff2 = " + teff2Source);
+        }
+        if (teff2 == null) {
+            cov[8][8] = 0;
+        }
+        if (teff1 == null || teff2 != null) {
+            // J is used only to derive Teff2
+            java.util.Arrays.fill(cov[9], 0);
+            for (double[] row : cov) {
+                row[9] = 0;
+            }
+            mean[9] = Double.NaN;
+        }
+        BinaryElements central = BinaryElements.fromVector(mean);
+        String problem = central.problem();
+        if (problem != null) {
+            throw new BadInputException(fit + (velocities != null ? " and " + velocities : "") + ": " + problem);
+        }
+        DimensionsPropagation.Result r;
+        try {
+            r = DimensionsPropagation.propagate(central, cov, draws, seed);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException(fit + ": " + e.getMessage());
+        }
+        List<String> warnings = SanityChecks.warnings(r.central(), central);
+        Map<String, double[]> used = new LinkedHashMap<>();
+        for (int i = 0; i < mean.length; i++) {
+            used.put(BinaryElements.NAMES.get(i), new double[] {mean[i], Math.sqrt(cov[i][i])});
+        }
+        DimensionsFiles.Inputs in = new DimensionsFiles.Inputs(fit.toString(), InputDigest.sha256(fit), kSource, kSha,
+                teff2Source, lc.timeScale().label(), seed, used);
+        FitFiles.writeJson(out.resolve("dimensions.json"), DimensionsFiles.json(r, in, warnings, notes,
+                VersionInfo.version()));
+        String table = DimensionsFiles.table(r, warnings);
+        org.twinlight.report.AtomicFiles.writeString(out.resolve("dimensions.txt"), table);
+        String title = "Absolute dimensions from " + fit.getFileName();
+        DimensionsPlots.massRadius(r, out.resolve("mass-radius.png"), title);
+        boolean luminosities = r.estimates().containsKey(Quantity.LOG_LUMINOSITY1)
+                && r.estimates().containsKey(Quantity.LOG_LUMINOSITY2);
+        if (luminosities) {
+            DimensionsPlots.massLuminosity(r, out.resolve("mass-luminosity.png"), title);
+        }
+        console().print(table);
+        notes.forEach(n -> console().println("note: " + n));
+        r.notes().forEach(n -> console().println("note: " + n));
+        warnings.forEach(w -> console().println("warning: " + w));
+        console().println("wrote dimensions.json, dimensions.txt, mass-radius.png" + (luminosities
+                ? " and mass-luminosity.png" : "") + " to " + out);
+        return 0;
+    }
+
+    private void checkOptions() {
+        boolean givenK = k1 != null || k2 != null;
+        if (velocities != null && givenK) {
+            throw new BadInputException("options --velocities and --k1/--k2: give one source of K1 and K2, not both");
+        }
+        if (velocities == null && !givenK) {
+            throw new BadInputException("K1 and K2 are needed: give --velocities RV.csv, or --k1 and --k2 (km/s)");
+        }
+        if (velocities == null && (k1 == null || k2 == null)) {
+            throw new BadInputException("option --" + (k1 == null ? "k1" : "k2") + ": missing; the masses need the "
+                    + "semi-amplitudes of both stars (no second star: a single-lined orbit gives only the mass "
+                    + "function)");
+        }
+        if (k1 != null && !(k1 > 0)) {
+            throw new BadInputException("option --k1: expected a semi-amplitude > 0 km/s, got " + k1);
+        }
+        if (k2 != null && !(k2 > 0)) {
+            throw new BadInputException("option --k2: expected a semi-amplitude > 0 km/s, got " + k2);
+        }
+        for (Object[] o : new Object[][] {{"--teff1", teff1}, {"--teff2", teff2}}) {
+            if (o[1] != null && !((Double) o[1] > 0)) {
+                throw new BadInputException("option " + o[0] + ": expected a temperature > 0 K, got " + o[1]);
+            }
+        }
+        for (Object[] o : new Object[][] {{"--k1-error", k1Error}, {"--k2-error", k2Error},
+            {"--teff1-error", teff1Error}, {"--teff2-error", teff2Error}}) {
+            if (!((Double) o[1] >= 0) || !Double.isFinite((Double) o[1])) {
+                throw new BadInputException("option " + o[0] + ": expected an error >= 0, got " + o[1]);
+            }
+        }
+        if (draws < 100) {
+            throw new BadInputException("option --draws: expected at least 100 draws, got " + draws);
+        }
+    }
+
+    private VelocityFitResult fitVelocities(FitJsonInput lc, List<String> notes) {
+        VelocityData data = velocityOptions.read(velocities, console());
+        VelocityFileOptions.checkTimeScale(data, velocities, lc.timeScale(), fit, console());
+        VelocityParameters start = VelocitiesCommand.start(lc.model().common(), data);
+        VelocityFitResult v = VelocityFitter.fit(data, start, VelocitiesCommand.settings(List.of(), jitter, 200));
+        notes.add(String.format(Locale.ROOT, "K1 = %.3f +- %.3f, K2 = %.3f +- %.3f km/s fitted to %d velocities of "
+                + "%s with the orbit of %s (reduced chi2 %.2f)", v.estimate("k1").value(), v.estimate("k1").uncertainty(),
+                v.estimate("k2").value(), v.estimate("k2").uncertainty(), v.n(), velocities, fit, v.reducedChi2()));
+        v.notes().forEach(n -> notes.add("velocities: " + n));
+        return v;
+    }
+
+    private java.io.PrintWriter console() {
+        return spec.commandLine().getOut();
+    }
+}

@@ -1,0 +1,128 @@
+package org.twinlight.bench;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Set;
+import org.twinlight.dimensions.BinaryElements;
+import org.twinlight.dimensions.DimensionsPropagation;
+import org.twinlight.velocity.SyntheticVelocities;
+import org.twinlight.velocity.VelocityData;
+import org.twinlight.velocity.VelocityFitResult;
+import org.twinlight.velocity.VelocityFitSettings;
+import org.twinlight.velocity.VelocityFitter;
+import org.twinlight.velocity.VelocityParameters;
+
+/**
+ * Times the propagation of errors into absolute dimensions (10,000 draws) and measures the pull
+ * distributions of the velocity fit over many noise seeds: a circular orbit with two
+ * instruments, an eccentric one with e and ω free, and one with errors understated fourfold and
+ * the jitter fitted. Run with
+ * {@code java -cp target/classes:target/test-classes:$(deps) org.twinlight.bench.DimensionsBench [seeds]}.
+ */
+public final class DimensionsBench {
+
+    private DimensionsBench() {
+    }
+
+    public static void main(String[] args) {
+        int seeds = args.length > 0 ? Integer.parseInt(args[0]) : 500;
+        timePropagation();
+        timeCommand();
+        VelocityParameters circular = new VelocityParameters(3.2145, 2460100.3812, 0.0, 90.0, 78.0, 96.5, -14.2,
+                new double[] {0.0, 2.3}, 0.0, 0.0);
+        pulls("circular, 2 instruments, 30 epochs", circular, Set.of(), false, 1.0, seeds);
+        VelocityParameters eccentric = new VelocityParameters(5.71, 2460200.0, 0.25, 140.0, 55.0, 70.0, 3.0,
+                new double[] {0.0}, 0.0, 0.0);
+        pulls("e = 0.25, e and omega free, 40 epochs", eccentric, Set.of("eccentricity", "omega"), false, 1.0, seeds);
+        pulls("errors stated 4x too small, jitter fitted", circular, Set.of(), true, 0.25, seeds);
+    }
+
+    private static void timePropagation() {
+        BinaryElements el = new BinaryElements(3.2145, 0.02, 87.5, 95.0, 118.0, 0.105, 0.071, 6400, Double.NaN, 0.62);
+        double[] s = {1e-6, 0.004, 0.3, 0.5, 0.7, 0.001, 0.001, 100, 0, 0.01};
+        double[][] cov = new double[10][10];
+        for (int i = 0; i < 10; i++) {
+            cov[i][i] = s[i] * s[i];
+        }
+        cov[2][6] = cov[6][2] = -0.8 * s[2] * s[6];
+        for (int w = 0; w < 5; w++) {
+            DimensionsPropagation.propagate(el, cov, 10_000, w);
+        }
+        int runs = 20;
+        long t0 = System.nanoTime();
+        for (int r = 0; r < runs; r++) {
+            DimensionsPropagation.propagate(el, cov, 10_000, 100 + r);
+        }
+        double ms = (System.nanoTime() - t0) / 1e6 / runs;
+        long c0 = System.nanoTime();
+        DimensionsPropagation.propagate(el, cov, 10_000, 999);
+        System.out.printf(Locale.ROOT, "propagation, 10,000 draws: %.1f ms warm (mean of %d), %.1f ms this run%n", ms,
+                runs, (System.nanoTime() - c0) / 1e6);
+    }
+
+    /** The whole dimensions command in this JVM (files read, 10,000 draws, JSON, table and two PNGs written). */
+    private static void timeCommand() {
+        try {
+            java.nio.file.Path dir = java.nio.file.Files.createTempDirectory("dimensions-bench");
+            java.nio.file.Path fit = java.nio.file.Files.writeString(dir.resolve("fit.json"), """
+                    {"parameters": {
+                      "period": {"value": 3.2145, "uncertainty": 0.0, "free": false},
+                      "radius1": {"value": 0.105, "uncertainty": 0.001, "free": true},
+                      "radius2": {"value": 0.071, "uncertainty": 0.001, "free": true},
+                      "inclination": {"value": 88.2, "uncertainty": 0.3, "free": true},
+                      "surfaceBrightnessRatio": {"value": 0.62, "uncertainty": 0.01, "free": true}},
+                     "correlation": {"names": ["radius1", "radius2", "inclination", "surfaceBrightnessRatio"],
+                       "matrix": [[1,0.5,-0.3,0],[0.5,1,-0.8,0],[-0.3,-0.8,1,0],[0,0,0,1]]},
+                     "model": {"period": 3.2145, "epoch": 2460100.3812, "radius1": 0.105, "radius2": 0.071,
+                       "inclination": 88.2, "surfaceBrightnessRatio": 0.62},
+                     "timeScale": "BJD_TDB"}
+                    """);
+            for (int run = 1; run <= 4; run++) {
+                long t0 = System.nanoTime();
+                int code = org.twinlight.cli.TwinlightCommand.commandLine()
+                        .setOut(new java.io.PrintWriter(java.io.Writer.nullWriter()))
+                        .execute("dimensions", "--fit", fit.toString(), "--k1", "95", "--k1-error", "0.5", "--k2",
+                                "118", "--k2-error", "0.6", "--teff1", "6400", "--teff1-error", "100", "--draws", "10000",
+                                "--out", dir.resolve("out").toString());
+                System.out.printf(Locale.ROOT, "dimensions command in-process, run %d: %.0f ms (exit %d)%n", run,
+                        (System.nanoTime() - t0) / 1e6, code);
+            }
+        } catch (java.io.IOException e) {
+            throw new java.io.UncheckedIOException(e);
+        }
+    }
+
+    private static void pulls(String label, VelocityParameters truth, Set<String> free, boolean jitter,
+            double statedFraction, int seeds) {
+        String[] names = free.isEmpty() ? new String[] {"k1", "k2", "gamma"}
+                : new String[] {"k1", "k2", "gamma", "eccentricity", "omega"};
+        double[] truths = {truth.k1Kms(), truth.k2Kms(), truth.gammaKms(), truth.eccentricity(), truth.omegaDeg()};
+        List<List<Double>> pulls = new ArrayList<>();
+        for (int k = 0; k < names.length; k++) {
+            pulls.add(new ArrayList<>());
+        }
+        long t0 = System.nanoTime();
+        for (int seed = 1; seed <= seeds; seed++) {
+            VelocityData d = SyntheticVelocities.make(truth, free.isEmpty() ? 30 : 40, 1.5, 2.5, truth.instrumentCount(),
+                    statedFraction, seed);
+            VelocityParameters start = new VelocityParameters(truth.periodDays(), truth.epochDays(),
+                    truth.eccentricity() * 0.5, truth.omegaDeg() + 20, truth.k1Kms() * 0.8, truth.k2Kms() * 1.2,
+                    truth.gammaKms() + 5, new double[truth.instrumentCount()], 0.0, 0.0);
+            VelocityFitResult r = VelocityFitter.fit(d, start, new VelocityFitSettings(free, 0, jitter, 200));
+            for (int k = 0; k < names.length; k++) {
+                pulls.get(k).add((r.estimate(names[k]).value() - truths[k]) / r.estimate(names[k]).uncertainty());
+            }
+        }
+        System.out.printf(Locale.ROOT, "%s, %d seeds (%.1f ms per fit):%n", label, seeds,
+                (System.nanoTime() - t0) / 1e6 / seeds);
+        for (int k = 0; k < names.length; k++) {
+            double[] p = pulls.get(k).stream().mapToDouble(Double::doubleValue).toArray();
+            double mean = java.util.Arrays.stream(p).average().orElseThrow();
+            double sd = Math.sqrt(java.util.Arrays.stream(p).map(v -> (v - mean) * (v - mean)).sum() / (p.length - 1));
+            long inside = java.util.Arrays.stream(p).filter(v -> Math.abs(v) <= 1).count();
+            System.out.printf(Locale.ROOT, "  %-13s pull mean %+.3f, spread %.3f, |pull| <= 1 in %.1f%%%n", names[k],
+                    mean, sd, 100.0 * inside / p.length);
+        }
+    }
+}
