@@ -20,7 +20,7 @@ import java.util.Locale;
  * whose in-eclipse dispersion ({@link PhaseDispersion#eclipseDispersion}) exceeds the lowest by no more
  * than {@link #ECLIPSE_DISPERSION_EXCESS} (or the same statistical margin);</li>
  * <li>its eclipse timings: a period at which the timings scatter about a straight line by χ²ν above
- * {@link PeriodSearch#CYCLE_COUNT_CHI2} (and four times the best candidate's) folds different eclipses
+ * {@link #TIMING_EXCLUSION_CHI2} (and 25 times the best candidate's) folds different eclipses
  * together.</li>
  * </ul>
  * The data folded at a true period are coherent, and so they are at every multiple of it; a shorter or
@@ -38,6 +38,13 @@ final class CandidateComparison {
      * out-of-eclipse data raise it by factors, the noise by a few per cent.
      */
     static final double ECLIPSE_DISPERSION_EXCESS = 0.5;
+    /**
+     * Reduced χ² of the eclipse timings above which a candidate is excluded (and 25 times the best
+     * candidate's): timings that scatter by √χ²ν ≥ 10 fold different eclipses together, while a true period
+     * whose timing errors are somewhat optimistic (coarse cadence, correlated noise) reaches χ²ν of a few to
+     * ten (common practice, no source).
+     */
+    static final double TIMING_EXCLUSION_CHI2 = 100;
     /** Peaks whose SDE reaches this share of the highest are compared too. */
     static final double PEAK_SHARE = 0.5;
     /** Most periodogram peaks compared besides the multiples of the highest. */
@@ -93,7 +100,7 @@ final class CandidateComparison {
         Coherence judge = new Coherence(pdm, binDays, scatter, thetaMin, dipMin);
         double chi2Min = refined.stream().filter(r -> r.timingReducedChiSquare().isPresent())
                 .mapToDouble(r -> r.timingReducedChiSquare().getAsDouble()).min().orElse(1);
-        double chi2Limit = Math.max(PeriodSearch.CYCLE_COUNT_CHI2, 4 * chi2Min);
+        double chi2Limit = Math.max(TIMING_EXCLUSION_CHI2, 25 * chi2Min);
         List<PeriodCandidate> out = new ArrayList<>();
         for (int i = 0; i < trials.size(); i++) {
             RefinedPeriod r = refined.get(i);
