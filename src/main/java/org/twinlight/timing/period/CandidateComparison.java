@@ -93,10 +93,14 @@ final class CandidateComparison {
             thetas.add(pdm.thetaWithBinWidth(r.periodDays(), binDays));
             dips.add(pdm.eclipseDispersion(r.periodDays(), binDays, scatter));
         }
-        double dipMin = dips.stream().mapToDouble(PhaseDispersion.Theta::theta).filter(Double::isFinite).min()
-                .orElse(Double.NaN);
         double thetaMin = thetas.stream().mapToDouble(PhaseDispersion.Theta::theta).filter(Double::isFinite).min()
                 .orElse(Double.NaN);
+        // The lowest in-eclipse dispersion among the candidates that pass the Θ test: a period that folds
+        // everything together has few or no eclipse bins, and its F says nothing.
+        Coherence byTheta = new Coherence(pdm, binDays, scatter, thetaMin, Double.NaN);
+        double dipMin = java.util.stream.IntStream.range(0, trials.size())
+                .filter(i -> byTheta.thetaPasses(thetas.get(i))).mapToDouble(i -> dips.get(i).theta())
+                .filter(Double::isFinite).min().orElse(Double.NaN);
         Coherence judge = new Coherence(pdm, binDays, scatter, thetaMin, dipMin);
         double chi2Min = refined.stream().filter(r -> r.timingReducedChiSquare().isPresent())
                 .mapToDouble(r -> r.timingReducedChiSquare().getAsDouble()).min().orElse(1);
@@ -138,9 +142,17 @@ final class CandidateComparison {
                     scatter));
         }
 
-        Judgement judge(PhaseDispersion.Theta th, PhaseDispersion.Theta dip) {
-            double margin = Math.max(SIGNAL_SHARE * (1 - thetaMin),
+        private double margin(PhaseDispersion.Theta th) {
+            return Math.max(SIGNAL_SHARE * (1 - thetaMin),
                     THETA_SIGMAS * thetaMin * Math.sqrt(2.0 / Math.max(1, th.degreesOfFreedom())));
+        }
+
+        boolean thetaPasses(PhaseDispersion.Theta th) {
+            return th.theta() - thetaMin <= margin(th);
+        }
+
+        Judgement judge(PhaseDispersion.Theta th, PhaseDispersion.Theta dip) {
+            double margin = margin(th);
             double dipLimit = dipMin * Math.max(1 + ECLIPSE_DISPERSION_EXCESS,
                     1 + THETA_SIGMAS * Math.sqrt(2.0 / Math.max(1, dip.degreesOfFreedom())));
             boolean coherent = th.theta() - thetaMin <= margin && !(dip.theta() > dipLimit);

@@ -91,40 +91,35 @@ record SearchData(String source, double[] timesDays, double[] flux, double[] err
 
     /**
      * Red-noise factor β on a time scale (time-averaging method, Winn et al. 2008, AJ 135, 1625, Sect. 3;
-     * Pont, Zucker &amp; Queloz 2006, MNRAS 373, 231): the points kept by {@code keep} are put in bins of
-     * {@code timescaleDays}; for white noise of σ the mean of M points scatters by σ/√M, so
-     * β² = mean over bins of M·(bin mean − median)² / σ², and β = max(1, β). Correlated noise (nightly
-     * zero points, trends) makes β &gt; 1; a dip's S/N from white-noise errors must then be divided by β.
+     * Pont, Zucker &amp; Queloz 2006, MNRAS 373, 231): the residuals (data minus a model of the periodic
+     * signal) are put in bins of {@code timescaleDays}; for white noise of σ the mean of M residuals
+     * scatters by σ/√M, so β² = mean over bins of M·(bin mean)² / σ², and β = max(1, β). Correlated
+     * noise (nightly zero points, trends) makes β &gt; 1; a dip's S/N from white-noise errors must then be
+     * divided by β.
      */
-    double redNoiseFactor(double timescaleDays, java.util.function.IntPredicate keep, double sigma) {
-        double[] kept = java.util.stream.IntStream.range(0, flux.length).filter(keep).mapToDouble(i -> flux[i])
-                .toArray();
-        if (kept.length < 10 || !(sigma > 0) || !(timescaleDays > 0)) {
+    double redNoiseFactor(double[] residuals, double timescaleDays) {
+        double sigma = RobustStatistics.madSigma(residuals);
+        if (residuals.length < 10 || !(sigma > 0) || !(timescaleDays > 0)) {
             return 1;
         }
-        double level = RobustStatistics.median(kept);
         double sum = 0;
-        int count = 0;
-        double binSum = 0;
-        int binCount = 0;
-        double binStart = Double.NaN;
-        for (int i = 0; i <= flux.length; i++) {
-            boolean close = i == flux.length || (binCount > 0 && timesDays[i] - binStart > timescaleDays);
-            if (close && binCount >= 3) {
-                double mean = binSum / binCount - level;
-                sum += binCount * mean * mean;
-                count++;
-            }
-            if (close || binCount == 0) {
-                binSum = 0;
-                binCount = 0;
-                binStart = i < flux.length ? timesDays[i] : Double.NaN;
-            }
-            if (i < flux.length && keep.test(i)) {
-                binSum += flux[i];
-                binCount++;
+        int bins = 0;
+        int from = 0;
+        for (int i = 1; i <= residuals.length; i++) {
+            if (i == residuals.length || timesDays[i] - timesDays[from] > timescaleDays) {
+                int m = i - from;
+                if (m >= 3) {
+                    double mean = 0;
+                    for (int k = from; k < i; k++) {
+                        mean += residuals[k];
+                    }
+                    mean /= m;
+                    sum += m * mean * mean;
+                    bins++;
+                }
+                from = i;
             }
         }
-        return count < 3 ? 1 : Math.max(1, Math.sqrt(sum / count) / sigma);
+        return bins < 3 ? 1 : Math.max(1, Math.sqrt(sum / bins) / sigma);
     }
 }

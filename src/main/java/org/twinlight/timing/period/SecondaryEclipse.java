@@ -24,9 +24,8 @@ record SecondaryEclipse(FoldedEclipses.Dip primary, FoldedEclipses.Dip secondary
         FoldedEclipses.Dip prim = fold.refine(fold.measure(0, widthPhase));
         // Correlated noise (nightly zero points) makes dips of white-noise S/N 3–5 out of nothing: the S/N
         // of a second dip is divided by the red-noise factor on the time scale of an eclipse.
-        double[] t = data.timesDays();
-        double beta = data.redNoiseFactor(prim.width() * periodDays, i -> FoldedEclipses.distance(
-                FoldedEclipses.wrap((t[i] - epochDays) / periodDays), prim.centre()) > prim.width(), fold.scatter());
+        double beta = data.redNoiseFactor(residualsFromFold(data, periodDays, epochDays, prim.width()),
+                prim.width() * periodDays);
         FoldedEclipses.Dip other = fold.search(durations, prim);
         double otherSnr = other == null ? 0 : other.signalToNoise() / beta;
         // One targeted trial at phase 0.5 (where a circular orbit puts the secondary) needs less evidence
@@ -53,6 +52,30 @@ record SecondaryEclipse(FoldedEclipses.Dip primary, FoldedEclipses.Dip secondary
         FoldedEclipses.Dip first = fold.refine(fold.measure(prim.centre(), prim.width(), other), other);
         FoldedEclipses.Dip second = fold.measure(other.centre(), other.width(), first);
         return new SecondaryEclipse(first, second, otherSnr, half.pointsIn(), limit, beta);
+    }
+
+    /**
+     * The data minus the mean of their phase bin (bins of a tenth of the eclipse width): what is left when
+     * everything periodic at this period (both eclipses, out-of-eclipse variation) is taken out.
+     */
+    private static double[] residualsFromFold(SearchData data, double periodDays, double epochDays,
+            double widthPhase) {
+        double[] t = data.timesDays();
+        double[] x = data.flux();
+        int bins = (int) Math.max(20, Math.min(10 / widthPhase, x.length / 5.0));
+        double[] sum = new double[bins];
+        int[] count = new int[bins];
+        int[] bin = new int[x.length];
+        for (int i = 0; i < x.length; i++) {
+            bin[i] = Math.min(bins - 1, (int) (FoldedEclipses.wrap((t[i] - epochDays) / periodDays) * bins));
+            sum[bin[i]] += x[i];
+            count[bin[i]]++;
+        }
+        double[] r = new double[x.length];
+        for (int i = 0; i < x.length; i++) {
+            r[i] = x[i] - sum[bin[i]] / count[bin[i]];
+        }
+        return r;
     }
 
     boolean found() {
