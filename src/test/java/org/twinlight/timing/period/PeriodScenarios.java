@@ -3,7 +3,7 @@ package org.twinlight.timing.period;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
-import java.util.SplittableRandom;
+import java.util.Random;
 import org.twinlight.eclipse.BinaryModel;
 import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.LimbDarkening;
@@ -83,7 +83,7 @@ public final class PeriodScenarios {
      */
     public static Case groundGrazing(long seed) {
         BinaryParameters p = binary(1.7327, 0.11, 0.105, 82.0, 0, 90, 0.93);
-        SplittableRandom rnd = new SplittableRandom(seed * 7919 + 11);
+        Random rnd = new Random(seed * 7919 + 11);
         List<Double> times = new ArrayList<>();
         List<Integer> night = new ArrayList<>();
         int n = 0;
@@ -102,7 +102,7 @@ public final class PeriodScenarios {
         LightCurve clean = observe(p, t, 3000, seed, "ground-grazing");
         double[] zero = new double[n];
         for (int k = 0; k < n; k++) {
-            zero[k] = 1 + 0.005 * gaussian(rnd);
+            zero[k] = 1 + 0.005 * rnd.nextGaussian();
         }
         double[] f = clean.fluxes();
         for (int i = 0; i < f.length; i++) {
@@ -117,7 +117,7 @@ public final class PeriodScenarios {
      */
     public static Case sparseSurvey(long seed, int pointsPerSeason) {
         BinaryParameters p = binary(3.17, 0.16, 0.12, 87.0, 0, 90, 0.6);
-        SplittableRandom rnd = new SplittableRandom(seed * 104729 + 3);
+        Random rnd = new Random(seed * 104729 + 3);
         List<Double> times = new ArrayList<>();
         for (int season = 0; season < 3; season++) {
             int inSeason = 0;
@@ -142,7 +142,7 @@ public final class PeriodScenarios {
         double period = 30.113;
         BinaryParameters p = binary(period, 0.02, 0.017, 89.9, 0, 90, 0.8);
         double epoch = p.epochDays();
-        SplittableRandom rnd = new SplittableRandom(seed * 31 + 5);
+        Random rnd = new Random(seed * 31 + 5);
         List<Double> starts = new ArrayList<>();
         for (int cycle : new int[] {1, 3, 6}) {
             starts.add(epoch + cycle * period - 0.15 - 0.1 * rnd.nextDouble());
@@ -175,11 +175,11 @@ public final class PeriodScenarios {
     /** Noise alone: 27 d at 10 minutes, 1000 ppm. */
     public static Case noiseOnly(long seed) {
         double[] t = regular(27, 10);
-        SplittableRandom rnd = new SplittableRandom(seed * 17 + 1);
+        Random rnd = new Random(seed * 17 + 1);
         double[] f = new double[t.length];
         double[] e = new double[t.length];
         for (int i = 0; i < t.length; i++) {
-            f[i] = 1 + 0.001 * gaussian(rnd);
+            f[i] = 1 + 0.001 * rnd.nextGaussian();
             e[i] = 0.001;
         }
         return new Case("noise", new LightCurve("noise-" + seed, null, TimeScale.BJD_TDB, ValueKind.FLUX, t, f, e,
@@ -189,17 +189,5 @@ public final class PeriodScenarios {
     private static LightCurve withFlux(LightCurve lc, double[] f) {
         return new LightCurve(lc.source(), lc.band(), lc.timeScale(), ValueKind.FLUX, lc.timesDays(), f,
                 lc.hasErrors() ? lc.fluxErrors() : null, Map.of());
-    }
-
-    private static double gaussian(SplittableRandom rng) {
-        double u;
-        double v;
-        double s;
-        do {
-            u = 2 * rng.nextDouble() - 1;
-            v = 2 * rng.nextDouble() - 1;
-            s = u * u + v * v;
-        } while (s >= 1 || s == 0);
-        return u * Math.sqrt(-2 * Math.log(s) / s);
     }
 }
