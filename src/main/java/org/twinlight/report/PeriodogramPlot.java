@@ -245,6 +245,11 @@ public final class PeriodogramPlot {
             if (count[b] > 0) {
                 bx.add((b + 0.5) / FOLDED_BINS - 0.25);
                 by.add(sum[b] / count[b]);
+            } else if (!by.isEmpty() && by.get(by.size() - 1) != null) {
+                // A phase with no data breaks the line (XChart leaves a gap at a null value): the mean is
+                // unknown there, not the straight line between its neighbours.
+                bx.add((b + 0.5) / FOLDED_BINS - 0.25);
+                by.add(null);
             }
         }
         XYSeries mean = chart.addSeries("mean in " + FOLDED_BINS + " phase bins", bx, by);
