@@ -9,7 +9,7 @@ import org.twinlight.BadInputException;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.report.PeriodResultJson;
 import org.twinlight.report.PeriodogramPlot;
-import org.twinlight.timing.period.PeriodCandidate;
+import org.twinlight.timing.period.PeriodDecision;
 import org.twinlight.timing.period.PeriodSearch;
 import org.twinlight.timing.period.PeriodSearchResult;
 import org.twinlight.timing.period.PeriodSearchSettings;
@@ -22,9 +22,11 @@ import picocli.CommandLine.Spec;
 /** {@code period FILE --out DIR}: eclipse period search, writing {@code period.json} and {@code periodogram.png}. */
 @Command(name = "period", mixinStandardHelpOptions = true, versionProvider = VersionInfo.class,
         description = {
-            "Searches a light curve for the period of its eclipses: a box-least-squares periodogram, confirmed "
-                    + "with phase dispersion minimisation, with the choice between P and 2P for near-equal "
-                    + "eclipses, a period uncertainty from eclipse timings, and runners-up.",
+            "Searches a light curve for the period of its eclipses: a box-least-squares periodogram; the highest "
+                    + "peak, its multiples and strong runners-up each refined from eclipse timings and compared by "
+                    + "phase dispersion and timing χ²; the choice between P and 2P from a second eclipse, alternate "
+                    + "eclipses and coverage. The verdict is confident, or ambiguous with the candidates and what "
+                    + "observation would settle it.",
             "Writes period.json and periodogram.png to --out."})
 public final class PeriodCommand implements Callable<Integer> {
 
@@ -36,8 +38,8 @@ public final class PeriodCommand implements Callable<Integer> {
     Path out;
 
     @Option(names = "--min-period", paramLabel = "DAYS",
-            description = "Shortest trial period in days (default: 0.2 d, or longer when the cadence is too coarse"
-                    + " for 15 %% eclipses to span three points).")
+            description = "Shortest trial period in days (default: 0.2 d, whatever the sampling; a note says when"
+                    + " the answer lies within a factor 2 of it).")
     Double minPeriod;
 
     @Option(names = "--max-period", paramLabel = "DAYS",
@@ -93,23 +95,18 @@ public final class PeriodCommand implements Callable<Integer> {
         w.printf(Locale.ROOT, "epoch   %.6f ± %.6f (time scale %s), primary depth %.5f, S/N %.1f%n", r.epochDays(),
                 r.epochUncertaintyDays(), lc.timeScale().label(), r.primary().depth(), r.primary().signalToNoise());
         w.println("signal  " + r.significanceNote());
-        if (r.secondary() != null) {
-            w.printf(Locale.ROOT, "secondary at phase %.4f, depth %.5f (S/N %.1f), duration ratio %.3f%n",
-                    r.secondary().phase(), r.secondary().depth(), r.secondary().signalToNoise(),
-                    r.secondary().duration() / r.primary().duration());
-        } else {
-            w.println("secondary: none seen");
+        r.secondary().ifPresentOrElse(sec -> w.printf(Locale.ROOT,
+                "secondary at phase %.4f, depth %.5f (S/N %.1f), duration ratio %.3f%n", sec.phase(), sec.depth(),
+                sec.signalToNoise(), sec.duration() / r.primary().duration()), () -> w.println("secondary: none seen"));
+        PeriodDecision d = r.decision();
+        w.println("DECISION " + d.headline().toUpperCase(Locale.ROOT).charAt(0) + d.headline().substring(1));
+        w.println("evidence:");
+        d.evidence().forEach(e -> w.println("  - " + e));
+        if (!d.toSettle().isEmpty()) {
+            w.println("to settle it:");
+            d.toSettle().forEach(e -> w.println("  - " + e));
         }
-        w.println("P or 2P: " + r.halfPeriod().explanation());
-        w.printf(Locale.ROOT, "PDM Θ at the period %.4f: %s%n", r.candidates().get(0).pdmTheta(),
-                r.pdmAgrees() ? "agrees (lowest among unrelated runners-up)" : "does NOT single out this period");
-        w.println("runners-up:");
-        for (PeriodCandidate c : r.candidates()) {
-            if (!c.role().equals("best")) {
-                w.printf(Locale.ROOT, "  %14.8f d  SR %.5g  SDE %5.1f  Θ %.4f  %s%n", c.periodDays(), c.blsPower(),
-                        c.sde(), c.pdmTheta(), c.role());
-            }
-        }
+        d.notes().forEach(e -> w.println("note: " + e));
         w.println("wrote " + json + " and " + png);
         w.flush();
     }

@@ -6,16 +6,16 @@ import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.file.Path;
-import java.util.Locale;
 import org.twinlight.timing.period.EclipseEvent;
-import org.twinlight.timing.period.HalfPeriodCheck;
+import org.twinlight.timing.period.OddEvenComparison;
 import org.twinlight.timing.period.PeriodCandidate;
+import org.twinlight.timing.period.PeriodDecision;
 import org.twinlight.timing.period.PeriodSearchResult;
 
 /**
  * Writes {@code period.json}: the contract's {@code period}, {@code method}, {@code secondaryPhase} and
- * {@code candidates}, plus the epoch, the time scale, the eclipses, the half-period decision with its
- * evidence, the confirming statistic, the search settings, the input file and the software version.
+ * {@code candidates}, plus the epoch, the time scale, the eclipses, the period decision (confident, ambiguous
+ * or not significant) with its evidence and what would settle it, the comparison of alternate eclipses, the search settings, the input file and the software version.
  * Numbers that do not exist (NaN) are written as null.
  */
 public final class PeriodResultJson {
@@ -50,10 +50,12 @@ public final class PeriodResultJson {
         root.put("significant", r.significant());
         number(root, "sde", r.sde());
         root.put("significance", r.significanceNote());
-        if (r.secondary() != null) {
-            number(root, "secondaryPhase", r.secondary().phase());
-            double ratio = r.secondary().duration() / r.primary().duration();
-            double ratioError = Math.abs(ratio) * Math.hypot(r.secondary().durationError() / r.secondary().duration(),
+        decision(root.putObject("decision"), r.decision());
+        if (r.secondary().isPresent()) {
+            EclipseEvent sec = r.secondary().get();
+            number(root, "secondaryPhase", sec.phase());
+            double ratio = sec.duration() / r.primary().duration();
+            double ratioError = Math.abs(ratio) * Math.hypot(sec.durationError() / sec.duration(),
                     r.primary().durationError() / r.primary().duration());
             valueWithError(root.putObject("widthRatio"), ratio, ratioError);
         } else {
@@ -61,44 +63,33 @@ public final class PeriodResultJson {
             root.putNull("widthRatio");
         }
         eclipse(root, "primary", r.primary());
-        eclipse(root, "secondary", r.secondary());
-        HalfPeriodCheck h = r.halfPeriod();
-        ObjectNode half = root.putObject("halfPeriod");
-        half.put("decision", h.verdict().name().toLowerCase(Locale.ROOT).replace('_', '-'));
-        half.put("ambiguous", h.ambiguous());
-        number(half, "highestPeakPeriod", h.blsPeriodDays());
-        number(half, "doublePeriod", h.doublePeriodDays());
-        number(half, "secondarySnrAtHighestPeak", h.secondaryAtBlsPeriodSnr());
-        number(half, "secondarySnrThreshold", h.secondaryThresholdSnr());
-        eclipse(half, "oddEclipse", h.oddEclipse());
-        eclipse(half, "evenEclipse", h.evenEclipse());
-        number(half, "depthDifferenceSigma", h.depthDifferenceSigma());
-        number(half, "durationDifferenceSigma", h.durationDifferenceSigma());
-        number(half, "phaseOffsetFromHalf", h.phaseOffsetFromHalf());
-        number(half, "phaseOffsetSigma", h.phaseOffsetSigma());
-        number(half, "thresholdSigma", h.thresholdSigma());
-        half.put("explanation", h.explanation());
-        ObjectNode conf = root.putObject("confirmation");
-        conf.put("method", "PDM");
-        conf.put("reference", "phase dispersion minimisation, Stellingwerf 1978, ApJ 224, 953");
-        number(conf, "theta", r.candidates().get(0).pdmTheta());
-        conf.put("agrees", r.pdmAgrees());
-        conf.put("rule", "agrees when Θ at the period is below Θ at every runner-up that is not a harmonic of it");
+        eclipse(root, "secondary", r.secondary().orElse(null));
+        if (r.oddEven().isPresent()) {
+            oddEven(root.putObject("alternateEclipses"), r.oddEven().get());
+        } else {
+            root.putNull("alternateEclipses");
+        }
         ArrayNode cands = root.putArray("candidates");
         for (PeriodCandidate c : r.candidates()) {
             ObjectNode o = cands.addObject();
             number(o, "period", c.periodDays());
             number(o, "power", c.blsPower());
             o.put("method", "BLS");
+            number(o, "periodUncertainty", c.refined().periodErrorDays());
+            o.put("relation", c.relation());
             number(o, "sde", c.sde());
             number(o, "pdmTheta", c.pdmTheta());
-            o.put("role", c.role());
+            number(o, "timingReducedChi2", c.refined().timingReducedChiSquare().orElse(Double.NaN));
+            o.put("timings", c.refined().timings());
+            o.put("coherent", c.consistent());
+            o.put("assessment", c.assessment());
         }
         PeriodSearchResult.SearchSummary s = r.search();
         ObjectNode search = root.putObject("search");
         search.put("points", s.points());
         number(search, "baseline", s.baselineDays());
         number(search, "cadence", s.cadenceDays());
+        number(search, "resolution", s.resolutionDays());
         number(search, "minPeriod", s.minPeriodDays());
         number(search, "maxPeriod", s.maxPeriodDays());
         search.put("frequencies", s.frequencies());
@@ -111,6 +102,7 @@ public final class PeriodResultJson {
         units.put("depth", "relative flux (median = 1)");
         units.put("duration", "equivalent duration, fraction of the period");
         units.put("power", "BLS signal residue SR");
+        units.put("alternatives", "d");
         ObjectNode input = root.putObject("input");
         input.put("file", inputFile);
         input.put("sha256", sha256);
@@ -121,6 +113,36 @@ public final class PeriodResultJson {
         } catch (JsonProcessingException e) {
             throw new IllegalStateException("cannot serialise period result", e);
         }
+    }
+
+    private static void decision(ObjectNode o, PeriodDecision d) {
+        o.put("status", d.status().label());
+        number(o, "period", d.periodDays());
+        ArrayNode alt = o.putArray("alternatives");
+        d.alternativesDays().forEach(alt::add);
+        ArrayNode ev = o.putArray("evidence");
+        d.evidence().forEach(ev::add);
+        ArrayNode settle = o.putArray("toSettle");
+        d.toSettle().forEach(settle::add);
+        ArrayNode notes = o.putArray("notes");
+        d.notes().forEach(notes::add);
+        o.put("rule", "confident only when every coherent candidate is a multiple of the period, the data cover"
+                + " eclipses on consecutive cycles, and a second eclipse, a difference of alternate eclipses or a"
+                + " flat-bottomed eclipse decides between P and 2P; otherwise ambiguous");
+    }
+
+    private static void oddEven(ObjectNode o, OddEvenComparison c) {
+        number(o, "comparedAtPeriod", 2 * c.shortPeriodDays());
+        o.put("covered", c.covered());
+        o.put("evenGroups", c.evenGroups());
+        o.put("oddGroups", c.oddGroups());
+        number(o, "depthDifferenceSigma", c.depthDifferenceSigma());
+        number(o, "widthDifferenceSigma", c.widthDifferenceSigma());
+        number(o, "timeDifferenceSigma", c.shiftDifferenceSigma());
+        number(o, "chi2", c.chiSquare());
+        number(o, "chi2Threshold", OddEvenComparison.CHI2_THRESHOLD);
+        o.put("differ", c.differ());
+        o.put("explanation", c.describe());
     }
 
     private static void eclipse(ObjectNode parent, String name, EclipseEvent e) {

@@ -65,10 +65,10 @@ public final class PeriodogramPlot {
     static XYChart periodogramChart(PeriodSearchResult result, String source) {
         Periodogram pg = result.periodogram();
         XYChart chart = new XYChartBuilder().width(WIDTH).height(TOP_HEIGHT)
-                .title(String.format(Locale.ROOT, "BLS periodogram of %s: P = %s d, highest peak SDE %.1f%s", source,
-                        withError(result.periodDays(), result.periodUncertaintyDays()), result.sde(),
-                        !result.significant() ? " (NOT significant)"
-                                : result.halfPeriod().ambiguous() ? " (P or P/2: ambiguous)" : ""))
+                .title(String.format(Locale.ROOT, "BLS periodogram of %s: %s, P = %s d%s; highest peak SDE %.1f",
+                        source, result.decision().status().label().toUpperCase(Locale.ROOT),
+                        withError(result.periodDays(), result.periodUncertaintyDays()),
+                        alternatives(result.decision()), result.sde()))
                 .xAxisTitle("period (days, logarithmic)").yAxisTitle("signal residue SR").build();
         PlotFiles.style(chart);
         chart.getStyler().setXAxisLogarithmic(true);
@@ -92,44 +92,37 @@ public final class PeriodogramPlot {
         List<Double> ry = new ArrayList<>();
         List<Double> mx = new ArrayList<>();
         List<Double> my = new ArrayList<>();
-        PeriodCandidate best = null;
+        double p = result.periodDays();
         for (PeriodCandidate c : result.candidates()) {
-            if (c.role().equals("best")) {
-                best = c;
+            if (!Double.isFinite(c.blsPower()) || Math.abs(c.periodDays() - p) <= 1e-6 * p) {
                 continue;
             }
-            if (!Double.isFinite(c.blsPower())) {
-                continue;
-            }
-            boolean runner = c.role().startsWith("runner-up");
-            (runner ? rx : mx).add(c.periodDays());
-            (runner ? ry : my).add(c.blsPower());
-            String label = runner ? String.format(Locale.ROOT, "%.4f", c.periodDays())
-                    : c.role().equals("half") ? "P/2" : "2P";
-            chart.addAnnotation(new AnnotationText(label, c.periodDays(), c.blsPower() + 0.045 * maxPower, false));
+            (c.consistent() ? rx : mx).add(c.periodDays());
+            (c.consistent() ? ry : my).add(c.blsPower());
+            chart.addAnnotation(new AnnotationText(String.format(Locale.ROOT, "%.4f", c.periodDays()), c.periodDays(),
+                    c.blsPower() + 0.045 * maxPower, false));
         }
         if (!rx.isEmpty()) {
-            XYSeries r = chart.addSeries("runners-up", rx, ry);
+            XYSeries r = chart.addSeries("coherent candidates", rx, ry);
             r.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
             r.setMarker(SeriesMarkers.DIAMOND);
             r.setMarkerColor(PlotFiles.SECOND);
         }
         if (!mx.isEmpty()) {
-            XYSeries r = chart.addSeries("P/2 and 2P", mx, my);
+            XYSeries r = chart.addSeries("excluded candidates", mx, my);
             r.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
             r.setMarker(SeriesMarkers.TRIANGLE_UP);
             r.setMarkerColor(PlotFiles.THIRD);
         }
-        double p = result.periodDays();
         if (p >= minPeriod && p <= maxPeriod) {
-            XYSeries v = chart.addSeries(String.format(Locale.ROOT, "chosen P = %.6f d", p), new double[] {p, p},
+            XYSeries v = chart.addSeries(String.format(Locale.ROOT, "reported P = %.6f d", p), new double[] {p, p},
                     new double[] {0, maxPower * 1.05});
             v.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
             v.setMarker(SeriesMarkers.NONE);
             v.setLineColor(PlotFiles.MODEL);
             v.setLineWidth(1.5f);
         }
-        double half = result.halfPeriod().blsPeriodDays();
+        double half = result.periodogram().periodDays(peakIndex(result.periodogram()));
         if (Math.abs(half - p) / p > 1e-3 && half >= minPeriod && half <= maxPeriod) {
             XYSeries h = chart.addSeries(String.format(Locale.ROOT, "highest peak %.6f d", half),
                     new double[] {half, half}, new double[] {0, maxPower * 1.05});
@@ -140,8 +133,10 @@ public final class PeriodogramPlot {
             h.setLineStyle(new java.awt.BasicStroke(1.5f, java.awt.BasicStroke.CAP_BUTT,
                     java.awt.BasicStroke.JOIN_MITER, 10f, new float[] {6f, 4f}, 0f));
         }
+        PeriodCandidate best = result.candidates().stream()
+                .filter(c -> Math.abs(c.periodDays() - p) <= 1e-6 * p).findFirst().orElse(null);
         if (best != null && Double.isFinite(best.blsPower())) {
-            XYSeries b = chart.addSeries("chosen period", new double[] {best.periodDays()},
+            XYSeries b = chart.addSeries("reported period", new double[] {best.periodDays()},
                     new double[] {best.blsPower()});
             b.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
             b.setMarker(SeriesMarkers.CIRCLE);
@@ -181,12 +176,34 @@ public final class PeriodogramPlot {
         return new double[][] {Arrays.copyOf(px, m), Arrays.copyOf(py, m)};
     }
 
+    /** " (or a, b d)" for an ambiguity, else "". */
+    private static String alternatives(org.twinlight.timing.period.PeriodDecision d) {
+        if (d.alternativesDays().isEmpty()) {
+            return "";
+        }
+        StringBuilder b = new StringBuilder(" (or ");
+        for (int i = 0; i < d.alternativesDays().size() && i < 3; i++) {
+            b.append(i == 0 ? "" : ", ").append(String.format(Locale.ROOT, "%.6g", d.alternativesDays().get(i)));
+        }
+        return b.append(d.alternativesDays().size() > 3 ? ", ...)" : ")").toString();
+    }
+
+    private static int peakIndex(Periodogram pg) {
+        int best = 0;
+        for (int i = 1; i < pg.size(); i++) {
+            if (pg.power(i) > pg.power(best)) {
+                best = i;
+            }
+        }
+        return best;
+    }
+
     static XYChart foldedChart(PeriodSearchResult result, LightCurve lc) {
         double p = result.periodDays();
         double t0 = result.epochDays();
-        String secondary = result.secondary() == null ? "no secondary seen"
-                : String.format(Locale.ROOT, "secondary at phase %.4f, duration ratio %.2f",
-                        result.secondary().phase(), result.secondary().duration() / result.primary().duration());
+        String secondary = result.secondary().map(sec -> String.format(Locale.ROOT,
+                "secondary at phase %.4f, duration ratio %.2f", sec.phase(),
+                sec.duration() / result.primary().duration())).orElse("no secondary seen");
         String scale = lc.timeScale().isKnown() ? lc.timeScale().label() : "time scale unknown";
         XYChart chart = new XYChartBuilder().width(WIDTH).height(BOTTOM_HEIGHT)
                 .title(String.format(Locale.ROOT, "Folded at P = %.7f d, T0 = %.5f (%s); %s", p, t0, scale,
@@ -228,6 +245,11 @@ public final class PeriodogramPlot {
             if (count[b] > 0) {
                 bx.add((b + 0.5) / FOLDED_BINS - 0.25);
                 by.add(sum[b] / count[b]);
+            } else if (!by.isEmpty() && by.get(by.size() - 1) != null) {
+                // A phase with no data breaks the line (XChart leaves a gap at a null value): the mean is
+                // unknown there, not the straight line between its neighbours.
+                bx.add((b + 0.5) / FOLDED_BINS - 0.25);
+                by.add(null);
             }
         }
         XYSeries mean = chart.addSeries("mean in " + FOLDED_BINS + " phase bins", bx, by);

@@ -75,8 +75,10 @@ class PeriodCommandTest {
         for (JsonNode c : j.get("candidates")) {
             assertThat(c.has("period") && c.has("power") && c.has("method")).isTrue();
         }
-        assertThat(j.at("/halfPeriod/decision").asText()).isEqualTo("secondary-at-bls-period");
-        assertThat(j.at("/confirmation/method").asText()).isEqualTo("PDM");
+        assertThat(j.at("/decision/status").asText()).isEqualTo("confident");
+        assertThat(j.at("/decision/period").asDouble()).isEqualTo(j.at("/period/value").asDouble());
+        assertThat(j.at("/decision/evidence").size()).isGreaterThanOrEqualTo(2);
+        assertThat(j.at("/decision/alternatives").size()).isZero();
         assertThat(j.at("/input/file").asText()).isEqualTo("demo.csv");
         String sha = HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(Files.readAllBytes(lc)));
         assertThat(j.at("/input/sha256").asText()).isEqualTo(sha);
@@ -84,7 +86,8 @@ class PeriodCommandTest {
         BufferedImage png = ImageIO.read(out.resolve("periodogram.png").toFile());
         assertThat(png.getWidth()).isGreaterThan(800);
         assertThat(png.getHeight()).isGreaterThan(600);
-        assertThat(so.toString()).contains("period").contains("secondary at phase").contains("runners-up");
+        assertThat(so.toString()).contains("period").contains("secondary at phase").contains("DECISION Confident")
+                .contains("evidence:");
         try (var files = Files.list(out)) {
             assertThat(files.map(p -> p.getFileName().toString())).containsExactlyInAnyOrder("period.json",
                     "periodogram.png");
@@ -103,7 +106,7 @@ class PeriodCommandTest {
         JsonNode j = new ObjectMapper().readTree(out.resolve("period.json").toFile());
         assertThat(j.get("significant").asBoolean()).isFalse();
         assertThat(j.get("timeScale").asText()).isEqualTo("unknown");
-        assertThat(j.at("/halfPeriod/decision").asText()).isEqualTo("no-detection");
+        assertThat(j.at("/decision/status").asText()).isEqualTo("not-significant");
     }
 
     @Test

@@ -50,17 +50,43 @@ final class FoldedEclipses {
         this.flux = flux;
         this.periodDays = periodDays;
         this.phase = new double[n];
-        Integer[] order = new Integer[n];
         for (int i = 0; i < n; i++) {
             phase[i] = wrap((timesDays[i] - referenceDays) / periodDays);
-            order[i] = i;
         }
-        Arrays.sort(order, (a, b) -> Double.compare(phase[a], phase[b]));
+        // Bucket sort by phase (n buckets, insertion sort inside each): O(n) for phases spread over [0, 1),
+        // and no boxing; this runs once per trial period.
+        int[] start = new int[n + 1];
+        for (int i = 0; i < n; i++) {
+            start[Math.min(n - 1, (int) (phase[i] * n)) + 1]++;
+        }
+        for (int b = 0; b < n; b++) {
+            start[b + 1] += start[b];
+        }
+        int[] fill = java.util.Arrays.copyOf(start, n);
         sortedPhase = new double[n];
+        double[] sortedFlux = new double[n];
+        for (int i = 0; i < n; i++) {
+            int k = fill[Math.min(n - 1, (int) (phase[i] * n))]++;
+            sortedPhase[k] = phase[i];
+            sortedFlux[k] = flux[i];
+        }
+        for (int b = 0; b < n; b++) {
+            for (int k = start[b] + 1; k < start[b + 1]; k++) {
+                double ph = sortedPhase[k];
+                double fx = sortedFlux[k];
+                int j = k - 1;
+                while (j >= start[b] && sortedPhase[j] > ph) {
+                    sortedPhase[j + 1] = sortedPhase[j];
+                    sortedFlux[j + 1] = sortedFlux[j];
+                    j--;
+                }
+                sortedPhase[j + 1] = ph;
+                sortedFlux[j + 1] = fx;
+            }
+        }
         prefixFlux = new double[n + 1];
         for (int k = 0; k < n; k++) {
-            sortedPhase[k] = phase[order[k]];
-            prefixFlux[k + 1] = prefixFlux[k] + flux[order[k]];
+            prefixFlux[k + 1] = prefixFlux[k] + sortedFlux[k];
         }
         this.scatter = robustScatter(flux);
     }

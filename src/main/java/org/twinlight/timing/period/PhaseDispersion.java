@@ -33,13 +33,17 @@ final class PhaseDispersion {
         this.totalVariance = ss / (flux.length - 1);
     }
 
+    /** Θ and the degrees of freedom of the pooled in-bin variance. */
+    record Theta(double theta, long degreesOfFreedom) {
+    }
+
     /**
      * Θ at {@code periodDays} with {@code bins} equal phase bins in each of {@link #COVERS} covers (the
      * bin grid shifted by 1/COVERS of a bin per cover; Stellingwerf's (N<sub>b</sub>, N<sub>c</sub>)
      * scheme), pooled over all bins of all covers. The covers make Θ less sensitive to where the bin
      * edges fall on an eclipse.
      */
-    double theta(double periodDays, int bins) {
+    Theta theta(double periodDays, int bins) {
         double pooled = 0;
         long dof = 0;
         double[] sum = new double[bins];
@@ -68,18 +72,74 @@ final class PhaseDispersion {
             }
         }
         if (dof == 0 || totalVariance == 0) {
-            return Double.NaN;
+            return new Theta(Double.NaN, 0);
         }
-        return pooled / dof / totalVariance;
+        return new Theta(pooled / dof / totalVariance, dof / COVERS);
     }
 
     /**
-     * Θ with bins of a fixed width in days (so P, P/2 and 2P are compared at the same time
-     * resolution), at least 10 bins and on average at least 5 points per bin.
+     * Θ with bins of a fixed width in days, so that trial periods are compared at the same time
+     * resolution (bins with fewer than two points drop out of the pooled variance, which stays an
+     * unbiased estimate however many bins are empty). At least 10 bins, at most twice as many as points.
      */
-    double thetaWithBinWidth(double periodDays, double binWidthDays) {
-        int bins = (int) Math.ceil(periodDays / binWidthDays);
-        bins = Math.max(10, Math.min(bins, flux.length / 5));
-        return theta(periodDays, Math.max(2, bins));
+    Theta thetaWithBinWidth(double periodDays, double binWidthDays) {
+        long bins = (long) Math.ceil(periodDays / binWidthDays);
+        bins = Math.max(10, Math.min(bins, 2L * flux.length));
+        return theta(periodDays, (int) bins);
+    }
+
+    /**
+     * Dispersion inside the eclipses against outside, F = s²<sub>dip</sub>/s²<sub>out</sub>: the pooled
+     * in-bin variances (bins of {@code binWidthDays}) of the bins whose mean lies more than 5σ of a mean
+     * below the out-of-eclipse level (the median of the bin means), and of the others. A period that folds
+     * eclipses onto out-of-eclipse data from other cycles mixes both levels in its eclipse bins, which
+     * raises F however few bins are mixed; correlated noise (nightly zero points) raises both variances
+     * alike. At a true period F stays near its value at any multiple of it.
+     *
+     * @param noiseSigma the point-to-point scatter of the data (for the 5σ selection)
+     */
+    Theta eclipseDispersion(double periodDays, double binWidthDays, double noiseSigma) {
+        int bins = (int) Math.max(10, Math.min(Math.ceil(periodDays / binWidthDays), 2L * flux.length));
+        double[] sum = new double[bins];
+        double[] sumSq = new double[bins];
+        int[] count = new int[bins];
+        double t0 = timesDays[0];
+        for (int i = 0; i < flux.length; i++) {
+            double p = (timesDays[i] - t0) / periodDays;
+            int b = Math.min(bins - 1, (int) ((p - Math.floor(p)) * bins));
+            sum[b] += flux[i];
+            sumSq[b] += flux[i] * flux[i];
+            count[b]++;
+        }
+        double[] means = new double[bins];
+        int filled = 0;
+        for (int b = 0; b < bins; b++) {
+            if (count[b] > 0) {
+                means[filled++] = sum[b] / count[b];
+            }
+        }
+        double level = org.twinlight.photometry.RobustStatistics.medianInPlace(means, filled);
+        double dipSs = 0;
+        long dipDof = 0;
+        double outSs = 0;
+        long outDof = 0;
+        for (int b = 0; b < bins; b++) {
+            if (count[b] < 2) {
+                continue;
+            }
+            double m = sum[b] / count[b];
+            double ss = Math.max(0, sumSq[b] - count[b] * m * m);
+            if (level - m > 5 * noiseSigma / Math.sqrt(count[b])) {
+                dipSs += ss;
+                dipDof += count[b] - 1;
+            } else {
+                outSs += ss;
+                outDof += count[b] - 1;
+            }
+        }
+        if (dipDof == 0 || outDof == 0 || outSs == 0) {
+            return new Theta(Double.NaN, 0);
+        }
+        return new Theta((dipSs / dipDof) / (outSs / outDof), dipDof);
     }
 }

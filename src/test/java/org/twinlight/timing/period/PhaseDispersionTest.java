@@ -47,7 +47,7 @@ class PhaseDispersionTest {
             }
         }
         double expected = pooled / dof / new Variance(true).evaluate(x);
-        assertThat(new PhaseDispersion(t, x).theta(period, bins)).isCloseTo(expected, within(1e-9));
+        assertThat(new PhaseDispersion(t, x).theta(period, bins).theta()).isCloseTo(expected, within(1e-9));
     }
 
     /** For white noise no period is special: Θ averages 1 over seeds (Stellingwerf 1978, Sect. II). */
@@ -63,7 +63,7 @@ class PhaseDispersionTest {
                 t[i] = i * 0.02;
                 x[i] = rnd.nextGaussian();
             }
-            sum += new PhaseDispersion(t, x).theta(1.37, 20);
+            sum += new PhaseDispersion(t, x).theta(1.37, 20).theta();
         }
         assertThat(sum / seeds).isCloseTo(1.0, within(0.03));
     }
@@ -81,7 +81,7 @@ class PhaseDispersionTest {
             // 0.6P to 1.6P: excludes the half period (P/2 folds the two unequal eclipses together,
             // worse) and the double period (also a minimum, as every multiple of P is).
             for (double p = 0.6 * 1.618; p < 1.6 * 1.618; p += 0.0004) {
-                double th = pdm.thetaWithBinWidth(p, binDays);
+                double th = pdm.thetaWithBinWidth(p, binDays).theta();
                 if (th < bestTheta) {
                     bestTheta = th;
                     bestP = p;
@@ -89,7 +89,7 @@ class PhaseDispersionTest {
             }
             assertThat(bestP).isCloseTo(1.618, within(0.002));
             assertThat(bestTheta).isLessThan(0.5);
-            assertThat(pdm.thetaWithBinWidth(1.618 / 2, binDays)).isGreaterThan(bestTheta + 0.1);
+            assertThat(pdm.thetaWithBinWidth(1.618 / 2, binDays).theta()).isGreaterThan(bestTheta + 0.1);
         }
     }
 }
