@@ -21,6 +21,7 @@ import picocli.CommandLine.Option;
             InspectCommand.class,
             MinimaCommand.class,
             PeriodCommand.class,
+            PredictCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 
