@@ -11,12 +11,13 @@ import org.junit.jupiter.api.Test;
 
 /**
  * The layering of STYLE/DEVELOPERS.md held by test: the library core (photometry, time, orbit,
- * eclipse, fit, timing, dimensions) knows nothing of the command line, plots or the report layer;
+ * eclipse, fit, timing, dimensions, sky, planning) knows nothing of the command line, plots or the report layer;
  * arrows point inwards only; no package cycles.
  */
 class LayeringTest {
     private static final String[] CORE = {"org.twinlight.photometry..", "org.twinlight.time..", "org.twinlight.orbit..",
-        "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions.."};
+        "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..",
+        "org.twinlight.sky..", "org.twinlight.planning.."};
 
     private static JavaClasses classes;
 
@@ -61,7 +62,8 @@ class LayeringTest {
     void timeAndOrbitAreIndependent() {
         noClasses().that().resideInAnyPackage("org.twinlight.time..", "org.twinlight.orbit..")
                 .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.eclipse..",
-                        "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..")
+                        "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..",
+                        "org.twinlight.sky..", "org.twinlight.planning..")
                 .check(classes);
     }
 
@@ -79,6 +81,23 @@ class LayeringTest {
                 .check(classes);
         noClasses().that().resideInAPackage("org.twinlight.timing.minima..")
                 .should().dependOnClassesThat().resideInAPackage("org.twinlight.timing.period..")
+                .check(classes);
+    }
+
+    @Test
+    void skyUsesOnlyTime() {
+        noClasses().that().resideInAPackage("org.twinlight.sky..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.orbit..",
+                        "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..",
+                        "org.twinlight.dimensions..", "org.twinlight.planning..", "java.nio.file..")
+                .check(classes);
+    }
+
+    @Test
+    void planningReadsNoFilesAndKnowsNoFit() {
+        noClasses().that().resideInAPackage("org.twinlight.planning..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.fit..",
+                        "java.nio.file..", "com.fasterxml.jackson..", "org.apache.commons.csv..")
                 .check(classes);
     }
 
