@@ -25,7 +25,8 @@ import org.twinlight.timing.MinimumType;
  * is undone); its 1σ from the ephemeris covariance; first and last contact from the eclipse's
  * extent; the target's altitude and azimuth (precessed from J2000 to the date, Meeus ch. 21;
  * mean sidereal time, Meeus ch. 12; Meeus ch. 13) and the Sun's altitude at first contact,
- * minimum and last contact; the Moon at the minimum. The verdict samples the eclipse every
+ * minimum and last contact; the Moon at the minimum (Sun and Moon interpolated in an hourly
+ * table, {@link SunMoonTable}). The verdict samples the eclipse every
  * {@value #SAMPLE_MINUTES} minutes (and at its contacts and minimum): whole when every sample is
  * within the limits, partial when the minimum and one whole branch are, else not observable. The
  * Sun's place at the minimum serves for the whole eclipse (it moves about 1° a day: under 0.15° of
@@ -56,8 +57,13 @@ public final class Planner {
     public static Plan plan(List<PlanningTarget> targets, Site site, DateRange range, ObservingLimits limits) {
         List<Prediction> all = new ArrayList<>();
         List<String> notes = new ArrayList<>();
-        for (PlanningTarget target : targets) {
-            List<Prediction> mine = predict(target, site, range, limits);
+        SunMoonTable table = new SunMoonTable(range.startJd(), range.endJd());
+        // targets are independent: predicted in parallel, merged in the order given
+        List<List<Prediction>> perTarget = targets.parallelStream()
+                .map(target -> predict(target, site, range, limits, table)).toList();
+        for (int k = 0; k < targets.size(); k++) {
+            PlanningTarget target = targets.get(k);
+            List<Prediction> mine = perTarget.get(k);
             long large = mine.stream().filter(Prediction::errorExceedsTenthOfEclipse).count();
             if (large > 0) {
                 notes.add(String.format(Locale.ROOT, "%s: the 1σ timing error exceeds a tenth of the eclipse length"
@@ -71,7 +77,8 @@ public final class Planner {
     }
 
     /** Every minimum of one target in the range, in time order. */
-    static List<Prediction> predict(PlanningTarget target, Site site, DateRange range, ObservingLimits limits) {
+    static List<Prediction> predict(PlanningTarget target, Site site, DateRange range, ObservingLimits limits,
+            SunMoonTable table) {
         PredictionEphemeris eph = target.ephemeris();
         TimeScale scale = eph.timeScale();
         double zero = scale.zeroPointJd();
@@ -93,14 +100,14 @@ public final class Planner {
                 if (utc.jd() < range.startJd() || utc.jd() >= range.endJd()) {
                     continue;
                 }
-                out.add(event(target, type, n, own, utc, j2000, site, limits));
+                out.add(event(target, type, n, own, utc, j2000, site, limits, table));
             }
         }
         return out;
     }
 
     private static Prediction event(PlanningTarget target, MinimumType type, long n, double own, JulianDate utc,
-            Equatorial j2000, Site site, ObservingLimits limits) {
+            Equatorial j2000, Site site, ObservingLimits limits, SunMoonTable table) {
         PredictionEphemeris eph = target.ephemeris();
         double cycle = PredictionEphemeris.cycle(n, type);
         double error = eph.errorDays(cycle);
@@ -108,8 +115,8 @@ public final class Planner {
         double after = target.extent().afterDays(type);
         Equatorial direction = Precession.fromJ2000(j2000, SunAndMoon.centuriesSinceJ2000(utc));
         double lst = SiderealTime.localMeanDeg(utc, site);
-        SunPlace sun = SunPlace.at(utc);
-        MoonPlace moon = MoonPlace.at(utc, site, sun);
+        SunPlace sun = table.sun(utc.jd());
+        MoonPlace moon = MoonPlace.seenFrom(table.moonKm(utc.jd()), site, lst, sun);
         Track track = new Track(direction, sun.direction(), site.latitudeDeg(), lst);
         SkyAtMoment start = track.at(utc, -before);
         SkyAtMoment minimum = track.at(utc, 0);
@@ -163,13 +170,18 @@ public final class Planner {
         return null;
     }
 
+    /** True when a moment is within the limits (the cheap form of {@link #failure}). */
+    private static boolean within(Track track, double offset, ObservingLimits limits) {
+        return track.sunAltitude(offset) <= limits.sunBelowDeg() && track.targetAltitude(offset) >= limits.minAltitudeDeg();
+    }
+
     /** The first failing offset in [from, to] (walking from {@code from} towards {@code to}), or NaN. */
     private static double firstFailure(Track track, double from, double to, ObservingLimits limits) {
         double step = SAMPLE_MINUTES / 1440.0;
         int n = (int) Math.ceil(Math.abs(to - from) / step);
         for (int i = 0; i <= n; i++) {
             double x = i == n ? to : from + Math.signum(to - from) * i * step;
-            if (failure(track, x, limits) != null) {
+            if (!within(track, x, limits)) {
                 return x;
             }
         }

@@ -2,7 +2,7 @@ package org.twinlight.planning;
 
 import java.time.Instant;
 import java.time.ZoneOffset;
-import java.time.format.DateTimeFormatter;
+import java.time.LocalDateTime;
 import org.twinlight.time.JulianDate;
 import org.twinlight.time.TimeStandard;
 
@@ -14,12 +14,6 @@ public final class UtcText {
 
     /** Julian date of 1970-01-01T00:00:00Z. */
     private static final double UNIX_EPOCH_JD = 2440587.5;
-
-    private static final DateTimeFormatter ISO = DateTimeFormatter.ofPattern("yyyy-MM-dd'T'HH:mm:ss'Z'")
-            .withZone(ZoneOffset.UTC);
-    private static final DateTimeFormatter HOUR_MINUTE = DateTimeFormatter.ofPattern("HH:mm").withZone(ZoneOffset.UTC);
-    private static final DateTimeFormatter DATE_HOUR_MINUTE = DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm")
-            .withZone(ZoneOffset.UTC);
 
     private UtcText() {
     }
@@ -35,16 +29,50 @@ public final class UtcText {
 
     /** ISO 8601, e.g. {@code 2027-03-14T21:07:33Z}. */
     public static String iso(JulianDate utc) {
-        return ISO.format(instant(utc));
+        LocalDateTime t = LocalDateTime.ofEpochSecond(instant(utc).getEpochSecond(), 0, ZoneOffset.UTC);
+        StringBuilder sb = new StringBuilder(20);
+        date(sb, t).append('T');
+        two(sb, t.getHour()).append(':');
+        two(sb, t.getMinute()).append(':');
+        return two(sb, t.getSecond()).append('Z').toString();
     }
 
     /** {@code HH:mm}. */
     public static String hourMinute(JulianDate utc) {
-        return HOUR_MINUTE.format(instant(utc));
+        LocalDateTime t = LocalDateTime.ofEpochSecond(instant(utc).getEpochSecond(), 0, ZoneOffset.UTC);
+        StringBuilder sb = new StringBuilder(5);
+        two(sb, t.getHour()).append(':');
+        return two(sb, t.getMinute()).toString();
     }
 
     /** {@code yyyy-MM-dd HH:mm}. */
     public static String dateHourMinute(JulianDate utc) {
-        return DATE_HOUR_MINUTE.format(instant(utc));
+        LocalDateTime t = LocalDateTime.ofEpochSecond(instant(utc).getEpochSecond(), 0, ZoneOffset.UTC);
+        StringBuilder sb = new StringBuilder(16);
+        date(sb, t).append(' ');
+        two(sb, t.getHour()).append(':');
+        return two(sb, t.getMinute()).toString();
+    }
+
+    /** RFC 5545 §3.3.5 UTC form, e.g. {@code 20270314T210733Z}. */
+    public static String compact(Instant instant) {
+        LocalDateTime t = LocalDateTime.ofEpochSecond(instant.getEpochSecond(), 0, ZoneOffset.UTC);
+        StringBuilder sb = new StringBuilder(16);
+        sb.append(t.getYear());
+        two(sb, t.getMonthValue());
+        two(sb, t.getDayOfMonth()).append('T');
+        two(sb, t.getHour());
+        two(sb, t.getMinute());
+        return two(sb, t.getSecond()).append('Z').toString();
+    }
+
+    private static StringBuilder date(StringBuilder sb, LocalDateTime t) {
+        sb.append(t.getYear()).append('-');
+        two(sb, t.getMonthValue()).append('-');
+        return two(sb, t.getDayOfMonth());
+    }
+
+    private static StringBuilder two(StringBuilder sb, int v) {
+        return sb.append((char) ('0' + v / 10)).append((char) ('0' + v % 10));
     }
 }

@@ -33,12 +33,31 @@ public record MoonPlace(Equatorial direction, double distanceKm, double illumina
      * @param sun the Sun at the same instant
      */
     public static MoonPlace at(JulianDate utc, Site site, SunPlace sun) {
+        return seenFrom(geocentricKm(utc), site, SiderealTime.localMeanDeg(utc, site), sun);
+    }
+
+    /**
+     * The Moon's geocentric position, km, mean equator and equinox of date: the low-precision
+     * ecliptic position rotated by the mean obliquity of date (Meeus 1998, eq. 22.2).
+     *
+     * @param utc the instant, 1800–2050
+     */
+    public static Vector3D geocentricKm(JulianDate utc) {
         double t = SunAndMoon.centuriesSinceJ2000(utc);
-        Vector3D ecliptic = SunAndMoon.moonGeocentricEclipticOfDateKm(t);
-        Vector3D geocentric = eclipticToEquatorial(ecliptic, Precession.meanObliquityDeg(t));
-        double lst = SiderealTime.localMeanDeg(utc, site);
-        Vector3D topocentric = geocentric.subtract(siteVectorKm(site, lst));
-        double k = illuminatedFraction(geocentric, sun.vectorKm());
+        return eclipticToEquatorial(SunAndMoon.moonGeocentricEclipticOfDateKm(t), Precession.meanObliquityDeg(t));
+    }
+
+    /**
+     * The Moon seen from a site, from its geocentric position (e.g. interpolated in a table).
+     *
+     * @param geocentricKm geocentric Moon, km, equator of date
+     * @param site the site
+     * @param localSiderealDeg local sidereal time at the instant, degrees
+     * @param sun the Sun at the instant
+     */
+    public static MoonPlace seenFrom(Vector3D geocentricKm, Site site, double localSiderealDeg, SunPlace sun) {
+        Vector3D topocentric = geocentricKm.subtract(siteVectorKm(site, localSiderealDeg));
+        double k = illuminatedFraction(geocentricKm, sun.vectorKm());
         return new MoonPlace(Equatorial.of(topocentric), topocentric.getNorm(), k);
     }
 

@@ -28,8 +28,13 @@ public record SunPlace(Equatorial direction, double distanceAu) {
         return new SunPlace(Precession.fromJ2000(Equatorial.of(sun), t), sun.getNorm());
     }
 
+    /** The Sun from its geocentric position vector (km, equator of date), e.g. interpolated in a table. */
+    public static SunPlace ofVectorKm(Vector3D km) {
+        return new SunPlace(Equatorial.of(km), km.getNorm() / AU_KM);
+    }
+
     /** Geocentric position vector, km, equator of date. */
-    Vector3D vectorKm() {
+    public Vector3D vectorKm() {
         return direction.unitVector().scalarMultiply(distanceAu * AU_KM);
     }
 }
