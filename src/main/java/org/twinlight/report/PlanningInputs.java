@@ -287,6 +287,11 @@ public final class PlanningInputs {
     }
 
     private static double uncertainty(JsonNode holder, Path file, String key, List<String> notes) {
+        if (holder.path(key).path("free").isBoolean() && !holder.path(key).path("free").asBoolean()) {
+            notes.add(file + ": '" + key + "' was held fixed in the fit, so its uncertainty is unknown and taken as 0:"
+                    + " the predicted times' errors are underestimated; prefer an ephemeris.json from minima");
+            return 0;
+        }
         JsonNode v = holder.path(key).path("uncertainty");
         if (!v.isNumber() || !(v.asDouble() >= 0)) {
             notes.add(file + ": no uncertainty for '" + key + "'; taken as 0, so the predicted times' errors are"
