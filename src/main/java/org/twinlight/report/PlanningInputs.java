@@ -58,22 +58,17 @@ public final class PlanningInputs {
     public static ReadEphemeris readEphemerisJson(Path file) {
         JsonNode root = readJson(file);
         List<String> notes = new ArrayList<>();
-        double epoch = value(root, file, "epoch");
-        double period = value(root, file, "period");
-        double sEpoch = uncertainty(root, file, "epoch", notes);
-        double sPeriod = uncertainty(root, file, "period", notes);
-        TimeScale scale = timeScale(root, file);
-        double cov = covariance(root, file, "epoch", "period", sEpoch, sPeriod, notes);
         double phase = 0.5;
         if (root.path("secondaryPhaseMeasured").path("value").isNumber()) {
             phase = root.get("secondaryPhaseMeasured").get("value").asDouble();
         }
+        PredictionEphemeris eph = ephemeris(root, root, file, phase, notes);
         String preferred = root.path("bic").path("preferred").asText("");
         if (!preferred.isEmpty() && !preferred.equals("linear")) {
             notes.add(file + ": the O−C analysis prefers the " + preferred + " ephemeris; predictions use the linear"
                     + " one, which drifts from it with time: check recent O−C before relying on far-off minima");
         }
-        return new ReadEphemeris(build(file, epoch, period, sEpoch, sPeriod, cov, scale, phase), notes);
+        return new ReadEphemeris(eph, notes);
     }
 
     /**
@@ -88,14 +83,8 @@ public final class PlanningInputs {
         if (!params.isObject()) {
             throw BadInputException.at(file, "key 'parameters'", null, "missing: is this a fit.json written by fit?");
         }
-        double epoch = value(params, file, "epoch");
-        double period = value(params, file, "period");
-        double sEpoch = uncertainty(params, file, "epoch", notes);
-        double sPeriod = uncertainty(params, file, "period", notes);
-        TimeScale scale = timeScale(root, file);
-        double cov = covariance(root, file, "epoch", "period", sEpoch, sPeriod, notes);
         double phase = readFitModel(file).orbit().secondaryPhase();
-        return new ReadEphemeris(build(file, epoch, period, sEpoch, sPeriod, cov, scale, phase), notes);
+        return new ReadEphemeris(ephemeris(params, root, file, phase, notes), notes);
     }
 
     /** The fitted model of a {@code fit.json} (its {@code model} block, a model file). */
@@ -255,8 +244,18 @@ public final class PlanningInputs {
         }
     }
 
-    private static PredictionEphemeris build(Path file, double epoch, double period, double sEpoch, double sPeriod,
-            double cov, TimeScale scale, double phase) {
+    /**
+     * The ephemeris from {@code epoch} and {@code period} entries in {@code holder}, with the time
+     * scale and covariance from {@code root}.
+     */
+    private static PredictionEphemeris ephemeris(JsonNode holder, JsonNode root, Path file, double phase,
+            List<String> notes) {
+        double epoch = value(holder, file, "epoch");
+        double period = value(holder, file, "period");
+        double sEpoch = uncertainty(holder, file, "epoch", notes);
+        double sPeriod = uncertainty(holder, file, "period", notes);
+        TimeScale scale = timeScale(root, file);
+        double cov = covariance(root, file, "epoch", "period", sEpoch, sPeriod, notes);
         try {
             return new PredictionEphemeris(new Ephemeris(epoch, period), sEpoch, sPeriod, cov, scale, phase);
         } catch (BadInputException e) {
