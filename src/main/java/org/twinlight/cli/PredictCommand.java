@@ -159,6 +159,11 @@ public final class PredictCommand implements Callable<Integer> {
         inputs.add(targetList);
         OutputTargets.checkDirectory(out, OUTPUTS, inputs);
         List<String> notes = new ArrayList<>();
+        if (targetList != null && (ephemerisFile != null || fitFile != null || periodDays != null || epochDays != null
+                || timeScale != null || ra != null || dec != null)) {
+            throw new BadInputException("option --targets: the target list gives each target's position and"
+                    + " ephemeris; leave out --ephemeris, --fit, --period, --epoch, --time-scale, --ra and --dec");
+        }
         List<PlanningTarget> targets = targetList != null ? PlanningInputs.readTargetList(targetList, defaultExtent(),
                 notes) : List.of(singleTarget(notes));
         Plan plan = Planner.plan(targets, where, range, limits);

@@ -87,6 +87,15 @@ class PredictCommandTest extends CommandTestSupport {
     }
 
     @Test
+    void aTargetListWithASinglePositionIsAmbiguous() throws IOException {
+        Path list = file("targets.csv", "name,ra,dec,period,epoch,time_scale,duration_hours\n"
+                + "Alpha Demo,08:00:00,+40:00:00,0.8341,2461470.3172,BJD_TDB,3.6\n");
+        assertThat(run("--targets", list.toString(), "--ra", "10", "--dec", "20", "--site", "50,10", "--start",
+                "2027-03-01", "--end", "2027-03-02", "--out", dir.resolve("out").toString())).isEqualTo(2);
+        assertThat(err.toString()).contains("option --targets", "leave out");
+    }
+
+    @Test
     void anImpossibleLatitudeIsBadInput() {
         List<String> a = ephemerisArgs("--start", "2027-03-01", "--end", "2027-03-04");
         a.set(a.indexOf("50,10,300"), "95,10");
