@@ -67,13 +67,13 @@ public final class PlanChart {
     private static XYChart tracks(Plan plan) {
         double jd0 = plan.range().startJd();
         double hours = plan.range().days() * HOURS_PER_DAY;
-        XYChart chart = new XYChartBuilder().width(1100).height(620)
+        XYChart chart = new XYChartBuilder().width(1250).height(620)
                 .title(String.format(Locale.ROOT, "Minima seen from %.2f°, %.2f° (%s to %s, 0h UTC)",
                         plan.site().latitudeDeg(), plan.site().longitudeDeg(), plan.range().start(), plan.range().end()))
                 .xAxisTitle("time (UTC, month-day hh:mm)").yAxisTitle("altitude (°, geometric)").build();
         PlotFiles.style(chart);
-        chart.getStyler().setLegendPosition(Styler.LegendPosition.OutsideS);
-        chart.getStyler().setLegendLayout(Styler.LegendLayout.Horizontal);
+        chart.getStyler().setLegendPosition(Styler.LegendPosition.OutsideE);
+        chart.getStyler().setLegendLayout(Styler.LegendLayout.Vertical);
         chart.getStyler().setYAxisMin(0.0).setYAxisMax(90.0).setXAxisMin(0.0).setXAxisMax(hours);
         chart.getStyler().setMarkerSize(0);
         LocalDate start = plan.range().start();
@@ -104,6 +104,11 @@ public final class PlanChart {
                 new double[] {0, hours}, new double[] {plan.limits().minAltitudeDeg(), plan.limits().minAltitudeDeg()});
         styleLine(limit, Color.DARK_GRAY, dashed(1.2f));
 
+        for (Verdict v : Verdict.values()) {
+            // a key for the line style of each verdict: one point outside the fixed axis range, so nothing is drawn
+            XYSeries key = chart.addSeries("eclipse, " + v.label(), new double[] {-1e6}, new double[] {-1e6});
+            styleLine(key, Color.GRAY, eclipseStroke(v));
+        }
         List<PlanningTarget> targets = plan.targets();
         for (int k = 0; k < targets.size(); k++) {
             PlanningTarget tg = targets.get(k);
@@ -126,7 +131,7 @@ public final class PlanChart {
                 List<Prediction> mine = plan.predictions().stream()
                         .filter(p -> p.target().equals(tg.name()) && p.verdict() == v).toList();
                 if (!mine.isEmpty()) {
-                    eclipseSegments(chart, tg.name() + " " + v.label(), mine, jd0, ofDate, plan, c, v, k < 8);
+                    eclipseSegments(chart, tg.name() + " " + v.label(), mine, jd0, ofDate, plan, c, v);
                 }
             }
         }
@@ -134,7 +139,7 @@ public final class PlanChart {
     }
 
     private static void eclipseSegments(XYChart chart, String name, List<Prediction> events, double jd0,
-            Equatorial ofDate, Plan plan, Color c, Verdict v, boolean inLegend) {
+            Equatorial ofDate, Plan plan, Color c, Verdict v) {
         List<Double> xs = new ArrayList<>();
         List<Double> ys = new ArrayList<>();
         for (Prediction p : events) {
@@ -149,13 +154,17 @@ public final class PlanChart {
             ys.add(null);
         }
         XYSeries s = chart.addSeries(name, xs, ys);
-        s.setShowInLegend(inLegend);
-        styleLine(s, c, switch (v) {
+        s.setShowInLegend(false);
+        styleLine(s, c, eclipseStroke(v));
+    }
+
+    private static BasicStroke eclipseStroke(Verdict v) {
+        return switch (v) {
             case WHOLE -> new BasicStroke(6f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_ROUND);
             case PARTIAL -> new BasicStroke(6f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_ROUND, 10f, new float[] {8f, 5f}, 0f);
             case NOT_OBSERVABLE -> new BasicStroke(2.5f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_ROUND, 10f,
                     new float[] {2f, 3f}, 0f);
-        });
+        };
     }
 
     // ---------------------------------------------------------------- night calendar
