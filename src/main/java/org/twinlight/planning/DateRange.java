@@ -15,9 +15,12 @@ public record DateRange(LocalDate start, LocalDate end) {
     /** Longest range accepted without being forced: ten years (a typo in a year is likelier than a wish). */
     public static final int MAX_YEARS_UNFORCED = 10;
 
-    /** First and last years the ephemerides and the leap-second table cover (UTC from 1972, Sun to 2050). */
-    static final LocalDate FIRST = LocalDate.of(1972, 1, 1);
-    static final LocalDate LAST = LocalDate.of(2051, 1, 1);
+    /**
+     * The span of the leap-second table (UTC from 1972 January 1) and of the Sun and Moon
+     * ephemerides (to 2050 December 31), less the one-day margin of the planner's hourly table.
+     */
+    static final LocalDate FIRST = LocalDate.of(1972, 1, 2);
+    static final LocalDate LAST = LocalDate.of(2050, 12, 29);
 
     /**
      * Checks a range.
@@ -34,8 +37,8 @@ public record DateRange(LocalDate start, LocalDate end) {
                     + " (the range runs from 0h UTC of --start to 0h UTC of --end)");
         }
         if (start.isBefore(FIRST) || end.isAfter(LAST)) {
-            throw new BadInputException("date range " + start + " to " + end + " reaches outside 1972-01-01 to"
-                    + " 2051-01-01, where UTC and the Sun and Moon ephemerides are defined");
+            throw new BadInputException("date range " + start + " to " + end + " reaches outside " + FIRST + " to "
+                    + LAST + ", where UTC and the Sun and Moon ephemerides are defined");
         }
         if (!force && start.plusYears(MAX_YEARS_UNFORCED).isBefore(end)) {
             throw new BadInputException("date range " + start + " to " + end + " is longer than "

@@ -191,6 +191,20 @@ class PlannerTest {
     }
 
     @Test
+    void rangesAtBothEndsOfTheEphemeridesArePlannedAndBeyondThemRefused() {
+        PredictionEphemeris eph = PredictionEphemeris.of(2461470.3172, 0.8341, 1e-4, 1e-6, TimeScale.BJD_TDB);
+        for (LocalDate start : new LocalDate[] {LocalDate.of(1972, 1, 2), LocalDate.of(2050, 12, 25)}) {
+            DateRange r = DateRange.of(start, start.plusDays(4), false);
+            assertThat(Planner.plan(List.of(target("A", eph)), SITE, r, ObservingLimits.DEFAULT).predictions())
+                    .hasSizeBetween(8, 11);
+        }
+        assertThatThrownBy(() -> DateRange.of(LocalDate.of(1971, 12, 30), LocalDate.of(1972, 1, 5), false))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("1972-01-02");
+        assertThatThrownBy(() -> DateRange.of(LocalDate.of(2050, 12, 26), LocalDate.of(2051, 1, 1), false))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("2050-12-29");
+    }
+
+    @Test
     void julianDateTextIsIso8601() {
         assertThat(UtcText.iso(JulianDate.ofDateTime(2027, 3, 14, 21, 7, 33.4, TimeScale.JD_UTC)))
                 .isEqualTo("2027-03-14T21:07:33Z");
