@@ -18,6 +18,7 @@ import org.twinlight.planning.Plan;
 import org.twinlight.planning.Planner;
 import org.twinlight.planning.PlanningTarget;
 import org.twinlight.planning.PredictionEphemeris;
+import org.twinlight.report.FitFiles;
 import org.twinlight.report.PlanChart;
 import org.twinlight.report.PlanTable;
 import org.twinlight.report.PlanningInputs;
@@ -168,6 +169,9 @@ public final class PredictCommand implements Callable<Integer> {
                 notes) : List.of(singleTarget(notes));
         Plan plan = Planner.plan(targets, where, range, limits);
         notes.addAll(plan.notes());
+        if (targets.stream().anyMatch(t -> t.extent().source().startsWith("fitted model"))) {
+            notes.add("first and last contacts come from the fitted model: " + FitFiles.CAUTION);
+        }
         if (observableOnly) {
             plan = plan.observableOnly();
         }

@@ -61,6 +61,10 @@ public final class PredictionsCalendar {
         line(sb, "CALSCALE:GREGORIAN");
         line(sb, "METHOD:PUBLISH");
         line(sb, "X-WR-CALNAME:" + escape("Eclipsing-binary minima"));
+        line(sb, "X-WR-CALDESC:" + escape("Predicted minima (first to last contact) that can be observed from "
+                + plan.site().latitudeDeg() + "°, " + plan.site().longitudeDeg() + "°. Times carry the ephemeris's"
+                + " 1σ only; contacts from a fitted model depend on its assumptions (spherical stars, the chosen"
+                + " limb-darkening law). predictions.csv lists every minimum."));
         String stamp = UtcText.compact(created);
         for (Prediction p : plan.predictions()) {
             if (!p.verdict().observable()) {
