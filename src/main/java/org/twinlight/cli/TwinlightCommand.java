@@ -23,6 +23,7 @@ import picocli.CommandLine.Option;
             PeriodCommand.class,
             VelocitiesCommand.class,
             DimensionsCommand.class,
+            PredictCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 

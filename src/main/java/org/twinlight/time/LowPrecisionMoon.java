@@ -6,8 +6,9 @@ import org.apache.commons.math3.geometry.euclidean.threed.Vector3D;
  * The Moon's geocentric position from the low-precision formulae of The Astronomical Almanac
  * (section D, "Low-precision formulae for geocentric coordinates of the Moon"; coefficients from
  * memory), quoted as good to about 0.3° in longitude, 0.2° in latitude and 0.003° in parallax
- * over 1900–2100. Only used to move from the Earth–Moon barycentre to the Earth, an offset of
- * about 4700 km (16 ms of light time), so 1 % accuracy is ample.
+ * over 1900–2100. Used to move from the Earth–Moon barycentre to the Earth, an offset of about
+ * 4700 km (16 ms of light time), where 1 % accuracy is ample, and by {@link SunAndMoon} for the
+ * Moon's place in the sky when planning observations, where 0.3° is ample too.
  */
 final class LowPrecisionMoon {
 
@@ -27,6 +28,20 @@ final class LowPrecisionMoon {
      * @param t Julian centuries of TDB from J2000.0
      */
     static Vector3D geocentricEclipticKm(double t) {
+        return eclipticKm(t, PRECESSION_DEG_PER_CENTURY * t);
+    }
+
+    /**
+     * Geocentric position of the Moon in km, mean ecliptic and equinox of date (the formulae's own
+     * frame).
+     *
+     * @param t Julian centuries of TDB (or TT) from J2000.0
+     */
+    static Vector3D geocentricEclipticOfDateKm(double t) {
+        return eclipticKm(t, 0);
+    }
+
+    private static Vector3D eclipticKm(double t, double longitudeShiftDeg) {
         double longitudeDeg = 218.32 + 481267.881 * t
                 + 6.29 * sinDeg(135.0 + 477198.87 * t)
                 - 1.27 * sinDeg(259.3 - 413335.36 * t)
@@ -34,7 +49,7 @@ final class LowPrecisionMoon {
                 + 0.21 * sinDeg(269.9 + 954397.74 * t)
                 - 0.19 * sinDeg(357.5 + 35999.05 * t)
                 - 0.11 * sinDeg(186.5 + 966404.03 * t)
-                - PRECESSION_DEG_PER_CENTURY * t;
+                - longitudeShiftDeg;
         double latitudeDeg = 5.13 * sinDeg(93.3 + 483202.02 * t)
                 + 0.28 * sinDeg(228.2 + 960400.89 * t)
                 - 0.28 * sinDeg(318.3 + 6003.15 * t)

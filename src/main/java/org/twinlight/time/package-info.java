@@ -5,8 +5,9 @@
  * <p>Public API: {@link org.twinlight.time.TimeScale} (with {@link org.twinlight.time.TimeReference}
  * and {@link org.twinlight.time.TimeStandard}), {@link org.twinlight.time.JulianDate} (split-day
  * instant), {@link org.twinlight.time.CalendarDate} (Meeus ch. 7),
- * {@link org.twinlight.time.SkyDirection} (target RA/Dec, J2000) and
- * {@link org.twinlight.time.TimeConverter} (every scale to every other). The leap-second table,
+ * {@link org.twinlight.time.SkyDirection} (target RA/Dec, J2000),
+ * {@link org.twinlight.time.TimeConverter} (every scale to every other) and
+ * {@link org.twinlight.time.SunAndMoon} (the Sun and Moon of the compact ephemeris, for planning). The leap-second table,
  * the TDB − TT series and the compact solar-system ephemeris are package-private; docs/time-scales.md
  * gives their sources and measured accuracy.
  *

@@ -11,12 +11,13 @@ import org.junit.jupiter.api.Test;
 
 /**
  * The layering of STYLE/DEVELOPERS.md held by test: the library core (photometry, time, orbit,
- * eclipse, fit, timing, dimensions, velocity) knows nothing of the command line, plots or the report layer;
+ * eclipse, fit, timing, dimensions, velocity, sky, planning) knows nothing of the command line, plots or the report layer;
  * arrows point inwards only; no package cycles.
  */
 class LayeringTest {
     private static final String[] CORE = {"org.twinlight.photometry..", "org.twinlight.time..", "org.twinlight.orbit..",
-        "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..", "org.twinlight.velocity.."};
+        "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..",
+        "org.twinlight.velocity..", "org.twinlight.sky..", "org.twinlight.planning.."};
 
     private static JavaClasses classes;
 
@@ -62,7 +63,7 @@ class LayeringTest {
         noClasses().that().resideInAnyPackage("org.twinlight.time..", "org.twinlight.orbit..")
                 .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.eclipse..",
                         "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..",
-                        "org.twinlight.velocity..")
+                        "org.twinlight.velocity..", "org.twinlight.sky..", "org.twinlight.planning..")
                 .check(classes);
     }
 
@@ -95,6 +96,23 @@ class LayeringTest {
                 .check(classes);
         noClasses().that().resideInAPackage("org.twinlight.timing.minima..")
                 .should().dependOnClassesThat().resideInAPackage("org.twinlight.timing.period..")
+                .check(classes);
+    }
+
+    @Test
+    void skyUsesOnlyTime() {
+        noClasses().that().resideInAPackage("org.twinlight.sky..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.orbit..",
+                        "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..",
+                        "org.twinlight.dimensions..", "org.twinlight.planning..", "java.nio.file..")
+                .check(classes);
+    }
+
+    @Test
+    void planningReadsNoFilesAndKnowsNoFit() {
+        noClasses().that().resideInAPackage("org.twinlight.planning..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.fit..",
+                        "java.nio.file..", "com.fasterxml.jackson..", "org.apache.commons.csv..")
                 .check(classes);
     }
 
