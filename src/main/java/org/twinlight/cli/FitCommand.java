@@ -30,6 +30,8 @@ import picocli.CommandLine.Parameters;
             "Writes fit.json, residuals.csv, fit.png (one fit-BAND.png per further band) and model.json "
                 + "(the best model, usable as a starting model)."})
 public final class FitCommand implements Callable<Integer> {
+    /** The band of a single file that names none. */
+    static final String DEFAULT_BAND = "default";
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
@@ -48,7 +50,8 @@ public final class FitCommand implements Callable<Integer> {
     List<String> free;
 
     @Option(names = "--band", paramLabel = "NAME",
-            description = "Band of each file, once per file in order (default: the file's band column, else its name).")
+            description = "Band of each file, once per file in order (default: the file's band column; else, with "
+                    + "several files, the file name without extension; a single file is the default band).")
     List<String> bands = new ArrayList<>();
 
     @Option(names = "--baseline", paramLabel = "KIND", defaultValue = "offset",
@@ -62,6 +65,12 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--max-iterations", paramLabel = "N", defaultValue = "200",
             description = "Iteration limit of the solver (default: ${DEFAULT-VALUE}).")
     int maxIterations;
+
+    @Option(names = "--clip", paramLabel = "SIGMA|none", defaultValue = "5",
+            description = "Leave out points whose residual from the model exceeds SIGMA robust standard deviations, "
+                    + "refitting until none change (at least 3; default: ${DEFAULT-VALUE}); none keeps every point. "
+                    + "The input is never changed; fit.json counts what was left out.")
+    String clip;
 
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
@@ -93,7 +102,7 @@ public final class FitCommand implements Callable<Integer> {
         }
         FitSettings settings = new FitSettings(
                 new LinkedHashSet<>(free == null || free.isEmpty() ? FitSettings.DEFAULT_FREE : trimmed(free)), base,
-                segmentGapDays, maxIterations);
+                segmentGapDays, maxIterations, clipSigma(clip));
 
         List<FitData> data = new ArrayList<>();
         List<FitFiles.InputRecord> inputs = new ArrayList<>();
@@ -102,7 +111,14 @@ public final class FitCommand implements Callable<Integer> {
         for (int i = 0; i < files.size(); i++) {
             Path f = files.get(i);
             LightCurve lc = photometry.read(f, console());
-            String band = !bands.isEmpty() ? bands.get(i) : lc.band() != null ? lc.band() : baseName(f);
+            String bandSource = !bands.isEmpty() ? "option --band" : lc.band() != null ? "band column"
+                    : files.size() > 1 ? "file name" : "default";
+            String band = switch (bandSource) {
+                case "option --band" -> bands.get(i);
+                case "band column" -> lc.band();
+                case "file name" -> baseName(f);
+                default -> DEFAULT_BAND;
+            };
             if (scale == null) {
                 scale = lc.timeScale();
                 scaleFrom = f;
@@ -118,7 +134,7 @@ public final class FitCommand implements Callable<Integer> {
                             + ": the same points count twice and the uncertainties come out too small");
                 }
             }
-            inputs.add(new FitFiles.InputRecord(f.toString(), digest, band, lc.size()));
+            inputs.add(new FitFiles.InputRecord(f.toString(), digest, band, bandSource, lc.size()));
             if (lc.rejectedCount() > 0) {
                 console().printf(Locale.ROOT, "%s: %d row(s) not used: %s%n", f, lc.rejectedCount(), lc.rejectedRows());
             }
@@ -146,6 +162,27 @@ public final class FitCommand implements Callable<Integer> {
         console().println("caution: " + FitFiles.CAUTION);
         console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
         return 0;
+    }
+
+    /** Parses --clip: a number of standard deviations (≥ 3) or none. */
+    static double clipSigma(String text) {
+        String t = text.trim();
+        if (t.equalsIgnoreCase("none")) {
+            return Double.NaN;
+        }
+        double v;
+        try {
+            v = Double.parseDouble(t);
+        } catch (NumberFormatException e) {
+            throw new BadInputException("option --clip: expected a number of standard deviations (at least "
+                    + FitSettings.MIN_CLIP_SIGMA + ") or none, got '" + text + "'");
+        }
+        if (!(v >= FitSettings.MIN_CLIP_SIGMA) || Double.isInfinite(v)) {
+            throw new BadInputException("option --clip: expected a number of standard deviations of at least "
+                    + FitSettings.MIN_CLIP_SIGMA + " (below it honest points of Gaussian noise are lost) or none, got "
+                    + text);
+        }
+        return v;
     }
 
     private static List<String> trimmed(List<String> names) {
