@@ -15,6 +15,7 @@ import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.report.FitFiles;
+import org.twinlight.report.ModelFileJson;
 import org.twinlight.report.FitPlot;
 import org.twinlight.report.InputDigest;
 import org.twinlight.time.TimeScale;
@@ -83,7 +84,7 @@ public final class FitCommand implements Callable<Integer> {
         List<Path> inputFiles = new ArrayList<>(files);
         inputFiles.add(model);
         OutputTargets.checkDirectory(out, List.of("fit.json", "residuals.csv", "model.json", "fit.png"), inputFiles);
-        ModelFile start = ModelFile.read(model);
+        ModelFile start = ModelFileJson.read(model);
         if (!bands.isEmpty() && bands.size() != files.size()) {
             throw new BadInputException("option --band: given " + bands.size() + " time(s) for " + files.size()
                     + " file(s); give it once per file, in order, or not at all");
@@ -126,6 +127,11 @@ public final class FitCommand implements Callable<Integer> {
                 throw new BadInputException(f + ": its times are " + lc.timeScale().label() + " but " + scaleFrom
                         + " has " + scale.label() + "; convert them to one time scale first (the time command)");
             }
+            if (!start.covers(band)) {
+                throw new BadInputException(model + ": the model gives surfaceBrightnessRatio only per band ("
+                        + String.join(", ", start.bands().keySet()) + ") and " + f + " is band '" + band
+                        + "' (" + bandSource + "); name its band with --band or add the band to the model file");
+            }
             data.add(new FitData(lc, band));
             String digest = InputDigest.sha256(f);
             for (FitFiles.InputRecord earlier : inputs) {
@@ -150,7 +156,7 @@ public final class FitCommand implements Callable<Integer> {
         }
         FitFiles.writeJson(out.resolve("fit.json"), doc);
         FitFiles.writeResiduals(out.resolve("residuals.csv"), r, scale);
-        FitFiles.writeJson(out.resolve("model.json"), r.model().toJson());
+        FitFiles.writeJson(out.resolve("model.json"), ModelFileJson.toJson(r.model()));
         List<String> bandList = data.stream().map(FitData::band).distinct().toList();
         String title = "Fit of " + files.get(0).getFileName();
         FitPlot.write(r, bandList.get(0), out.resolve("fit.png"), title, scale.label());

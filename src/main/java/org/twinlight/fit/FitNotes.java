@@ -25,7 +25,7 @@ final class FitNotes {
             notes.add(String.format(Locale.ROOT, "%d point(s) were left out as outliers against the model "
                     + "(%s); the input file is unchanged and residuals.csv lists them", r.clippedCount(),
                     r.clipped().entrySet().stream().filter(e -> e.getValue() > 0)
-                            .map(e -> e.getValue() + " " + e.getKey()).reduce((a, b) -> a + ", " + b).orElse("")));
+                            .map(e -> e.getValue() + (e.getKey().equals("aboveModel") ? " above" : " below") + " the model").reduce((a, b) -> a + ", " + b).orElse("")));
         }
         for (Estimate e : r.parameters()) {
             if (e.isLimit()) {

@@ -398,7 +398,7 @@ final class ParameterLayout {
                 common.radius2(), common.inclinationDeg(), common.eccentricity(), common.omegaDeg(),
                 c.surfaceBrightnessRatio(), c.thirdLight(), c.limbDarkening1(), c.limbDarkening2(),
                 common.exposureTimeDays(), common.supersample());
-        return new ModelFile(geometry, out);
+        return new ModelFile(geometry, out, start.commonComplete());
     }
 
     /** One or more internal coordinates standing for one or more external parameters. */

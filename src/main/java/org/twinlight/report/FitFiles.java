@@ -80,7 +80,7 @@ public final class FitFiles {
                 a.add(Math.round(v * 1e6) / 1e6);
             }
         }
-        root.set("model", r.model().toJson());
+        root.set("model", ModelFileJson.toJson(r.model()));
         root.put("timeScale", scale.label());
         ObjectNode input = root.putObject("input");
         input.put("file", inputs.get(0).file());
