@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.twinlight.BadInputException;
 import org.twinlight.eclipse.ModelFile;
@@ -13,6 +14,7 @@ import org.twinlight.fit.EclipseFitter;
 import org.twinlight.fit.FitData;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.StartingValues;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.report.FitFiles;
 import org.twinlight.report.ModelFileJson;
@@ -66,6 +68,12 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--max-iterations", paramLabel = "N", defaultValue = "200",
             description = "Iteration limit of the solver (default: ${DEFAULT-VALUE}).")
     int maxIterations;
+
+    @Option(names = "--start", paramLabel = "model|auto", defaultValue = "model",
+            description = "Starting values: model (those of --model) or auto (period, epoch, limb darkening and third "
+                    + "light from --model; radii, inclination, e cos ω, e sin ω and surface-brightness ratio estimated "
+                    + "from the depths, widths and phases of the eclipses in the folded data). Default: ${DEFAULT-VALUE}.")
+    String startFrom;
 
     @Option(names = "--clip", paramLabel = "SIGMA|none", defaultValue = "5",
             description = "Leave out points whose residual from the model exceeds SIGMA robust standard deviations, "
@@ -146,11 +154,22 @@ public final class FitCommand implements Callable<Integer> {
             }
         }
 
+        List<String> startNotes = new ArrayList<>();
+        if (startFrom.trim().equalsIgnoreCase("auto")) {
+            Map<String, StartingValues> estimates = StartingValues.fromData(data, start);
+            start = StartingValues.apply(start, estimates);
+            estimates.forEach((band, e) -> startNotes.add((estimates.size() > 1 ? "band " + band + ": " : "")
+                    + e.describe()));
+            startNotes.forEach(n -> console().println("note: " + n));
+        } else if (!startFrom.trim().equalsIgnoreCase("model")) {
+            throw new BadInputException("option --start: expected model or auto, got '" + startFrom + "'");
+        }
         FitResult r = EclipseFitter.fit(start, data, settings);
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
                 VersionInfo.version());
         com.fasterxml.jackson.databind.node.ArrayNode notes = (com.fasterxml.jackson.databind.node.ArrayNode) doc.get("notes");
+        startNotes.forEach(notes::add);
         for (FitData d : data) {
             d.lightCurve().notes().forEach(n -> notes.add(d.lightCurve().source() + ": " + n));
         }
