@@ -7,16 +7,16 @@ import java.util.Optional;
  * ℓ₃ = 0), from the profile of χ²: the parameter is held at trial values while every other free
  * parameter is fitted again.
  *
- * <p>The best value "sits at the bound" when holding it at the bound raises χ² by less than 1:
- * the bound then lies inside the usual 68% interval and a symmetric error bar would cross it. The
- * reported uncertainty is the one-sided distance to where the profile has risen by 1, and the 95%
+ * <p>The best value "sits at the bound" when holding it at the bound raises χ² by less than 2.71:
+ * the bound then lies inside the one-sided 95% interval, and a symmetric error bar (from a
+ * linearisation that is poor so close to a fold) would mislead. The reported uncertainty is the one-sided distance to where the profile has risen by 1, and the 95%
  * limit is where it has risen by 2.71 = 1.645²: at a bound the likelihood-ratio statistic follows
  * the mixture ½χ²₀ + ½χ²₁ (Chernoff 1954, Ann. Math. Stat. 25, 573; Self &amp; Liang 1987, J. Am.
  * Stat. Assoc. 82, 605), whose 95% point is the one-sided 2.71.
  */
 final class BoundLimits {
-    /** Δχ² below which the bound is inside the 68% interval. */
-    static final double AT_BOUND_DELTA_CHI2 = 1.0;
+    /** Δχ² below which the bound is inside the one-sided 95% interval. */
+    static final double AT_BOUND_DELTA_CHI2 = 1.645 * 1.645;
     /** Δχ² of the one-sided 68% distance reported as the uncertainty. */
     static final double ONE_SIGMA_DELTA_CHI2 = 1.0;
     /** Δχ² of the one-sided 95% limit (1.645²). */

@@ -284,6 +284,19 @@ public final class EclipseFitter {
             }
             RealMatrix cov = covariance(normal, excluded, reducedChi2, layout, problem.settings());
             RealMatrix repCov = gm.multiply(cov).multiply(gm.transpose());
+            // A value reported as a limit is left out of the covariance, which then holds it fixed;
+            // the others' uncertainties get back what it contributes, from the profile: the shift
+            // of each reported quantity between the best fit and the profile's 68% point.
+            for (BoundLimits.Profile pr : profiles.values()) {
+                if (layout.foldedCoordinate(pr.index()) < 0) {
+                    continue;
+                }
+                double[] at68 = Reported.at(layout, pr.ext68(), epochShift, midCycle).values();
+                for (int a = 0; a < values.length; a++) {
+                    double d = at68[a] - values[a];
+                    repCov.addToEntry(a, a, d * d);
+                }
+            }
 
             int nExt = layout.externalSize();
             boolean multiBand = layout.bands().size() > 1;

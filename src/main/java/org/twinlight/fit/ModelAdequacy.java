@@ -62,8 +62,14 @@ public final class ModelAdequacy {
     private ModelAdequacy() {
     }
 
-    /** Runs the checks on the fitted curves. */
-    static Result check(List<FittedCurve> curves, java.util.function.IntFunction<BinaryParameters> modelOfCurve,
+    /**
+     * Runs the checks on the fitted curves.
+     *
+     * @param modelOfCurve the fitted parameters of the curve at each index
+     * @param fittedQuantities number of fitted quantities (degrees of freedom are n minus this)
+     * @param errorsEstimated whether the errors were estimated from the scatter (no χ² check then)
+     */
+    public static Result check(List<FittedCurve> curves, java.util.function.IntFunction<BinaryParameters> modelOfCurve,
             int fittedQuantities, boolean errorsEstimated) {
         double chi2 = 0;
         int n = 0;
