@@ -157,7 +157,7 @@ public final class FitCommand implements Callable<Integer> {
         List<String> startNotes = new ArrayList<>();
         if (startFrom.trim().equalsIgnoreCase("auto")) {
             Map<String, StartingValues> estimates = StartingValues.fromData(data, start);
-            start = StartingValues.apply(start, estimates);
+            start = StartingValues.apply(start, estimates, settings.free());
             estimates.forEach((band, e) -> startNotes.add((estimates.size() > 1 ? "band " + band + ": " : "")
                     + e.describe()));
             startNotes.forEach(n -> console().println("note: " + n));

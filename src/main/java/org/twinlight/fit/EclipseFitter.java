@@ -14,6 +14,7 @@ import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.twinlight.WorkFailedException;
 import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.ModelFile;
+import org.twinlight.photometry.RobustStatistics;
 
 /**
  * Least-squares fit of the two-sphere model to one or more light curves: Levenberg–Marquardt
@@ -192,15 +193,8 @@ public final class EclipseFitter {
                 z[j++] = c.residual(i) / c.errors()[i];
             }
         }
-        double[] sorted = z.clone();
-        Arrays.sort(sorted);
-        double med = median(sorted);
-        double[] dev = new double[n];
-        for (int i = 0; i < n; i++) {
-            dev[i] = Math.abs(z[i] - med);
-        }
-        Arrays.sort(dev);
-        double sigma = 1.4826 * median(dev);
+        double med = RobustStatistics.median(z);
+        double sigma = RobustStatistics.madSigma(z);
         List<boolean[]> flags = new ArrayList<>();
         int count = 0;
         j = 0;
@@ -215,10 +209,6 @@ public final class EclipseFitter {
         return new Outliers(flags, count, n == 0 ? 0 : count / (double) n);
     }
 
-    private static double median(double[] sorted) {
-        int n = sorted.length;
-        return n == 0 ? 0 : n % 2 == 1 ? sorted[n / 2] : 0.5 * (sorted[n / 2 - 1] + sorted[n / 2]);
-    }
 
     /** Statistics, uncertainties, limits and checks at the optimum. */
     private static final class Summary {

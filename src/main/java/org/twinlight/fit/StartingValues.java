@@ -105,33 +105,48 @@ public record StartingValues(double secondaryPhase, boolean secondarySeen, doubl
     }
 
     /**
-     * Starting values for a fit: the model's period, epoch, limb darkening and third light, with
-     * the geometry (and the surface-brightness ratio of each band estimated from its own data) put
-     * in.
+     * Starting values for a fit: the model's period, epoch, limb darkening and third light; of the
+     * estimated values only those of free parameters are put in (radii, inclination, eccentricity
+     * and ω, and the surface-brightness ratio of each band from its own data), so that a fixed
+     * value stays what the model file says.
      *
      * @param bandEstimates per band, the estimate from that band's data (the first one also gives
      *     the geometry)
+     * @param free names of the free parameters
      */
-    public static ModelFile apply(ModelFile model, Map<String, StartingValues> bandEstimates) {
+    public static ModelFile apply(ModelFile model, Map<String, StartingValues> bandEstimates,
+            java.util.Set<String> free) {
         StartingValues g = bandEstimates.values().iterator().next();
         BinaryParameters c = model.common();
-        double e = Math.hypot(g.eCosOmega, g.eSinOmega);
-        double w = e > 0 ? Math.toDegrees(Math.atan2(g.eSinOmega, g.eCosOmega)) : c.omegaDeg();
-        double r1 = g.sumOfRadii / (1 + g.radiusRatio);
-        BinaryParameters geometry = c.withRadii(r1, g.sumOfRadii - r1).withInclinationDeg(g.inclinationDeg)
-                .withEccentricityOmega(e, w);
+        BinaryParameters geometry = c;
+        if (free.contains("eccentricity") || free.contains("omega")) {
+            double e = free.contains("eccentricity") ? Math.hypot(g.eCosOmega, g.eSinOmega) : c.eccentricity();
+            double w = Math.hypot(g.eCosOmega, g.eSinOmega) > 0 && free.contains("omega")
+                    ? Math.toDegrees(Math.atan2(g.eSinOmega, g.eCosOmega)) : c.omegaDeg();
+            geometry = geometry.withRadii(0.01, 0.01).withEccentricityOmega(e, w);
+        }
+        double r1 = free.contains("radius1") ? g.sumOfRadii / (1 + g.radiusRatio) : c.radius1();
+        double r2 = free.contains("radius2") ? g.sumOfRadii - g.sumOfRadii / (1 + g.radiusRatio) : c.radius2();
+        geometry = geometry.withRadii(r1, r2);
+        if (free.contains("inclination")) {
+            geometry = geometry.withInclinationDeg(g.inclinationDeg);
+        }
+        boolean brightness = free.contains("surfaceBrightnessRatio");
         if (model.bands().isEmpty() && bandEstimates.size() == 1) {
-            return ModelFile.of(geometry.withSurfaceBrightnessRatio(g.surfaceBrightnessRatio));
+            return ModelFile.of(brightness ? geometry.withSurfaceBrightnessRatio(g.surfaceBrightnessRatio) : geometry);
         }
         Map<String, BandValues> bands = new LinkedHashMap<>(model.bands());
-        for (Map.Entry<String, StartingValues> b : bandEstimates.entrySet()) {
-            BandValues old = bands.get(b.getKey());
-            bands.put(b.getKey(), new BandValues(b.getValue().surfaceBrightnessRatio,
-                    old == null ? null : old.thirdLight(), old == null ? null : old.limbDarkening1(),
-                    old == null ? null : old.limbDarkening2()));
+        if (brightness) {
+            for (Map.Entry<String, StartingValues> b : bandEstimates.entrySet()) {
+                BandValues old = bands.get(b.getKey());
+                bands.put(b.getKey(), new BandValues(b.getValue().surfaceBrightnessRatio,
+                        old == null ? null : old.thirdLight(), old == null ? null : old.limbDarkening1(),
+                        old == null ? null : old.limbDarkening2()));
+            }
         }
-        return new ModelFile(model.commonComplete() ? geometry.withSurfaceBrightnessRatio(g.surfaceBrightnessRatio)
-                : geometry, bands, model.commonComplete());
+        return new ModelFile(brightness && model.commonComplete()
+                ? geometry.withSurfaceBrightnessRatio(g.surfaceBrightnessRatio) : geometry, bands,
+                model.commonComplete());
     }
 
     /** What was estimated, for notes. */

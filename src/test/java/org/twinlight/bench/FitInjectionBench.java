@@ -126,7 +126,8 @@ public final class FitInjectionBench {
             ModelFile circular = ModelFile.of(truth.withEccentricityOmega(0, 90).withRadii(0.14, 0.07)
                     .withInclinationDeg(86));
             try {
-                FitResult r = EclipseFitter.fit(StartingValues.apply(circular, StartingValues.fromData(data, circular)),
+                FitResult r = EclipseFitter.fit(StartingValues.apply(circular, StartingValues.fromData(data, circular),
+                        new LinkedHashSet<>(free)),
                         data, FitSettings.defaults().withFree(new LinkedHashSet<>(free)));
                 double a = (r.get("eccentricity").value() - 0.08) / r.get("eccentricity").uncertainty();
                 double b = (r.get("omega").value() - 62) / r.get("omega").uncertainty();

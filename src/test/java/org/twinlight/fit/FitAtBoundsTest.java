@@ -89,7 +89,7 @@ class FitAtBoundsTest {
             ModelFile circular = ModelFile.of(truth.withEccentricityOmega(0, 90).withRadii(0.14, 0.07)
                     .withInclinationDeg(86));
             ModelFile start = StartingValues.apply(circular,
-                    StartingValues.fromData(data, circular));
+                    StartingValues.fromData(data, circular), new LinkedHashSet<>(free));
             FitResult r = EclipseFitter.fit(start, data, FitSettings.defaults().withFree(new LinkedHashSet<>(free)));
             double w = Math.toRadians(62);
             assertThat(Math.abs(r.get("eCosOmega").value() - 0.08 * Math.cos(w)))
