@@ -38,9 +38,19 @@ final class BoundLimits {
      * @param ext95 every external parameter at the 95% point
      * @param deltaChi2AtBound Δχ² with the parameter held at its bound
      * @param profileFits least-squares fits run for the profile
+     * @param atBound whether the value sits at its bound (else only {@code deltaChi2AtBound} is set)
      */
     record Profile(int index, double best, double at68, double at95, boolean reachedLimit, double[] ext68,
-            double[] ext95, double deltaChi2AtBound, int profileFits) {
+            double[] ext95, double deltaChi2AtBound, int profileFits, boolean atBound) {
+
+        /**
+         * For a value near its bound but not at it, the 1σ distance towards the bound from the
+         * quadratic through the profile's minimum and its value at the bound: near a fold the
+         * linearised σ understates it.
+         */
+        double sigmaTowardsBound(double edge) {
+            return Math.abs(best - edge) / Math.sqrt(deltaChi2AtBound);
+        }
     }
 
     private final WeightedResiduals objective;
@@ -55,8 +65,8 @@ final class BoundLimits {
     }
 
     /**
-     * The profile of the parameter at {@code index} when its best value sits at its physical bound;
-     * empty when it does not.
+     * The profile of the parameter at {@code index} near its physical bound: at the bound (a
+     * limit) or only its Δχ² there; empty when the value is far from the bound.
      *
      * @param linearSigma its linear (covariance) uncertainty, NaN or infinite when unknown
      */
@@ -73,7 +83,8 @@ final class BoundLimits {
         fits = 0;
         Point atEdge = profile(index, edge);
         if (atEdge.delta >= AT_BOUND_DELTA_CHI2) {
-            return Optional.empty();
+            return Optional.of(new Profile(index, best, Double.NaN, Double.NaN, false, null, null, atEdge.delta, fits,
+                    false));
         }
         double direction = p.edge() == FitParameter.Edge.UPPER ? -1 : 1;
         double far = p.edge() == FitParameter.Edge.UPPER ? p.lower() : farLimit(p);
@@ -102,7 +113,7 @@ final class BoundLimits {
         Point p68 = first68 == null ? hi : root(index, lo68, first68, ONE_SIGMA_DELTA_CHI2);
         Point p95 = reached ? root(index, lo, hi, LIMIT95_DELTA_CHI2) : hi;
         return Optional.of(new Profile(index, best, p68.value, p95.value, reached, p68.ext, p95.ext, atEdge.delta,
-                fits));
+                fits, true));
     }
 
     private static double farLimit(FitParameter p) {

@@ -254,6 +254,7 @@ public final class EclipseFitter {
                     .scalarMultiply(reducedChi2);
             BoundLimits limits = new BoundLimits(objective, best, chi2);
             Map<Integer, BoundLimits.Profile> profiles = new HashMap<>();
+            Map<String, BoundLimits.Profile> nearBound = new HashMap<>();
             List<Integer> excluded = new ArrayList<>();
             int profileFits = 0;
             for (int i = 0; i < layout.externalSize(); i++) {
@@ -263,9 +264,10 @@ public final class EclipseFitter {
                 }
                 double sigma = Math.sqrt(Math.max(0, linear.getEntry(i, i)));
                 Optional<BoundLimits.Profile> pr = limits.atBound(i, conditioned && sigma > 0 ? sigma : Double.NaN);
-                if (pr.isPresent()) {
+                pr.ifPresent(near -> nearBound.put(p.name(), near));
+                profileFits += pr.map(BoundLimits.Profile::profileFits).orElse(0);
+                if (pr.isPresent() && pr.get().atBound()) {
                     profiles.put(i, pr.get());
-                    profileFits += pr.get().profileFits();
                     int c = layout.foldedCoordinate(i);
                     if (c >= 0) {
                         excluded.add(c);
@@ -302,8 +304,12 @@ public final class EclipseFitter {
                     params.add(new Estimate(p.name(), band, values[i], Math.abs(pr.at68() - values[i]), true,
                             new Estimate.Limit(side, pr.at95())));
                 } else {
-                    params.add(new Estimate(p.name(), band, values[i],
-                            p.free() ? Math.sqrt(Math.max(0, repCov.getEntry(i, i))) : 0.0, p.free()));
+                    double sigma = p.free() ? Math.sqrt(Math.max(0, repCov.getEntry(i, i))) : 0.0;
+                    BoundLimits.Profile near = nearBound.get(p.name());
+                    if (near != null && p.band() == null) {
+                        sigma = Math.max(sigma, near.sigmaTowardsBound(p.edgeValue()));
+                    }
+                    params.add(new Estimate(p.name(), band, values[i], sigma, p.free()));
                 }
                 if (p.free()) {
                     freeIdx.add(i);

@@ -24,7 +24,7 @@ import org.twinlight.time.TimeScale;
  * in {@code docs/fit-injection.md}: the model-adequacy note for unmodelled third light, wrong limb
  * darkening and a correct model; edge-on and near-edge-on totals (limits and radius pulls);
  * eccentric orbits from circular starts with starting values from the data. Run with
- * {@code java -cp target/classes:target/test-classes:$(deps) org.twinlight.bench.FitInjectionBench [SEEDS]}.
+ * {@code java -cp target/classes:target/test-classes:$(deps) org.twinlight.bench.FitInjectionBench [SEEDS [adequacy,edge,eccentric]]}.
  */
 public final class FitInjectionBench {
     private static final BinaryParameters DETACHED = new BinaryParameters(3.0712, 2460600.4417, 0.105, 0.072, 88.4,
@@ -35,9 +35,16 @@ public final class FitInjectionBench {
 
     public static void main(String[] args) {
         int seeds = args.length > 0 ? Integer.parseInt(args[0]) : 100;
-        adequacy(seeds);
-        edgeOn(seeds);
-        eccentric(seeds);
+        String parts = args.length > 1 ? args[1] : "adequacy,edge,eccentric";
+        if (parts.contains("adequacy")) {
+            adequacy(seeds);
+        }
+        if (parts.contains("edge")) {
+            edgeOn(seeds);
+        }
+        if (parts.contains("eccentric")) {
+            eccentric(seeds);
+        }
     }
 
     private static LightCurve observe(BinaryParameters p, double days, double ppm, long seed) {
