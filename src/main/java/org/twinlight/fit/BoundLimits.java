@@ -21,8 +21,12 @@ final class BoundLimits {
     static final double ONE_SIGMA_DELTA_CHI2 = 1.0;
     /** Δχ² of the one-sided 95% limit (1.645²). */
     static final double LIMIT95_DELTA_CHI2 = 1.645 * 1.645;
-    /** A best value further than this many linear σ from its bound is not profiled. */
-    static final double SCREEN_SIGMAS = 4.0;
+    /**
+     * A best value further than this many linear σ from its bound is not profiled. Generous,
+     * because near a fold (χ² depending on cos² i) the linear σ understates the distance to the
+     * bound in χ²: a value 4 linear σ from i = 90° can be 2 profile σ from it.
+     */
+    static final double SCREEN_SIGMAS = 10.0;
     private static final int PROFILE_ITERATIONS = 60;
     private static final int ROOT_STEPS = 8;
 
