@@ -91,9 +91,8 @@ public final class EclipseFitter {
                 s = passes.solve(used, s.internal(), settings, layout);
             }
             if (current != null) {
-                Outliers o = outliers(all.curves(layout.toExternal(s.internal())), settings.clipSigma());
                 used = all.withLeftOut(current);
-                clipped.putAll(o.byReason(current, all.curves(layout.toExternal(s.internal()))));
+                clipped.putAll(Outliers.byReason(current, all.curves(layout.toExternal(s.internal()))));
             }
         }
         double[] ext = layout.toExternal(s.internal());
@@ -158,7 +157,8 @@ public final class EclipseFitter {
 
     /** Points beyond the clipping level, per curve, against the current model. */
     private record Outliers(List<boolean[]> leftOut, int count, double fraction) {
-        Map<String, Integer> byReason(List<boolean[]> flags, List<FittedCurve> curves) {
+        /** Counts of the flagged points above and below the model. */
+        static Map<String, Integer> byReason(List<boolean[]> flags, List<FittedCurve> curves) {
             int above = 0;
             int below = 0;
             for (int c = 0; c < curves.size(); c++) {
