@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.twinlight.BadInputException;
 import org.twinlight.eclipse.ModelFile;
@@ -13,8 +14,10 @@ import org.twinlight.fit.EclipseFitter;
 import org.twinlight.fit.FitData;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.StartingValues;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.report.FitFiles;
+import org.twinlight.report.ModelFileJson;
 import org.twinlight.report.FitPlot;
 import org.twinlight.report.InputDigest;
 import org.twinlight.time.TimeScale;
@@ -30,6 +33,8 @@ import picocli.CommandLine.Parameters;
             "Writes fit.json, residuals.csv, fit.png (one fit-BAND.png per further band) and model.json "
                 + "(the best model, usable as a starting model)."})
 public final class FitCommand implements Callable<Integer> {
+    /** The band of a single file that names none. */
+    static final String DEFAULT_BAND = "default";
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
@@ -48,7 +53,8 @@ public final class FitCommand implements Callable<Integer> {
     List<String> free;
 
     @Option(names = "--band", paramLabel = "NAME",
-            description = "Band of each file, once per file in order (default: the file's band column, else its name).")
+            description = "Band of each file, once per file in order (default: the file's band column; else, with "
+                    + "several files, the file name without extension; a single file is the default band).")
     List<String> bands = new ArrayList<>();
 
     @Option(names = "--baseline", paramLabel = "KIND", defaultValue = "offset",
@@ -63,6 +69,18 @@ public final class FitCommand implements Callable<Integer> {
             description = "Iteration limit of the solver (default: ${DEFAULT-VALUE}).")
     int maxIterations;
 
+    @Option(names = "--start", paramLabel = "model|auto", defaultValue = "model",
+            description = "Starting values: model (those of --model) or auto (period, epoch, limb darkening and third "
+                    + "light from --model; radii, inclination, e cos ω, e sin ω and surface-brightness ratio estimated "
+                    + "from the depths, widths and phases of the eclipses in the folded data). Default: ${DEFAULT-VALUE}.")
+    String startFrom;
+
+    @Option(names = "--clip", paramLabel = "SIGMA|none", defaultValue = "5",
+            description = "Leave out points whose residual from the model exceeds SIGMA robust standard deviations, "
+                    + "refitting until none change (at least 3; default: ${DEFAULT-VALUE}); none keeps every point. "
+                    + "The input is never changed; fit.json counts what was left out.")
+    String clip;
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
 
@@ -74,7 +92,7 @@ public final class FitCommand implements Callable<Integer> {
         List<Path> inputFiles = new ArrayList<>(files);
         inputFiles.add(model);
         OutputTargets.checkDirectory(out, List.of("fit.json", "residuals.csv", "model.json", "fit.png"), inputFiles);
-        ModelFile start = ModelFile.read(model);
+        ModelFile start = ModelFileJson.read(model);
         if (!bands.isEmpty() && bands.size() != files.size()) {
             throw new BadInputException("option --band: given " + bands.size() + " time(s) for " + files.size()
                     + " file(s); give it once per file, in order, or not at all");
@@ -93,7 +111,7 @@ public final class FitCommand implements Callable<Integer> {
         }
         FitSettings settings = new FitSettings(
                 new LinkedHashSet<>(free == null || free.isEmpty() ? FitSettings.DEFAULT_FREE : trimmed(free)), base,
-                segmentGapDays, maxIterations);
+                segmentGapDays, maxIterations, clipSigma(clip));
 
         List<FitData> data = new ArrayList<>();
         List<FitFiles.InputRecord> inputs = new ArrayList<>();
@@ -102,13 +120,25 @@ public final class FitCommand implements Callable<Integer> {
         for (int i = 0; i < files.size(); i++) {
             Path f = files.get(i);
             LightCurve lc = photometry.read(f, console());
-            String band = !bands.isEmpty() ? bands.get(i) : lc.band() != null ? lc.band() : baseName(f);
+            String bandSource = !bands.isEmpty() ? "option --band" : lc.band() != null ? "band column"
+                    : files.size() > 1 ? "file name" : "default";
+            String band = switch (bandSource) {
+                case "option --band" -> bands.get(i);
+                case "band column" -> lc.band();
+                case "file name" -> baseName(f);
+                default -> DEFAULT_BAND;
+            };
             if (scale == null) {
                 scale = lc.timeScale();
                 scaleFrom = f;
             } else if (!scale.equals(lc.timeScale())) {
                 throw new BadInputException(f + ": its times are " + lc.timeScale().label() + " but " + scaleFrom
                         + " has " + scale.label() + "; convert them to one time scale first (the time command)");
+            }
+            if (!start.covers(band)) {
+                throw new BadInputException(model + ": the model gives surfaceBrightnessRatio only per band ("
+                        + String.join(", ", start.bands().keySet()) + ") and " + f + " is band '" + band
+                        + "' (" + bandSource + "); name its band with --band or add the band to the model file");
             }
             data.add(new FitData(lc, band));
             String digest = InputDigest.sha256(f);
@@ -118,23 +148,34 @@ public final class FitCommand implements Callable<Integer> {
                             + ": the same points count twice and the uncertainties come out too small");
                 }
             }
-            inputs.add(new FitFiles.InputRecord(f.toString(), digest, band, lc.size()));
+            inputs.add(new FitFiles.InputRecord(f.toString(), digest, band, bandSource, lc.size()));
             if (lc.rejectedCount() > 0) {
                 console().printf(Locale.ROOT, "%s: %d row(s) not used: %s%n", f, lc.rejectedCount(), lc.rejectedRows());
             }
         }
 
+        List<String> startNotes = new ArrayList<>();
+        if (startFrom.trim().equalsIgnoreCase("auto")) {
+            Map<String, StartingValues> estimates = StartingValues.fromData(data, start);
+            start = StartingValues.apply(start, estimates, settings.free());
+            estimates.forEach((band, e) -> startNotes.add((estimates.size() > 1 ? "band " + band + ": " : "")
+                    + e.describe()));
+            startNotes.forEach(n -> console().println("note: " + n));
+        } else if (!startFrom.trim().equalsIgnoreCase("model")) {
+            throw new BadInputException("option --start: expected model or auto, got '" + startFrom + "'");
+        }
         FitResult r = EclipseFitter.fit(start, data, settings);
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
                 VersionInfo.version());
         com.fasterxml.jackson.databind.node.ArrayNode notes = (com.fasterxml.jackson.databind.node.ArrayNode) doc.get("notes");
+        startNotes.forEach(notes::add);
         for (FitData d : data) {
             d.lightCurve().notes().forEach(n -> notes.add(d.lightCurve().source() + ": " + n));
         }
         FitFiles.writeJson(out.resolve("fit.json"), doc);
         FitFiles.writeResiduals(out.resolve("residuals.csv"), r, scale);
-        FitFiles.writeJson(out.resolve("model.json"), r.model().toJson());
+        FitFiles.writeJson(out.resolve("model.json"), ModelFileJson.toJson(r.model()));
         List<String> bandList = data.stream().map(FitData::band).distinct().toList();
         String title = "Fit of " + files.get(0).getFileName();
         FitPlot.write(r, bandList.get(0), out.resolve("fit.png"), title, scale.label());
@@ -146,6 +187,27 @@ public final class FitCommand implements Callable<Integer> {
         console().println("caution: " + FitFiles.CAUTION);
         console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
         return 0;
+    }
+
+    /** Parses --clip: a number of standard deviations (≥ 3) or none. */
+    static double clipSigma(String text) {
+        String t = text.trim();
+        if (t.equalsIgnoreCase("none")) {
+            return Double.NaN;
+        }
+        double v;
+        try {
+            v = Double.parseDouble(t);
+        } catch (NumberFormatException e) {
+            throw new BadInputException("option --clip: expected a number of standard deviations (at least "
+                    + FitSettings.MIN_CLIP_SIGMA + ") or none, got '" + text + "'");
+        }
+        if (!(v >= FitSettings.MIN_CLIP_SIGMA) || Double.isInfinite(v)) {
+            throw new BadInputException("option --clip: expected a number of standard deviations of at least "
+                    + FitSettings.MIN_CLIP_SIGMA + " (below it honest points of Gaussian noise are lost) or none, got "
+                    + text);
+        }
+        return v;
     }
 
     private static List<String> trimmed(List<String> names) {

@@ -11,9 +11,8 @@ import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.ModelFile;
 import org.twinlight.eclipse.SyntheticLightCurve;
 import org.twinlight.photometry.LightCurve;
-import org.twinlight.photometry.LightCurveReader;
-import org.twinlight.photometry.ReadOptions;
 import org.twinlight.report.LightCurveFiles;
+import org.twinlight.report.ModelFileJson;
 import org.twinlight.time.TimeScale;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
@@ -90,17 +89,23 @@ public final class SimulateCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        ModelFile mf = ModelFile.read(model);
+        ModelFile mf = ModelFileJson.read(model);
         if (band != null && !mf.bands().containsKey(band)) {
             throw new BadInputException(model + ": option --band: the model has no band '" + band + "'"
                     + (mf.bands().isEmpty() ? "" : "; it has " + String.join(", ", mf.bands().keySet())));
+        }
+        if (!mf.covers(band)) {
+            throw new BadInputException(model + ": the model gives surfaceBrightnessRatio only per band; choose one "
+                    + "with --band (" + String.join(", ", mf.bands().keySet()) + ")");
         }
         BinaryParameters p = mf.forBand(band);
         TimeScale scale = TimeScale.parse(timeScale).orElseThrow(() -> new BadInputException(
                 "option --time-scale: unknown time scale '" + timeScale + "'; expected one of " + TimeScale.acceptedLabels()));
         double[] times;
         if (sampling.times != null) {
-            times = LightCurveReader.read(sampling.times, ReadOptions.defaults()).timesDays();
+            // only the times are needed: a file of one column is enough
+            times = TimeColumnFile.read(sampling.times, null).entries().stream()
+                    .mapToDouble(TimeColumnFile.Entry::value).sorted().toArray();
         } else {
             List<SyntheticLightCurve.Gap> gapList = new ArrayList<>();
             for (String g : gaps) {

@@ -26,10 +26,24 @@ public record BinaryParameters(double periodDays, double epochDays, double radiu
         double thirdLight, LimbDarkening limbDarkening1, LimbDarkening limbDarkening2,
         double exposureTimeDays, int supersample) {
 
+    /**
+     * Shortest period accepted, days (86.4 s: below the shortest orbital periods of detached stars
+     * by far; common practice, no source).
+     */
+    public static final double MIN_PERIOD_DAYS = 1e-3;
+    /** Longest period accepted, days (about 270 years: beyond any eclipse a light curve can hold). */
+    public static final double MAX_PERIOD_DAYS = 1e5;
+    /**
+     * Most sub-exposures per exposure: 200 resolve a 30-minute exposure into 9-second steps, far
+     * finer than any eclipse contact needs; more only costs time.
+     */
+    public static final int MAX_SUPERSAMPLE = 200;
+
     public BinaryParameters {
         Objects.requireNonNull(limbDarkening1, "limbDarkening1");
         Objects.requireNonNull(limbDarkening2, "limbDarkening2");
-        require(periodDays > 0 && Double.isFinite(periodDays), "period", periodDays, "a positive number of days");
+        require(periodDays >= MIN_PERIOD_DAYS && periodDays <= MAX_PERIOD_DAYS, "period", periodDays,
+                "a number of days from " + MIN_PERIOD_DAYS + " to " + MAX_PERIOD_DAYS);
         require(Double.isFinite(epochDays), "epoch", epochDays, "a finite time");
         require(radius1 > 0 && radius1 < 1, "radius1", radius1, "a fractional radius R/a in (0, 1)");
         require(radius2 > 0 && radius2 < 1, "radius2", radius2, "a fractional radius R/a in (0, 1)");
@@ -41,7 +55,8 @@ public record BinaryParameters(double periodDays, double epochDays, double radiu
         require(thirdLight >= 0 && thirdLight < 1, "thirdLight", thirdLight, "a fraction in [0, 1)");
         require(exposureTimeDays >= 0 && Double.isFinite(exposureTimeDays), "exposureTime", exposureTimeDays,
                 "days ≥ 0");
-        require(supersample >= 1, "supersample", supersample, "an integer ≥ 1");
+        require(supersample >= 1 && supersample <= MAX_SUPERSAMPLE, "supersample", supersample,
+                "an integer from 1 to " + MAX_SUPERSAMPLE);
         if (radius1 + radius2 >= 1 - eccentricity) {
             throw new IllegalArgumentException(String.format(java.util.Locale.ROOT, "radius1 + radius2 = %.4g must be "
                     + "less than 1 − eccentricity = %.4g: the two spheres would touch or overlap%s", radius1 + radius2,

@@ -1,6 +1,7 @@
 package org.twinlight.fit;
 
 import java.util.List;
+import java.util.Map;
 import org.twinlight.eclipse.ModelFile;
 
 /**
@@ -8,26 +9,29 @@ import org.twinlight.eclipse.ModelFile;
  *
  * @param model the best-fitting model (same layout as a model file)
  * @param parameters every model parameter, free or fixed, with its 1σ uncertainty (covariance
- *     scaled by the reduced χ²)
+ *     scaled by the reduced χ²), or a one-sided limit at a physical bound
  * @param derived quantities computed from the parameters, with propagated uncertainties
  * @param freeNames names of the free external parameters, the order of {@code correlation}
  * @param correlation correlation matrix of the free parameters
- * @param n number of data points
+ * @param n number of data points used (clipped outliers excluded)
  * @param freeCount number of fitted quantities (model parameters plus baseline coefficients)
  * @param chi2 χ² with the given (or estimated) errors
  * @param reducedChi2 χ² / (n − freeCount)
- * @param rms root-mean-square residual, in normalised flux
+ * @param rms root-mean-square residual of the used points, in normalised flux
  * @param bic Bayesian information criterion χ² + k ln n (Schwarz 1978, Ann. Stat. 6, 461)
- * @param iterations solver iterations
- * @param evaluations model evaluations, including those for derivatives
+ * @param iterations solver iterations (all passes)
+ * @param evaluations model evaluations, including those for derivatives and profiles
  * @param errorsEstimated true when some data had no errors and they were estimated from the
  *     point-to-point scatter
- * @param notes remarks for the user (starting values moved off bounds, weak constraints, ...)
- * @param curves the fitted light curves
+ * @param adequacy the checks of whether the model describes the data
+ * @param clipped points left out as outliers against the model, by reason
+ * @param notes remarks for the user, made from the result
+ * @param curves the fitted light curves (clipped points flagged)
  */
 public record FitResult(ModelFile model, List<Estimate> parameters, List<Estimate> derived, List<String> freeNames,
         double[][] correlation, int n, int freeCount, double chi2, double reducedChi2, double rms, double bic,
-        int iterations, int evaluations, boolean errorsEstimated, List<String> notes, List<FittedCurve> curves) {
+        int iterations, int evaluations, boolean errorsEstimated, ModelAdequacy.Result adequacy,
+        Map<String, Integer> clipped, List<String> notes, List<FittedCurve> curves) {
 
     /** The estimate of a common (band-independent) parameter or derived quantity by name. */
     public Estimate get(String name) {
@@ -44,5 +48,10 @@ public record FitResult(ModelFile model, List<Estimate> parameters, List<Estimat
             }
         }
         throw new IllegalArgumentException("no fitted quantity named " + name + (band == null ? "" : " in band " + band));
+    }
+
+    /** Total number of points left out as outliers. */
+    public int clippedCount() {
+        return clipped.values().stream().mapToInt(Integer::intValue).sum();
     }
 }

@@ -2,8 +2,10 @@ package org.twinlight.fit;
 
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
 import org.twinlight.BadInputException;
 import org.twinlight.eclipse.BandValues;
@@ -12,18 +14,23 @@ import org.twinlight.eclipse.LimbDarkening;
 import org.twinlight.eclipse.ModelFile;
 
 /**
- * Maps between the model's parameters in the contract's units ("external": period, epoch, radii,
- * degrees, ...) and the solver's unbounded internal coordinates, in which the bounds hold by
- * construction:
+ * The model's parameters, one {@link FitParameter} each (the common ones, then each band's), and
+ * the map between their values in the contract's units ("external") and the solver's unbounded
+ * internal coordinates. Edges that real stars sit on are ordinary points of the internal
+ * coordinates, so the solver neither stalls nor divides by zero there:
  * <ul>
  * <li>both radii free: ln(r₁+r₂) and ln(r₂/r₁) (sum and ratio are far less correlated than
  * r₁ and r₂ for a detached pair); one radius: ln r</li>
- * <li>inclination: y = cos i, i = arccos |y|, so 0° ≤ i ≤ 90° (the flux depends on cos² i only)</li>
- * <li>eccentricity and ω: (ξ, η) = artanh(e)·(cos ω, sin ω), close to (e cos ω, e sin ω) for small
- * e and always giving 0 ≤ e &lt; 1; eccentricity alone: artanh e</li>
- * <li>surface-brightness ratio: ln J; third light: logit ℓ₃</li>
- * <li>epoch: offset from the starting epoch; period, ω alone and limb-darkening coefficients: as they are</li>
+ * <li>inclination: y = cos i, allowed through zero and folded, i = arccos |y| (the flux depends on
+ * cos² i only), so i = 90° is an ordinary point</li>
+ * <li>eccentricity and ω: (e cos ω, e sin ω), so e = 0 is an ordinary point; eccentricity alone and
+ * third light: folded, value = |x|</li>
+ * <li>surface-brightness ratio: ln J</li>
+ * <li>period, epoch, ω alone and limb-darkening coefficients: (value − start) / scale</li>
  * </ul>
+ * Finite-difference steps are one hundredth of each parameter's scale, carried into the internal
+ * coordinate. Points the solver proposes outside the model's domain are moved back inside by
+ * {@link #validate(double[])} (Commons Math's parameter validator), never given a sentinel residual.
  */
 final class ParameterLayout {
     static final int PERIOD = 0;
@@ -34,66 +41,95 @@ final class ParameterLayout {
     static final int ECCENTRICITY = 5;
     static final int OMEGA = 6;
     private static final int COMMON_COUNT = 7;
-    /** Where a bounded transform cannot start on its bound, it starts this far inside. */
-    static final double THIRD_LIGHT_FLOOR = 0.01;
-    static final double ECCENTRICITY_FLOOR = 1e-4;
-
-    private static final String[] COMMON_NAMES = {"period", "epoch", "radius1", "radius2", "inclination",
-        "eccentricity", "omega"};
+    /** Finite-difference step as a fraction of a parameter's scale (common practice, no source). */
+    static final double STEP_FRACTION = 0.01;
+    /** The largest eccentricity and third light a trial point may take. */
+    private static final double MAX_ECCENTRICITY = 0.95;
+    private static final double MAX_THIRD_LIGHT = 0.98;
+    /** Trial radii keep the spheres this far apart at periastron (fraction of 1 − e). */
+    private static final double MAX_SUM_FRACTION = 0.98;
 
     private final ModelFile start;
     private final List<String> bands;
     private final int[] bandOffset;
     private final BinaryParameters[] bandStart;
-    private final String[] names;
-    private final String[] nameBands;
-    private final boolean[] free;
+    private final List<FitParameter> parameters;
     private final List<Block> blocks = new ArrayList<>();
     private final int internalSize;
-    private final List<String> adjustments = new ArrayList<>();
 
     ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames) {
+        this(start, bands, freeNames, -1);
+    }
+
+    /**
+     * The layout of a profile: the parameter at {@code fixedIndex} held at its value in {@code start}
+     * while the other free parameters move.
+     */
+    ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames, int fixedIndex) {
         this.start = start;
         this.bands = List.copyOf(bands);
         this.bandOffset = new int[bands.size()];
         this.bandStart = new BinaryParameters[bands.size()];
-        List<String> n = new ArrayList<>(Arrays.asList(COMMON_NAMES));
-        List<String> nb = new ArrayList<>();
-        for (int i = 0; i < COMMON_COUNT; i++) {
-            nb.add(null);
-        }
+        List<FitParameter> list = new ArrayList<>();
+        BinaryParameters c = start.common();
+        double p = c.periodDays();
+        list.add(param("period", null, p, 1e-5 * p, 0, Double.POSITIVE_INFINITY, FitParameter.Edge.NONE));
+        list.add(param("epoch", null, c.epochDays(), 2e-4 * p, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY,
+                FitParameter.Edge.NONE));
+        list.add(param("radius1", null, c.radius1(), 1e-3, 0, 1, FitParameter.Edge.NONE));
+        list.add(param("radius2", null, c.radius2(), 1e-3, 0, 1, FitParameter.Edge.NONE));
+        list.add(param("inclination", null, c.inclinationDeg(), 0.1, 0, 90, FitParameter.Edge.UPPER));
+        list.add(param("eccentricity", null, c.eccentricity(), 1e-3, 0, 1, FitParameter.Edge.LOWER));
+        list.add(param("omega", null, c.omegaDeg(), 0.1, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY,
+                FitParameter.Edge.NONE));
         for (int b = 0; b < bands.size(); b++) {
-            bandStart[b] = start.forBand(bands.get(b));
-            bandOffset[b] = n.size();
-            n.add("surfaceBrightnessRatio");
-            n.add("thirdLight");
-            for (String c : bandStart[b].limbDarkening1().law().coefficientNames()) {
-                n.add("limbDarkening1." + c);
-            }
-            for (String c : bandStart[b].limbDarkening2().law().coefficientNames()) {
-                n.add("limbDarkening2." + c);
-            }
-            while (nb.size() < n.size()) {
-                nb.add(bands.get(b));
-            }
+            String band = bands.get(b);
+            bandStart[b] = start.forBand(band);
+            bandOffset[b] = list.size();
+            BinaryParameters bp = bandStart[b];
+            list.add(param("surfaceBrightnessRatio", band, bp.surfaceBrightnessRatio(),
+                    Math.max(1e-3, 0.01 * bp.surfaceBrightnessRatio()), 0, Double.POSITIVE_INFINITY,
+                    FitParameter.Edge.NONE));
+            list.add(param("thirdLight", band, bp.thirdLight(), 0.01, 0, 1, FitParameter.Edge.LOWER));
+            addCoefficients(list, "limbDarkening1", band, bp.limbDarkening1());
+            addCoefficients(list, "limbDarkening2", band, bp.limbDarkening2());
         }
-        names = n.toArray(String[]::new);
-        nameBands = nb.toArray(String[]::new);
-        free = new boolean[names.length];
-        markFree(freeNames);
+        List<FitParameter> marked = new ArrayList<>(markFree(list, freeNames));
+        if (fixedIndex >= 0) {
+            marked.set(fixedIndex, marked.get(fixedIndex).withFree(false));
+        }
+        this.parameters = List.copyOf(marked);
         buildBlocks();
         internalSize = blocks.stream().mapToInt(Block::size).sum();
     }
 
-    private void markFree(Set<String> freeNames) {
-        Set<String> known = new LinkedHashSet<>(Arrays.asList(COMMON_NAMES));
+    private static FitParameter param(String name, String band, double value, double scale, double lo, double hi,
+            FitParameter.Edge edge) {
+        return new FitParameter(name, band, value, scale, lo, hi, edge, false);
+    }
+
+    private static void addCoefficients(List<FitParameter> list, String star, String band, LimbDarkening ld) {
+        List<String> names = List.of(ld.law().coefficientNames());
+        double[] values = ld.coefficients();
+        for (int k = 0; k < names.size(); k++) {
+            list.add(param(star + "." + names.get(k), band, values[k], 0.01, Double.NEGATIVE_INFINITY,
+                    Double.POSITIVE_INFINITY, FitParameter.Edge.NONE));
+        }
+    }
+
+    private static List<FitParameter> markFree(List<FitParameter> list, Set<String> freeNames) {
+        Set<String> known = new LinkedHashSet<>();
+        for (int i = 0; i < COMMON_COUNT; i++) {
+            known.add(list.get(i).name());
+        }
         known.addAll(List.of("surfaceBrightnessRatio", "thirdLight", "limbDarkening1", "limbDarkening2"));
+        List<FitParameter> out = new ArrayList<>(list);
         for (String f : freeNames) {
             boolean matched = false;
-            for (int i = 0; i < names.length; i++) {
-                if (names[i].equals(f) || (f.equals("limbDarkening1") || f.equals("limbDarkening2"))
-                        && names[i].startsWith(f + ".")) {
-                    free[i] = true;
+            for (int i = 0; i < out.size(); i++) {
+                String n = out.get(i).name();
+                if (n.equals(f) || (f.equals("limbDarkening1") || f.equals("limbDarkening2")) && n.startsWith(f + ".")) {
+                    out.set(i, out.get(i).withFree(true));
                     matched = true;
                 }
             }
@@ -101,148 +137,138 @@ final class ParameterLayout {
                 boolean ldName = f.startsWith("limbDarkening1.") || f.startsWith("limbDarkening2.");
                 throw new BadInputException("option --free: unknown parameter '" + f + "'; "
                         + (ldName ? "the limb-darkening law of that star has coefficients "
-                                + coefficientList(f.substring(0, 14)) + " (or the law takes none)"
+                                + coefficientList(out, f.substring(0, 14)) + " (or the law takes none)"
                                 : "expected names from " + String.join(", ", known)
                                         + ", or limbDarkening1.NAME / limbDarkening2.NAME for one coefficient"));
             }
         }
+        return List.copyOf(out);
     }
 
-    private String coefficientList(String star) {
+    private static String coefficientList(List<FitParameter> list, String star) {
         LinkedHashSet<String> s = new LinkedHashSet<>();
-        for (int i = 0; i < names.length; i++) {
-            if (names[i].startsWith(star + ".")) {
-                s.add(names[i]);
+        for (FitParameter p : list) {
+            if (p.name().startsWith(star + ".")) {
+                s.add(p.name());
             }
         }
         return s.isEmpty() ? "none" : String.join(", ", s);
     }
 
     private void buildBlocks() {
-        double[] ext = startExternal();
-        if (free[PERIOD]) {
-            blocks.add(new Identity(PERIOD, 1e-7 * ext[PERIOD]));
-        }
-        if (free[EPOCH]) {
-            // as an offset from the starting epoch: a Julian date's size would swamp the solver's
-            // relative step tests
-            blocks.add(new Offset(EPOCH, ext[EPOCH], 2e-6 * ext[PERIOD]));
-        }
-        if (free[RADIUS1] && free[RADIUS2]) {
+        addScaled(PERIOD);
+        addScaled(EPOCH);
+        boolean r1 = isFree(RADIUS1);
+        boolean r2 = isFree(RADIUS2);
+        if (r1 && r2) {
             blocks.add(new RadiusPair());
-        } else if (free[RADIUS1]) {
-            blocks.add(new Logarithm(RADIUS1));
-        } else if (free[RADIUS2]) {
-            blocks.add(new Logarithm(RADIUS2));
+        } else if (r1 || r2) {
+            blocks.add(new Logarithm(r1 ? RADIUS1 : RADIUS2));
         }
-        if (free[INCLINATION]) {
+        if (isFree(INCLINATION)) {
             blocks.add(new CosInclination());
         }
-        if (free[ECCENTRICITY] && free[OMEGA]) {
+        if (isFree(ECCENTRICITY) && isFree(OMEGA)) {
             blocks.add(new EccentricityVector());
-        } else if (free[ECCENTRICITY]) {
-            blocks.add(new EccentricityOnly());
-        } else if (free[OMEGA]) {
-            blocks.add(new Identity(OMEGA, 1e-3));
+        } else if (isFree(ECCENTRICITY)) {
+            blocks.add(new Folded(ECCENTRICITY));
+        } else {
+            addScaled(OMEGA);
         }
         for (int b = 0; b < bands.size(); b++) {
             int off = bandOffset[b];
-            if (free[off]) {
+            if (isFree(off)) {
                 blocks.add(new Logarithm(off));
             }
-            if (free[off + 1]) {
-                blocks.add(new Logit(off + 1));
+            if (isFree(off + 1)) {
+                blocks.add(new Folded(off + 1));
             }
             int nLd = bandStart[b].limbDarkening1().coefficientCount() + bandStart[b].limbDarkening2().coefficientCount();
             for (int k = 0; k < nLd; k++) {
-                if (free[off + 2 + k]) {
-                    blocks.add(new Identity(off + 2 + k, 1e-4));
-                }
-            }
-        }
-        if (free[ECCENTRICITY] && ext[ECCENTRICITY] < ECCENTRICITY_FLOOR) {
-            adjustments.add("eccentricity started at " + ECCENTRICITY_FLOOR + " instead of "
-                    + ext[ECCENTRICITY] + " (its transform cannot start on the bound e = 0)");
-        }
-        for (int b = 0; b < bands.size(); b++) {
-            if (free[bandOffset[b] + 1] && ext[bandOffset[b] + 1] < THIRD_LIGHT_FLOOR) {
-                adjustments.add("thirdLight" + bandSuffix(b) + " started at " + THIRD_LIGHT_FLOOR + " instead of "
-                        + ext[bandOffset[b] + 1] + " (its transform cannot start on the bound 0)");
+                addScaled(off + 2 + k);
             }
         }
     }
 
-    private String bandSuffix(int b) {
-        return bands.size() > 1 ? " (band " + bands.get(b) + ")" : "";
-    }
-
-    /** Notes on starting values moved off a bound. */
-    List<String> adjustments() {
-        return List.copyOf(adjustments);
+    private void addScaled(int index) {
+        if (isFree(index)) {
+            blocks.add(new Scaled(index));
+        }
     }
 
     List<String> bands() {
         return bands;
     }
 
+    /** Every parameter, common ones first, in the order of the external vector. */
+    List<FitParameter> parameters() {
+        return parameters;
+    }
+
     int externalSize() {
-        return names.length;
+        return parameters.size();
     }
 
     int internalSize() {
         return internalSize;
     }
 
-    String name(int i) {
-        return names[i];
-    }
-
-    String band(int i) {
-        return nameBands[i];
+    FitParameter parameter(int i) {
+        return parameters.get(i);
     }
 
     boolean isFree(int i) {
-        return free[i];
+        return parameters.get(i).free();
+    }
+
+    /** Index of a parameter by name and band (band ignored for common parameters), −1 if absent. */
+    int indexOf(String name, String band) {
+        for (int i = 0; i < parameters.size(); i++) {
+            FitParameter p = parameters.get(i);
+            if (p.name().equals(name) && (p.band() == null || band == null || p.band().equals(band))) {
+                return i;
+            }
+        }
+        return -1;
+    }
+
+    /**
+     * The same parameters started from the external vector {@code ext}, with the one at
+     * {@code index} fixed there.
+     */
+    ParameterLayout fixing(int index, double[] ext) {
+        Set<String> names = new LinkedHashSet<>();
+        for (FitParameter p : parameters) {
+            if (p.free()) {
+                names.add(p.name());
+            }
+        }
+        return new ParameterLayout(modelFile(ext), bands, names, index);
     }
 
     /** The starting model as an external vector. */
     double[] startExternal() {
-        BinaryParameters c = start.common();
-        double[] ext = new double[names.length];
-        ext[PERIOD] = c.periodDays();
-        ext[EPOCH] = c.epochDays();
-        ext[RADIUS1] = c.radius1();
-        ext[RADIUS2] = c.radius2();
-        ext[INCLINATION] = c.inclinationDeg();
-        ext[ECCENTRICITY] = c.eccentricity();
-        ext[OMEGA] = c.omegaDeg();
-        for (int b = 0; b < bands.size(); b++) {
-            BinaryParameters p = bandStart[b];
-            int off = bandOffset[b];
-            ext[off] = p.surfaceBrightnessRatio();
-            ext[off + 1] = p.thirdLight();
-            int k = off + 2;
-            for (double v : p.limbDarkening1().coefficients()) {
-                ext[k++] = v;
-            }
-            for (double v : p.limbDarkening2().coefficients()) {
-                ext[k++] = v;
-            }
-        }
-        return ext;
+        return parameters.stream().mapToDouble(FitParameter::value).toArray();
     }
 
-    /** The internal starting vector (bounded values moved off their bounds). */
+    /**
+     * The internal starting vector. A folded coordinate that starts exactly on its fold (ℓ₃ = 0,
+     * i = 90°) starts one scale away from it instead: on the fold its central derivative vanishes
+     * and the solver could not move it.
+     */
     double[] startInternal() {
-        double[] ext = startExternal();
-        if (free[ECCENTRICITY]) {
-            ext[ECCENTRICITY] = Math.max(ext[ECCENTRICITY], ECCENTRICITY_FLOOR);
-        }
-        for (int b = 0; b < bands.size(); b++) {
-            if (free[bandOffset[b] + 1]) {
-                ext[bandOffset[b] + 1] = Math.max(ext[bandOffset[b] + 1], THIRD_LIGHT_FLOOR);
+        double[] in = toInternal(startExternal());
+        int off = 0;
+        for (Block blk : blocks) {
+            if ((blk instanceof Folded || blk instanceof CosInclination) && in[off] == 0) {
+                in[off] = blk.step(0) / STEP_FRACTION;
             }
+            off += blk.size();
         }
+        return in;
+    }
+
+    double[] toInternal(double[] ext) {
         double[] in = new double[internalSize];
         int off = 0;
         for (Block blk : blocks) {
@@ -261,6 +287,34 @@ final class ParameterLayout {
             off += blk.size();
         }
         return ext;
+    }
+
+    /**
+     * The parameter validator: an internal point whose model lies outside the domain (e ≥ 0.95,
+     * ℓ₃ ≥ 0.98, spheres touching at periastron) is moved to the nearest edge of a slightly smaller
+     * domain; points inside are returned unchanged.
+     */
+    double[] validate(double[] internal) {
+        double[] ext = toExternal(internal);
+        boolean changed = false;
+        if (ext[ECCENTRICITY] > MAX_ECCENTRICITY) {
+            ext[ECCENTRICITY] = MAX_ECCENTRICITY;
+            changed = true;
+        }
+        double maxSum = MAX_SUM_FRACTION * (1 - ext[ECCENTRICITY]);
+        double sum = ext[RADIUS1] + ext[RADIUS2];
+        if (sum > maxSum) {
+            ext[RADIUS1] *= maxSum / sum;
+            ext[RADIUS2] *= maxSum / sum;
+            changed = true;
+        }
+        for (int off : bandOffset) {
+            if (ext[off + 1] > MAX_THIRD_LIGHT) {
+                ext[off + 1] = MAX_THIRD_LIGHT;
+                changed = true;
+            }
+        }
+        return changed ? toInternal(ext) : internal;
     }
 
     /** Finite-difference steps for the internal coordinates. */
@@ -285,6 +339,32 @@ final class ParameterLayout {
         return out;
     }
 
+    /** For each internal coordinate, the external parameters it moves (labels). */
+    List<String> internalOwners() {
+        List<String> out = new ArrayList<>();
+        for (Block blk : blocks) {
+            out.addAll(blk.owners());
+        }
+        return out;
+    }
+
+    /**
+     * The internal coordinate that a folded one-coordinate block gives the parameter at
+     * {@code index} (cos i, |ℓ₃|, |e|), else −1. At the fold its derivative vanishes, so a
+     * parameter reported as a limit leaves it out of the covariance.
+     */
+    int foldedCoordinate(int index) {
+        int off = 0;
+        for (Block blk : blocks) {
+            if (blk instanceof CosInclination && index == INCLINATION
+                    || blk instanceof Folded f && f.index == index) {
+                return off;
+            }
+            off += blk.size();
+        }
+        return -1;
+    }
+
     /** Model parameters of band b for an external vector. */
     BinaryParameters parameters(double[] ext, int b) {
         BinaryParameters c = start.common();
@@ -303,6 +383,24 @@ final class ParameterLayout {
         return new BandValues(ext[off], ext[off + 1], ld1.withCoefficients(c1), ld2.withCoefficients(c2));
     }
 
+    /** The model file for an external vector (same layout as the starting model). */
+    ModelFile modelFile(double[] ext) {
+        BinaryParameters common = parameters(ext, 0);
+        if (bands.size() == 1 && start.bands().isEmpty()) {
+            return ModelFile.of(common);
+        }
+        Map<String, BandValues> out = new LinkedHashMap<>(start.bands());
+        for (int b = 0; b < bands.size(); b++) {
+            out.put(bands.get(b), bandValues(ext, b));
+        }
+        BinaryParameters c = start.common();
+        BinaryParameters geometry = new BinaryParameters(common.periodDays(), common.epochDays(), common.radius1(),
+                common.radius2(), common.inclinationDeg(), common.eccentricity(), common.omegaDeg(),
+                c.surfaceBrightnessRatio(), c.thirdLight(), c.limbDarkening1(), c.limbDarkening2(),
+                common.exposureTimeDays(), common.supersample());
+        return new ModelFile(geometry, out, start.commonComplete());
+    }
+
     /** One or more internal coordinates standing for one or more external parameters. */
     private interface Block {
         int size();
@@ -314,15 +412,28 @@ final class ParameterLayout {
         double step(int k);
 
         List<String> names();
+
+        List<String> owners();
     }
 
-    private final class Identity implements Block {
-        private final int index;
-        private final double step;
+    private String label(int index) {
+        return parameters.get(index).label(bands.size() > 1);
+    }
 
-        Identity(int index, double step) {
+    private double scale(int index) {
+        return parameters.get(index).scale();
+    }
+
+    /** (value − start) / scale. */
+    private final class Scaled implements Block {
+        private final int index;
+        private final double origin;
+        private final double scale;
+
+        Scaled(int index) {
             this.index = index;
-            this.step = step;
+            this.origin = parameters.get(index).value();
+            this.scale = scale(index);
         }
 
         public int size() {
@@ -330,59 +441,34 @@ final class ParameterLayout {
         }
 
         public void toExternal(double[] in, int off, double[] ext) {
-            ext[index] = in[off];
+            ext[index] = origin + in[off] * scale;
         }
 
         public void fromExternal(double[] ext, double[] in, int off) {
-            in[off] = ext[index];
+            in[off] = (ext[index] - origin) / scale;
         }
 
         public double step(int k) {
-            return step;
+            return STEP_FRACTION;
         }
 
         public List<String> names() {
+            return List.of("(" + label(index) + " − start)/scale");
+        }
+
+        public List<String> owners() {
             return List.of(label(index));
         }
     }
 
-    private final class Offset implements Block {
-        private final int index;
-        private final double origin;
-        private final double step;
-
-        Offset(int index, double origin, double step) {
-            this.index = index;
-            this.origin = origin;
-            this.step = step;
-        }
-
-        public int size() {
-            return 1;
-        }
-
-        public void toExternal(double[] in, int off, double[] ext) {
-            ext[index] = origin + in[off];
-        }
-
-        public void fromExternal(double[] ext, double[] in, int off) {
-            in[off] = ext[index] - origin;
-        }
-
-        public double step(int k) {
-            return step;
-        }
-
-        public List<String> names() {
-            return List.of(label(index) + " offset");
-        }
-    }
-
+    /** ln value. */
     private final class Logarithm implements Block {
         private final int index;
+        private final double step;
 
         Logarithm(int index) {
             this.index = index;
+            this.step = STEP_FRACTION * scale(index) / Math.max(parameters.get(index).value(), scale(index));
         }
 
         public int size() {
@@ -398,18 +484,23 @@ final class ParameterLayout {
         }
 
         public double step(int k) {
-            return 1e-5;
+            return step;
         }
 
         public List<String> names() {
             return List.of("ln " + label(index));
         }
+
+        public List<String> owners() {
+            return List.of(label(index));
+        }
     }
 
-    private final class Logit implements Block {
+    /** value = |x|: the lower bound 0 is an ordinary point. */
+    private final class Folded implements Block {
         private final int index;
 
-        Logit(int index) {
+        Folded(int index) {
             this.index = index;
         }
 
@@ -418,24 +509,27 @@ final class ParameterLayout {
         }
 
         public void toExternal(double[] in, int off, double[] ext) {
-            ext[index] = 1 / (1 + Math.exp(-in[off]));
+            ext[index] = Math.abs(in[off]);
         }
 
         public void fromExternal(double[] ext, double[] in, int off) {
-            double v = ext[index];
-            in[off] = Math.log(v / (1 - v));
+            in[off] = ext[index];
         }
 
         public double step(int k) {
-            return 1e-4;
+            return STEP_FRACTION * scale(index);
         }
 
         public List<String> names() {
-            return List.of("logit " + label(index));
+            return List.of(label(index) + " (folded at 0)");
+        }
+
+        public List<String> owners() {
+            return List.of(label(index));
         }
     }
 
-    private static final class RadiusPair implements Block {
+    private final class RadiusPair implements Block {
         public int size() {
             return 2;
         }
@@ -453,15 +547,22 @@ final class ParameterLayout {
         }
 
         public double step(int k) {
-            return 1e-5;
+            double r1 = parameters.get(RADIUS1).value();
+            double r2 = parameters.get(RADIUS2).value();
+            return k == 0 ? STEP_FRACTION * scale(RADIUS1) / (r1 + r2)
+                    : STEP_FRACTION * scale(RADIUS1) / Math.min(r1, r2);
         }
 
         public List<String> names() {
             return List.of("ln sumOfRadii", "ln radiusRatio");
         }
+
+        public List<String> owners() {
+            return List.of("radius1, radius2", "radius1, radius2");
+        }
     }
 
-    private static final class CosInclination implements Block {
+    private final class CosInclination implements Block {
         public int size() {
             return 1;
         }
@@ -471,77 +572,53 @@ final class ParameterLayout {
         }
 
         public void fromExternal(double[] ext, double[] in, int off) {
-            double i = ext[INCLINATION];
-            in[off] = Math.abs(Math.cos(Math.toRadians(i)));
+            in[off] = Math.cos(Math.toRadians(ext[INCLINATION]));
         }
 
         public double step(int k) {
-            return 1e-5;
+            double sinI = Math.sin(Math.toRadians(parameters.get(INCLINATION).value()));
+            return STEP_FRACTION * Math.toRadians(scale(INCLINATION)) * Math.max(sinI, 0.1);
         }
 
         public List<String> names() {
-            return List.of("cos inclination");
+            return List.of("cos inclination (folded at 0)");
+        }
+
+        public List<String> owners() {
+            return List.of("inclination");
         }
     }
 
-    private static final class EccentricityVector implements Block {
+    private final class EccentricityVector implements Block {
         public int size() {
             return 2;
         }
 
         public void toExternal(double[] in, int off, double[] ext) {
-            double xi = in[off];
-            double eta = in[off + 1];
-            double rho = Math.hypot(xi, eta);
-            ext[ECCENTRICITY] = Math.tanh(rho);
-            if (rho > 0) {
-                ext[OMEGA] = Math.toDegrees(Math.atan2(eta, xi));
+            double x = in[off];
+            double y = in[off + 1];
+            ext[ECCENTRICITY] = Math.hypot(x, y);
+            if (x != 0 || y != 0) {
+                ext[OMEGA] = Math.toDegrees(Math.atan2(y, x));
             }
         }
 
         public void fromExternal(double[] ext, double[] in, int off) {
-            double a = atanh(ext[ECCENTRICITY]);
             double w = Math.toRadians(ext[OMEGA]);
-            in[off] = a * Math.cos(w);
-            in[off + 1] = a * Math.sin(w);
+            in[off] = ext[ECCENTRICITY] * Math.cos(w);
+            in[off + 1] = ext[ECCENTRICITY] * Math.sin(w);
         }
 
         public double step(int k) {
-            return 1e-5;
+            return STEP_FRACTION * scale(ECCENTRICITY);
         }
 
         public List<String> names() {
-            return List.of("artanh(e) cos omega", "artanh(e) sin omega");
-        }
-    }
-
-    private static final class EccentricityOnly implements Block {
-        public int size() {
-            return 1;
+            return List.of("e cos omega", "e sin omega");
         }
 
-        public void toExternal(double[] in, int off, double[] ext) {
-            ext[ECCENTRICITY] = Math.tanh(Math.abs(in[off]));
+        public List<String> owners() {
+            return List.of("eccentricity, omega", "eccentricity, omega");
         }
-
-        public void fromExternal(double[] ext, double[] in, int off) {
-            in[off] = atanh(ext[ECCENTRICITY]);
-        }
-
-        public double step(int k) {
-            return 1e-5;
-        }
-
-        public List<String> names() {
-            return List.of("artanh eccentricity");
-        }
-    }
-
-    private String label(int index) {
-        return nameBands[index] == null || bands.size() < 2 ? names[index] : names[index] + "@" + nameBands[index];
-    }
-
-    private static double atanh(double x) {
-        return 0.5 * Math.log((1 + x) / (1 - x));
     }
 }

@@ -16,6 +16,7 @@ import org.twinlight.fit.Estimate;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
 import org.twinlight.fit.FittedCurve;
+import org.twinlight.fit.ModelAdequacy;
 import org.twinlight.time.TimeScale;
 
 /** Writes the results of a fit: {@code fit.json}, {@code residuals.csv} and the best model file. */
@@ -34,9 +35,11 @@ public final class FitFiles {
      * @param file path as given
      * @param sha256 digest of its bytes
      * @param band band it was fitted in
-     * @param points number of points used
+     * @param bandSource where the band's name came from ({@code option --band}, {@code band column},
+     *     {@code file name}, or {@code default} for a single file that names none)
+     * @param points number of points read
      */
-    public record InputRecord(String file, String sha256, String band, int points) {
+    public record InputRecord(String file, String sha256, String band, String bandSource, int points) {
     }
 
     private FitFiles() {
@@ -61,8 +64,14 @@ public final class FitFiles {
         stats.put("iterations", r.iterations());
         stats.put("evaluations", r.evaluations());
         stats.put("errorsEstimatedFromScatter", r.errorsEstimated());
+        ObjectNode clip = stats.putObject("clipped");
+        clip.put("sigma", settings.clips() ? settings.clipSigma() : null);
+        clip.put("total", r.clippedCount());
+        ObjectNode reasons = clip.putObject("byReason");
+        r.clipped().forEach(reasons::put);
+        root.set("adequacy", adequacyJson(r.adequacy()));
         putCorrelation(root, r.freeNames(), r.correlation());
-        root.set("model", r.model().toJson());
+        root.set("model", ModelFileJson.toJson(r.model()));
         root.put("timeScale", scale.label());
         ObjectNode input = root.putObject("input");
         input.put("file", inputs.get(0).file());
@@ -73,6 +82,7 @@ public final class FitFiles {
             f.put("file", in.file());
             f.put("sha256", in.sha256());
             f.put("band", in.band());
+            f.put("bandSource", in.bandSource());
             f.put("points", in.points());
         }
         ObjectNode sw = root.putObject("software");
@@ -84,6 +94,11 @@ public final class FitFiles {
         set.put("baseline", settings.baseline().label());
         set.put("segmentGapDays", settings.segmentGapDays());
         set.put("maxIterations", settings.maxIterations());
+        if (settings.clips()) {
+            set.put("clipSigma", settings.clipSigma());
+        } else {
+            set.put("clipSigma", "none");
+        }
         set.put("method", "Levenberg-Marquardt least squares; uncertainties from the covariance scaled by the reduced chi-square");
         ArrayNode notes = root.putArray("notes");
         r.notes().forEach(notes::add);
@@ -115,10 +130,42 @@ public final class FitFiles {
             ObjectNode o = holder.putObject(e.name());
             o.put("value", e.value());
             o.put("uncertainty", e.uncertainty());
+            if (e.isLimit()) {
+                ObjectNode limit = o.putObject("limit");
+                limit.put("side", e.limit().side());
+                limit.put("value95", e.limit().value95());
+            }
             if (withFree) {
                 o.put("free", e.free());
             }
         }
+    }
+
+    private static ObjectNode adequacyJson(ModelAdequacy.Result a) {
+        ObjectNode o = JSON.createObjectNode();
+        o.put("describesData", a.describesData());
+        o.put("falseAlarmPerCheck", ModelAdequacy.FALSE_ALARM);
+        ObjectNode chi = o.putObject("chiSquare");
+        chi.put("tested", a.chi2Tested());
+        chi.put("passed", a.chi2Passed());
+        chi.put("reducedChi2", a.reducedChi2());
+        chi.put("expectedSpread", a.expectedSpread());
+        ObjectNode runs = o.putObject("runsTest");
+        runs.put("passed", a.runsPassed());
+        runs.put("runs", a.runs());
+        runs.put("expected", a.expectedRuns());
+        runs.put("z", a.runsZ());
+        ObjectNode binned = o.putObject("binnedByPhase");
+        binned.put("passed", a.binnedPassed());
+        binned.put("chi2", a.binnedChi2());
+        binned.put("bins", a.bins());
+        binned.put("probability", a.binnedProbability());
+        binned.put("inEclipseChi2", a.inEclipseChi2());
+        binned.put("inEclipseBins", a.inEclipseBins());
+        binned.put("largestMeanResidual", a.largestBinnedResidual());
+        binned.put("largestMeanResidualPhase", Double.isNaN(a.largestBinPhase()) ? null : a.largestBinPhase());
+        o.put("note", a.note());
+        return o;
     }
 
     /** Writes a JSON document atomically. */
@@ -132,7 +179,8 @@ public final class FitFiles {
 
     /**
      * {@code residuals.csv}: time, phase, band, flux (baseline divided out), error, model,
-     * residual, one row per point, after a {@code #} line with the time scale.
+     * residual (data − model), clipped (1 for a point left out as an outlier), one row per point,
+     * after a {@code #} line with the time scale.
      */
     public static void writeResiduals(Path target, FitResult r, TimeScale scale) {
         double period = r.model().common().periodDays();
@@ -140,14 +188,15 @@ public final class FitFiles {
         AtomicFiles.write(target, out -> {
             Writer w = new OutputStreamWriter(out, StandardCharsets.UTF_8);
             w.write("# time scale: " + scale.label() + "; flux divided by the fitted baseline; phase 0 = primary eclipse\n");
-            w.write("time,phase,band,flux,error,model,residual\n");
+            w.write("time,phase,band,flux,error,model,residual,clipped\n");
             for (FittedCurve c : r.curves()) {
                 for (int i = 0; i < c.size(); i++) {
                     double t = c.timesDays()[i];
                     double ph = (t - epoch) / period;
                     ph -= Math.floor(ph);
-                    w.write(String.format(Locale.ROOT, "%s,%.7f,%s,%.8f,%.3e,%.8f,%.3e%n", Double.toString(t), ph,
-                            c.band(), c.flux()[i], c.errors()[i], c.model()[i], c.residual(i)));
+                    w.write(String.format(Locale.ROOT, "%s,%.7f,%s,%.8f,%.3e,%.8f,%.3e,%d%n", Double.toString(t), ph,
+                            c.band(), c.flux()[i], c.errors()[i], c.model()[i], c.residual(i),
+                            c.clipped()[i] ? 1 : 0));
                 }
             }
             w.flush();
@@ -176,7 +225,9 @@ public final class FitFiles {
 
     private static String row(Estimate e) {
         String name = e.band() == null ? e.name() : e.name() + " [" + e.band() + "]";
-        String unc = e.free() ? format(e.uncertainty()) : "fixed";
+        String unc = !e.free() ? "fixed" : e.isLimit() ? String.format(Locale.ROOT, "%s (%s %s at 95%%)",
+                format(e.uncertainty()), e.limit().side().equals("lower") ? ">" : "<", format(e.limit().value95()))
+                : format(e.uncertainty());
         return String.format(Locale.ROOT, "%-28s %18s %14s%n", name, format(e.value()), unc);
     }
 

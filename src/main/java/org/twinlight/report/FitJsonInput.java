@@ -87,7 +87,7 @@ public record FitJsonInput(Path file, TimeScale timeScale, ModelFile model, Map<
             throw BadInputException.at(file, "key 'model'", null, "missing; expected the fitted model as the fit "
                     + "command writes it");
         }
-        return new FitJsonInput(file, ModelInput.timeScale(root, file), ModelFile.parse(model, file), values, sigmas,
+        return new FitJsonInput(file, ModelInput.timeScale(root, file), ModelFileJson.parse(model, file), values, sigmas,
                 names, corr, root.has("posterior"));
     }
 

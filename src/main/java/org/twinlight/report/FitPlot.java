@@ -27,6 +27,8 @@ import org.twinlight.fit.FittedCurve;
 public final class FitPlot {
     private static final int WIDTH = 1200;
     private static final double PHASE_START = -0.25;
+    /** Points left out as outliers: the blue of the Okabe &amp; Ito (2008) colour-blind-safe palette. */
+    private static final Color OUTLIER = new Color(0x00, 0x72, 0xB2);
 
     private FitPlot() {
     }
@@ -36,17 +38,18 @@ public final class FitPlot {
         BinaryParameters p = r.model().forBand(band);
         BinaryModel model = new BinaryModel(p);
         List<double[]> pts = new ArrayList<>();
+        List<double[]> out = new ArrayList<>();
         for (FittedCurve c : r.curves()) {
             if (!c.band().equals(band)) {
                 continue;
             }
             for (int i = 0; i < c.size(); i++) {
-                pts.add(new double[] {phase(c.timesDays()[i], p), c.flux()[i], c.residual(i)});
+                (c.clipped()[i] ? out : pts).add(new double[] {phase(c.timesDays()[i], p), c.flux()[i], c.residual(i)});
             }
         }
-        double[] ph = pts.stream().mapToDouble(a -> a[0]).toArray();
-        double[] fl = pts.stream().mapToDouble(a -> a[1]).toArray();
-        double[] res = pts.stream().mapToDouble(a -> a[2] * 1e3).toArray();
+        double[] ph = column(pts, 0, 1);
+        double[] fl = column(pts, 1, 1);
+        double[] res = column(pts, 2, 1e3);
 
         int grid = 4000;
         double[] mph = new double[grid];
@@ -60,16 +63,20 @@ public final class FitPlot {
         double[] secondaryWindow = window(model, p, secondary > 0.75 ? secondary - 1 : secondary);
 
         XYChart full = chart(WIDTH, 430, String.format(java.util.Locale.ROOT, "%s%s: P = %.7f d, T0 = %.6f (%s)",
-                title, band.isEmpty() ? "" : ", band " + band, p.periodDays(), p.epochDays(), timeScale),
+                title, r.curves().stream().map(FittedCurve::band).distinct().count() < 2 ? "" : ", band " + band, p.periodDays(), p.epochDays(), timeScale),
                 "orbital phase", "normalised flux");
         full.getStyler().setLegendPosition(org.knowm.xchart.style.Styler.LegendPosition.InsideS);
         full.getStyler().setLegendLayout(org.knowm.xchart.style.Styler.LegendLayout.Horizontal);
         addData(full, "data", ph, fl);
+        addClipped(full, out, 1, 1);
         addModel(full, "model", mph, mfl);
         full.getStyler().setXAxisMin(PHASE_START).setXAxisMax(PHASE_START + 1);
 
-        XYChart resid = chart(WIDTH, 220, null, "orbital phase", "O − C (ppt)");
+        String verdict = r.adequacy().describesData() ? null
+                : "data − model: the model does not describe the data (see the notes in fit.json)";
+        XYChart resid = chart(WIDTH, 220, verdict, "orbital phase", "data − model (ppt)");
         addData(resid, "residuals", ph, res);
+        addClipped(resid, out, 2, 1e3);
         addModel(resid, "zero", new double[] {PHASE_START, PHASE_START + 1}, new double[] {0, 0});
         resid.getStyler().setXAxisMin(PHASE_START).setXAxisMax(PHASE_START + 1).setLegendVisible(false);
 
@@ -154,6 +161,21 @@ public final class FitPlot {
         s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
         s.setMarker(SeriesMarkers.CIRCLE);
         s.setMarkerColor(PlotFiles.DATA);
+    }
+
+    private static double[] column(List<double[]> rows, int k, double factor) {
+        return rows.stream().mapToDouble(a -> a[k] * factor).toArray();
+    }
+
+    /** Points left out as outliers: another colour and marker, so they read apart without colour too. */
+    private static void addClipped(XYChart c, List<double[]> rows, int k, double factor) {
+        if (rows.isEmpty()) {
+            return;
+        }
+        XYSeries s = c.addSeries("left out (outliers)", column(rows, 0, 1), column(rows, k, factor));
+        s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+        s.setMarker(SeriesMarkers.DIAMOND);
+        s.setMarkerColor(OUTLIER);
     }
 
     private static void addModel(XYChart c, String name, double[] x, double[] y) {

@@ -32,9 +32,9 @@ public record ModelInput(ModelFile model, TimeScale timeScale, Path file) {
     public static ModelInput read(Path file) {
         JsonNode root = readJson(file);
         if (root.has("parameters") && root.has("model")) {
-            return new ModelInput(ModelFile.parse(root.get("model"), file), timeScale(root, file), file);
+            return new ModelInput(ModelFileJson.parse(root.get("model"), file), timeScale(root, file), file);
         }
-        return new ModelInput(ModelFile.read(file), TimeScale.UNKNOWN, file);
+        return new ModelInput(ModelFileJson.read(file), TimeScale.UNKNOWN, file);
     }
 
     /** The JSON document in {@code file}. */

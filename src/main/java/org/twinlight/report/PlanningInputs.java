@@ -93,7 +93,7 @@ public final class PlanningInputs {
         if (!model.isObject()) {
             throw BadInputException.at(file, "key 'model'", null, "missing: is this a fit.json written by fit?");
         }
-        return ModelFile.parse(model, file).common();
+        return ModelFileJson.parse(model, file).common();
     }
 
     /**

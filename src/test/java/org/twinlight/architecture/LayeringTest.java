@@ -52,6 +52,14 @@ class LayeringTest {
     }
 
     @Test
+    void modelAndFitPackagesHoldNoFileFormats() {
+        noClasses().that().resideInAnyPackage("org.twinlight.eclipse..", "org.twinlight.fit..",
+                "org.twinlight.timing..")
+                .should().dependOnClassesThat().resideInAnyPackage("com.fasterxml.jackson..", "java.nio.file..")
+                .check(classes);
+    }
+
+    @Test
     void reportDoesNotUseCommandLine() {
         noClasses().that().resideInAPackage("org.twinlight.report..")
                 .should().dependOnClassesThat().resideInAnyPackage("picocli..", "org.twinlight.cli..")

@@ -52,7 +52,15 @@ class FitAndSimulateCommandTest {
         JsonNode json = new ObjectMapper().readTree(out.resolve("fit.json").toFile());
         assertThat(json.at("/parameters/radius1/free").asBoolean()).isTrue();
         assertThat(json.at("/parameters/period/free").asBoolean()).isFalse();
-        assertThat(json.at("/derived/sumOfRadii/value").asDouble()).isGreaterThan(0.2);
+        // truth 0.13 + 0.09 = 0.22 (the model above); a 5σ window of the fit's own uncertainty
+        JsonNode sum = json.at("/derived/sumOfRadii");
+        assertThat(sum.get("uncertainty").asDouble()).isBetween(1e-6, 0.005);
+        assertThat(Math.abs(sum.get("value").asDouble() - 0.22)).isLessThan(5 * sum.get("uncertainty").asDouble());
+        // a single file that names no band is the default band, and fit.json says so
+        assertThat(json.at("/input/files/0/band").asText()).isEqualTo(FitCommand.DEFAULT_BAND);
+        assertThat(json.at("/input/files/0/bandSource").asText()).isEqualTo("default");
+        assertThat(json.at("/adequacy/describesData").asBoolean()).isTrue();
+        assertThat(json.at("/statistics/clipped/total").asInt()).isZero();
         assertThat(json.at("/statistics/reducedChi2").asDouble()).isBetween(0.8, 1.2);
         assertThat(json.at("/input/sha256").asText()).hasSize(64);
         assertThat(json.at("/caution").asText()).contains("spherical");
@@ -60,6 +68,75 @@ class FitAndSimulateCommandTest {
         try (var files = Files.list(out)) {
             assertThat(files.map(p -> p.getFileName().toString())).noneMatch(n -> n.endsWith(".part"));
         }
+    }
+
+    @Test
+    void simulateTakesTimesFromAOneColumnFile() throws Exception {
+        // regression: --times asks only for a first column of times, but a file of one column was refused
+        Path model = Files.writeString(dir.resolve("model.json"), MODEL);
+        Path times = Files.writeString(dir.resolve("times.txt"), "2460300.10\n2460300.20\n2460300.25\n2460300.30\n");
+        Path csv = dir.resolve("sim.csv");
+        Run sim = run("simulate", "--model", model.toString(), "--times", times.toString(), "--out", csv.toString());
+        assertThat(sim.code()).as(sim.err()).isZero();
+        assertThat(Files.readAllLines(csv).stream().filter(l -> l.startsWith("24603")).count()).isEqualTo(4);
+    }
+
+    @Test
+    void modelFileWithTrailingTextIsExitTwo() throws Exception {
+        Path model = Files.writeString(dir.resolve("model.json"), MODEL + "\n{\"period\": 3}\n");
+        Run sim = run("simulate", "--model", model.toString(), "--start", "2460300", "--end", "2460301",
+                "--cadence", "5", "--out", dir.resolve("s.csv").toString());
+        assertThat(sim.code()).isEqualTo(2);
+        assertThat(sim.err()).contains("model.json").contains("line 9").contains("after the end");
+    }
+
+    @Test
+    void absurdPeriodOrSupersampleIsExitTwoNamingTheKeyAndRange() throws Exception {
+        for (String[] bad : new String[][] {{"\"period\": 2.61", "\"period\": 1e-12", "period"},
+            {"\"period\": 2.61", "\"period\": 1e308", "period"},
+            {"\"surfaceBrightnessRatio\": 0.6,", "\"surfaceBrightnessRatio\": 0.6, \"exposureTime\": 0.02, "
+                + "\"supersample\": 100000000,", "supersample"}}) {
+            Path model = Files.writeString(dir.resolve("bad.json"), MODEL.replace(bad[0], bad[1]));
+            Run sim = run("simulate", "--model", model.toString(), "--start", "2460300", "--end", "2460301",
+                    "--cadence", "5", "--out", dir.resolve("s.csv").toString());
+            assertThat(sim.code()).as(bad[1]).isEqualTo(2);
+            assertThat(sim.err()).contains("bad.json").contains(bad[2] + " must be").contains(" to ");
+        }
+    }
+
+    @Test
+    void fitLeavesOutliersAndSaysSoWithoutTouchingTheInput() throws Exception {
+        Path model = Files.writeString(dir.resolve("model.json"), MODEL);
+        Path csv = dir.resolve("sim.csv");
+        assertThat(run("simulate", "--model", model.toString(), "--start", "2460300", "--end", "2460304",
+                "--cadence", "5", "--noise-ppm", "1000", "--seed", "8", "--out", csv.toString()).code()).isZero();
+        java.util.List<String> lines = new java.util.ArrayList<>(Files.readAllLines(csv));
+        int changed = 0;
+        for (int i = 0; i < lines.size(); i++) {
+            if (lines.get(i).startsWith("24603") && i % 97 == 0) {
+                String[] f = lines.get(i).split(",");
+                f[1] = Double.toString(Double.parseDouble(f[1]) - 0.03);
+                lines.set(i, String.join(",", f));
+                changed++;
+            }
+        }
+        Path bad = Files.write(dir.resolve("with-outliers.csv"), lines);
+        byte[] before = Files.readAllBytes(bad);
+        Path out = dir.resolve("clipped");
+        Run fit = run("fit", bad.toString(), "--model", model.toString(), "--out", out.toString());
+        assertThat(fit.code()).as(fit.err()).isZero();
+        JsonNode json = new ObjectMapper().readTree(out.resolve("fit.json").toFile());
+        assertThat(json.at("/statistics/clipped/byReason/belowModel").asInt()).isEqualTo(changed);
+        assertThat(json.at("/statistics/clipped/byReason/aboveModel").asInt()).isZero();
+        assertThat(Files.readAllBytes(bad)).isEqualTo(before);
+        Path keep = dir.resolve("kept");
+        assertThat(run("fit", bad.toString(), "--model", model.toString(), "--clip", "none", "--out",
+                keep.toString()).code()).isZero();
+        JsonNode all = new ObjectMapper().readTree(keep.resolve("fit.json").toFile());
+        assertThat(all.at("/statistics/clipped/total").asInt()).isZero();
+        assertThat(all.at("/statistics/n").asInt()).isEqualTo(json.at("/statistics/n").asInt() + changed);
+        assertThat(run("fit", bad.toString(), "--model", model.toString(), "--clip", "2", "--out",
+                dir.resolve("x").toString()).code()).isEqualTo(2);
     }
 
     @Test

@@ -10,6 +10,19 @@ class BinaryModelTest {
     private static final LimbDarkening LD1 = LimbDarkening.quadratic(0.4, 0.25);
     private static final LimbDarkening LD2 = LimbDarkening.of(LimbDarkeningLaw.POWER_2, 0.6, 0.6);
 
+    /**
+     * L₂/L₁ written out independently: J k² ∫I₂μ dμ / ∫I₁μ dμ (the light of a disc of radius r is
+     * 2π r² ∫ I μ dμ). Quadratic law: ∫(1 − a(1 − μ) − b(1 − μ)²) μ dμ = 1/2 − a/6 − b/12; power-2 law:
+     * ∫(1 − c(1 − μ^α)) μ dμ = 1/2 − c/2 + c/(α + 2) (elementary integrals; for the quadratic law
+     * Mandel &amp; Agol 2002, ApJ 580, L171: 4Ω = 1 − u₁/3 − u₂/6).
+     */
+    private static double lightRatio(double r1, double r2, double j, double flux1) {
+        double flux2 = 0.5 - 0.6 / 2 + 0.6 / (0.6 + 2);
+        return j * (r2 / r1) * (r2 / r1) * flux2 / flux1;
+    }
+
+    private static final double QUADRATIC_FLUX = 0.5 - 0.4 / 6 - 0.25 / 12;
+
     private static BinaryParameters edgeOn(double r1, double r2, double j, double l3) {
         return new BinaryParameters(2.0, 0.0, r1, r2, 90.0, 0, 90, j, l3, LD1, LD2, 0, 1);
     }
@@ -19,7 +32,8 @@ class BinaryModelTest {
         // definition of a total eclipse: the whole of star 2 is hidden, F = L₁/(L₁+L₂)
         BinaryParameters p = edgeOn(0.12, 0.07, 0.7, 0);
         BinaryModel m = new BinaryModel(p);
-        double lr = p.lightRatio();
+        double lr = lightRatio(0.12, 0.07, 0.7, QUADRATIC_FLUX);
+        assertThat(p.lightRatio()).isCloseTo(lr, within(1e-12));
         assertThat(m.flux(1.0)).isCloseTo(1 / (1 + lr), within(1e-12));
     }
 
@@ -29,7 +43,7 @@ class BinaryModelTest {
         BinaryParameters p = edgeOn(0.12, 0.05, 0.5, 0).withLimbDarkening(LimbDarkening.uniform(), LD2);
         BinaryModel m = new BinaryModel(p);
         double k = 0.05 / 0.12;
-        double w1 = 1 / (1 + p.lightRatio());
+        double w1 = 1 / (1 + lightRatio(0.12, 0.05, 0.5, 0.5));
         assertThat(1 - m.flux(0.0)).isCloseTo(w1 * k * k, within(1e-12));
     }
 

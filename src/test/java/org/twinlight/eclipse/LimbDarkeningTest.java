@@ -19,8 +19,13 @@ class LimbDarkeningTest {
     };
 
     @Test
-    void intensityMatchesTheContractFormsAndIsOneAtDiscCentre() {
-        // the laws as written in the interface contract, evaluated directly
+    void intensityMatchesThePublishedFormsAndIsOneAtDiscCentre() {
+        // each law as published, written out here independently of the production code (all from memory):
+        // linear: Milne 1921, MNRAS 81, 361; quadratic: Kopal 1950, Harvard Coll. Obs. Circ. 454, 1;
+        // square-root: Díaz-Cordovés & Giménez 1992, A&A 259, 227; logarithmic: Klinglesmith &
+        // Sobieski 1970, AJ 75, 175; power-2: Hestroffer 1997, A&A 327, 199; four-parameter:
+        // Claret 2000, A&A 363, 1081, eq. 5. The μ ln μ term of the logarithmic law enters with a
+        // minus sign: I = 1 − e(1 − μ) − f μ ln μ, which brightens the limb-ward disc for f > 0.
         double mu = 0.37;
         assertThat(LAWS[1].intensity(mu)).isCloseTo(1 - 0.6 * (1 - mu), within(1e-15));
         assertThat(LAWS[2].intensity(mu)).isCloseTo(1 - 0.4 * (1 - mu) - 0.26 * (1 - mu) * (1 - mu), within(1e-15));

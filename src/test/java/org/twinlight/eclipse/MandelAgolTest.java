@@ -24,8 +24,10 @@ class MandelAgolTest {
     }
 
     @Test
-    void centralEclipseMatchesThePublishedDepths() {
-        // exact closed form above (integration of the quadratic law over the central disc; checked against quadrature)
+    void centralEclipseMatchesTheClosedFormDepthsComputedOutsideTheProject() {
+        // depths computed from the exact closed form above, outside the project (integration of the
+        // quadratic law over the central disc, checked against numerical quadrature to 1e-16); they are
+        // not published values: REFERENCE-VALUES.md §6, "self-computed check numbers"
         assertThat(Occultation.hiddenFraction(LimbDarkening.quadratic(0.4, 0.26), 0.1, 0.0))
                 .isCloseTo(0.0121335565, within(1e-10));
         assertThat(Occultation.hiddenFraction(LimbDarkening.quadratic(0.0, 0.0), 0.1, 0.0))

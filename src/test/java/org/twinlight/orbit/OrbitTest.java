@@ -57,12 +57,45 @@ class OrbitTest {
     @Test
     void secondaryPhaseFollowsTheFirstOrderDisplacementFormula() {
         // displacement of the secondary minimum, to first order in e at i = 90°:
-        // φ₂ − 0.5 ≈ (2/π) e cos ω  (Sterne 1939, PNAS 25, 36; from memory). Second-order terms are ~e².
+        // φ₂ − 0.5 ≈ (2/π) e cos ω (Kallrath & Milone 2009, Eclipsing Binary Stars, 2nd ed., eq. 3.1.24,
+        // the i ≈ 90° form e cos ω = (π/2P)(t_II − t_I − P/2)). Second-order terms are ~e².
         for (double omega : new double[] {0, 30, 60, 120, 200}) {
             double e = 0.005;
             Orbit o = new Orbit(5, 0, e, omega, 90);
             double expected = 0.5 + 2 / Math.PI * e * Math.cos(Math.toRadians(omega));
             assertThat(o.secondaryPhase()).as("omega %s", omega).isCloseTo(expected, within(3 * e * e));
+        }
+    }
+
+    @Test
+    void projectedSeparationInAnEccentricOrbitFollowsTheKeplerEllipse() {
+        // independent computation: Kepler's equation M = E − e sin E solved here by Newton's method,
+        // r/a = 1 − e cos E, tan(ν/2) = √((1+e)/(1−e)) tan(E/2), and the sky-projected separation
+        // δ/a = (r/a) √(1 − sin²i sin²(ν + ω)) (e.g. Kallrath & Milone 2009, §3.1; from memory), with
+        // the epoch at primary conjunction, ν + ω = 90°.
+        double period = 3.7;
+        double epoch = 50.0;
+        for (double[] c : new double[][] {{0.3, 40, 80}, {0.6, 250, 87}, {0.15, 135, 60}}) {
+            double e = c[0];
+            double w = Math.toRadians(c[1]);
+            double incl = Math.toRadians(c[2]);
+            Orbit.Positions pos = new Orbit(period, epoch, e, c[1], c[2]).positions();
+            double nuConj = Math.PI / 2 - w;
+            double eConj = 2 * Math.atan(Math.sqrt((1 - e) / (1 + e)) * Math.tan(nuConj / 2));
+            double mConj = eConj - e * Math.sin(eConj);
+            for (double t = epoch; t < epoch + period; t += period / 37) {
+                double m = mConj + 2 * Math.PI * (t - epoch) / period;
+                double big = m;
+                for (int k = 0; k < 50; k++) {
+                    big -= (big - e * Math.sin(big) - m) / (1 - e * Math.cos(big));
+                }
+                double r = 1 - e * Math.cos(big);
+                double nu = 2 * Math.atan(Math.sqrt((1 + e) / (1 - e)) * Math.tan(big / 2));
+                double s = Math.sin(incl) * Math.sin(nu + w);
+                double expected = r * Math.sqrt(1 - s * s);
+                assertThat(Math.abs(pos.signedSeparation(t))).as("e=%s ω=%s i=%s t=%s", c[0], c[1], c[2], t)
+                        .isCloseTo(expected, within(1e-10));
+            }
         }
     }
 

@@ -1,0 +1,72 @@
+package org.twinlight.fit;
+
+import java.util.Arrays;
+import java.util.List;
+import org.twinlight.BadInputException;
+import org.twinlight.eclipse.ModelFile;
+
+/**
+ * A fit to be solved: the starting model, the data with their bands, the settings, and from them
+ * the parameters ({@link ParameterLayout}) and the objective ({@link WeightedResiduals}). Building
+ * it checks the input; solving it is {@link EclipseFitter#optimize(FitProblem)}.
+ */
+public final class FitProblem {
+    private final ModelFile start;
+    private final List<FitData> data;
+    private final FitSettings settings;
+    private final WeightedResiduals objective;
+
+    private FitProblem(ModelFile start, List<FitData> data, FitSettings settings) {
+        this.start = start;
+        this.data = List.copyOf(data);
+        this.settings = settings;
+        List<String> bands = data.stream().map(FitData::band).distinct().toList();
+        this.objective = new WeightedResiduals(new ParameterLayout(start, bands, settings.free()), data, settings);
+    }
+
+    /**
+     * Checks the input and builds the problem.
+     *
+     * @throws BadInputException for unknown free-parameter names, or flux that is not normalised
+     *     when no baseline is fitted
+     */
+    public static FitProblem of(ModelFile start, List<FitData> data, FitSettings settings) {
+        if (data.isEmpty()) {
+            throw new IllegalArgumentException("no data to fit");
+        }
+        if (settings.baseline() == Baseline.NONE) {
+            for (FitData d : data) {
+                double[] f = d.lightCurve().fluxes();
+                Arrays.sort(f);
+                double median = f[f.length / 2];
+                if (!(Math.abs(median - 1) < 0.5)) {
+                    throw new BadInputException(d.lightCurve().source() + ": with --baseline none the flux must be "
+                            + "normalised to about 1 out of eclipse, but its median is " + median
+                            + "; use --baseline offset (the default) to fit the normalisation");
+                }
+            }
+        }
+        return new FitProblem(start, data, settings);
+    }
+
+    public ModelFile start() {
+        return start;
+    }
+
+    public List<FitData> data() {
+        return data;
+    }
+
+    public FitSettings settings() {
+        return settings;
+    }
+
+    /** The free parameters and every fixed one, with scales and bounds. */
+    public List<FitParameter> parameters() {
+        return objective.layout().parameters();
+    }
+
+    WeightedResiduals objective() {
+        return objective;
+    }
+}
