@@ -226,16 +226,8 @@ public final class PredictCommand implements Callable<Integer> {
     }
 
     private PlanningTarget singleTarget(List<String> notes) {
-        if (ra == null || dec == null) {
-            throw new BadInputException("the target's position is missing: give --ra and --dec (J2000; degrees, or"
-                    + " hh:mm:ss.s and ±dd:mm:ss), or a target list with --targets");
-        }
-        SkyDirection direction;
-        try {
-            direction = new SkyDirection(SkyDirection.parseRaDeg(ra), SkyDirection.parseDecDeg(dec));
-        } catch (IllegalArgumentException e) {
-            throw new BadInputException("option --ra/--dec: " + e.getMessage());
-        }
+        SkyDirection direction = SkyPositionOptions.parse(ra, dec,
+                "a prediction without --targets LIST.csv");
         PredictionEphemeris eph = ephemeris(notes);
         EclipseExtent extent;
         if (fitFile != null) {

@@ -57,6 +57,7 @@ public final class EphemerisJson {
             EphemerisFit linear = c.oc().linear();
             root.set("epoch", quantity(linear.parameter("epoch").orElseThrow()));
             root.set("period", quantity(linear.parameter("period").orElseThrow()));
+            number(root, "epochPeriodCovariance", linear.epochPeriodCovarianceDays2());
         } else {
             root.set("epoch", quantity(c.given().epochDays(), Double.NaN));
             root.set("period", quantity(c.given().periodDays(), Double.NaN));

@@ -25,10 +25,13 @@ import java.util.Optional;
  * @param freeParameters number of free parameters k
  * @param bic Bayesian information criterion χ² + k·ln n (Schwarz 1978, Ann. Stat. 6, 461)
  * @param errorScale factor the formal uncertainties were multiplied by: max(1, √(χ²/(n − k)))
+ * @param epochPeriodCovarianceDays2 covariance of the fitted epoch and period (d², scaled like their
+ *        uncertainties), NaN when it could not be computed; what predictions many cycles ahead need
  */
 public record EphemerisFit(EphemerisModel model, Ephemeris reference, double offsetDays, double periodCorrectionDays,
         double quadraticDays, double secondaryOffsetDays, EphemerisLightTime lightTime,
-        List<EphemerisParameter> parameters, double chi2, int n, int freeParameters, double bic, double errorScale) {
+        List<EphemerisParameter> parameters, double chi2, int n, int freeParameters, double bic, double errorScale,
+        double epochPeriodCovarianceDays2) {
 
     public EphemerisFit {
         Objects.requireNonNull(model, "model");
@@ -63,7 +66,7 @@ public record EphemerisFit(EphemerisModel model, Ephemeris reference, double off
         p.removeIf(q -> q.name().equals("secondaryOffset"));
         p.add(new EphemerisParameter("secondaryOffset", secondaryDays, Double.NaN, "d"));
         return new EphemerisFit(model, reference, offsetDays, periodCorrectionDays, quadraticDays, secondaryDays,
-                lightTime, p, chi2, n, freeParameters, bic, errorScale);
+                lightTime, p, chi2, n, freeParameters, bic, errorScale, epochPeriodCovarianceDays2);
     }
 
     /** χ²/(n − k), NaN when n ≤ k. */

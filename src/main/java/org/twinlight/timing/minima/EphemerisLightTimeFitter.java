@@ -244,7 +244,7 @@ final class EphemerisLightTimeFitter {
         params.add(new EphemerisParameter("omega", omega, sigmaOmega, "deg"));
         params.add(new EphemerisParameter("periastronTime", p[base + 4], sd[base + 4], "d"));
         return new EphemerisFit(EphemerisModel.LIGHT_TIME, reference, p[0], p[1], 0, s, orbit, params, chi2, n, k,
-                OcAnalysis.bic(chi2, k, n), scale);
+                OcAnalysis.bic(chi2, k, n), scale, cov == null ? Double.NaN : scale * scale * cov.getEntry(0, 1));
     }
 
     /** The model and its numerical Jacobian (central differences). */

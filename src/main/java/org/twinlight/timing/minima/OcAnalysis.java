@@ -228,7 +228,7 @@ public final class OcAnalysis {
             params.add(new EphemerisParameter("secondaryOffset", s, scale * sol.sigma(k - 1), "d"));
         }
         return new EphemerisFit(model, reference, b[0], b[1], q, s, null, params, sol.chi2(), n, k,
-                bic(sol.chi2(), k, n), scale);
+                bic(sol.chi2(), k, n), scale, scale * scale * sol.covariance()[0][1]);
     }
 
     static double errorScale(double chi2, int n, int k) {

@@ -61,6 +61,27 @@ class OcAnalysisTest {
         }
     }
 
+    /**
+     * The epoch–period covariance of a straight-line fit with equal errors σ at cycles E_i:
+     * cov(T₀, P) = −σ² ΣE / (n ΣE² − (ΣE)²) (Press et al. 2007, Numerical Recipes 3rd ed., §15.2,
+     * eq. 15.2.9 and the covariance below it). Predictions many cycles ahead need it.
+     */
+    @Test
+    void epochPeriodCovarianceFollowsTheStraightLineClosedForm() {
+        double sigmaT = 30.0 / 86400;
+        int n = 25;
+        int step = 3;
+        OcResult r = OcAnalysis.analyse(timings(n, step, sigmaT, e -> 0, null), REFERENCE, false);
+        double sumE = 0;
+        double sumE2 = 0;
+        for (int i = 0; i < n; i++) {
+            sumE += i * step;
+            sumE2 += (double) i * step * i * step;
+        }
+        double expected = -sigmaT * sigmaT * sumE / (n * sumE2 - sumE * sumE);
+        assertThat(r.linear().epochPeriodCovarianceDays2()).isCloseTo(expected, within(1e-9 * Math.abs(expected)));
+    }
+
     /** The period error is honest: pulls of the fitted period over many seeds have unit spread. */
     @Test
     void linearPeriodPullsHaveUnitSpread() {
