@@ -375,8 +375,11 @@ public final class MinimaCommand implements Callable<Integer> {
                 chosen.label(), e0.value(), e0.uncertainty(), p.value(), p.uncertainty(),
                 Double.isFinite(lin.reducedChi2()) ? String.format(Locale.ROOT, "χ²/ν = %.2f", lin.reducedChi2())
                         : "no degrees of freedom left (errors from the timings alone)");
-        lin.parameter("secondaryOffset").ifPresent(s -> o.printf(Locale.ROOT,
-                "secondary displaced from phase 0.5 by %.2f ± %.2f min%n", s.value() * 1440, s.uncertainty() * 1440));
+        lin.parameter("secondaryOffset").ifPresent(s -> o.print(Double.isFinite(s.uncertainty())
+                ? String.format(Locale.ROOT, "secondary displaced from phase 0.5 by %.2f ± %.2f min%n",
+                        s.value() * 1440, s.uncertainty() * 1440)
+                : String.format(Locale.ROOT, "secondary displacement from phase 0.5 fixed at %.2f min (not fitted)%n",
+                        s.value() * 1440)));
         if (oc.quadratic() != null) {
             EphemerisParameter d = oc.quadratic().parameter("dPdE").orElseThrow();
             EphemerisParameter dt = oc.quadratic().parameter("dPdtSecondsPerYear").orElseThrow();
