@@ -210,9 +210,11 @@ public final class MinimaCommand implements Callable<Integer> {
         Ephemeris givenEphemeris = given;
         long cycles = timings.stream().mapToDouble(MinimumTime::cycle).distinct().count();
         if (cycles >= 2) {
-            oc = OcAnalysis.analyse(timings, given, true, search.secondaryOffsetDays());
+            oc = OcAnalysis.analyse(timings, given, true, search.secondaryOffsetDays(),
+                    search.secondaryOffsetErrorDays());
             if (fittedReference) {
-                oc = OcAnalysis.analyse(timings, oc.linear().linearPart(), true, search.secondaryOffsetDays());
+                oc = OcAnalysis.analyse(timings, oc.linear().linearPart(), true, search.secondaryOffsetDays(),
+                    search.secondaryOffsetErrorDays());
             }
         }
         Ephemeris reference = oc != null ? oc.reference() : given;

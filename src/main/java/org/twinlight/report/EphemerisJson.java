@@ -75,7 +75,9 @@ public final class EphemerisJson {
                 double p = c.oc().linear().parameter("period").orElseThrow().value();
                 ObjectNode m = root.putObject("secondaryPhaseMeasured");
                 m.put("value", 0.5 + off.value() / p); // cycles of secondaries are n + 0.5
-                m.put("uncertainty", off.uncertainty() / p);
+                number(m, "uncertainty", off.uncertainty() / p);
+                // fixed at the folded light curve's value when the timings could not fit it
+                m.put("fittedToTimings", c.oc().modelNotes().stream().noneMatch(n -> n.contains("cannot be separated")));
             });
         }
         ObjectNode given = root.putObject("givenEphemeris");

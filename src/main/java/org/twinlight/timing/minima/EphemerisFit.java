@@ -69,6 +69,32 @@ public record EphemerisFit(EphemerisModel model, Ephemeris reference, double off
                 lightTime, p, chi2, n, freeParameters, bic, errorScale, epochPeriodCovarianceDays2);
     }
 
+    /**
+     * This fit (made with a fixed secondary offset) with the uncertainty of that offset carried into
+     * every parameter: {@code plus} and {@code minus} are the same fit with the offset moved by
+     * ±{@code offsetErrorDays}; each parameter's uncertainty becomes σ ⊕ |Δ|/2 and the epoch–period
+     * covariance gains the product of the epoch's and period's half-differences.
+     */
+    public EphemerisFit withFixedOffsetError(EphemerisFit plus, EphemerisFit minus, double offsetErrorDays) {
+        List<EphemerisParameter> p = new java.util.ArrayList<>();
+        for (EphemerisParameter q : parameters) {
+            if (q.name().equals("secondaryOffset")) {
+                p.add(new EphemerisParameter(q.name(), q.value(), offsetErrorDays, q.unit()));
+                continue;
+            }
+            double half = halfDifference(plus, minus, q.name());
+            p.add(new EphemerisParameter(q.name(), q.value(), Math.hypot(q.uncertainty(), half), q.unit()));
+        }
+        double cov = epochPeriodCovarianceDays2
+                + halfDifference(plus, minus, "epoch") * halfDifference(plus, minus, "period");
+        return new EphemerisFit(model, reference, offsetDays, periodCorrectionDays, quadraticDays, secondaryOffsetDays,
+                lightTime, p, chi2, n, freeParameters, bic, errorScale, cov);
+    }
+
+    private static double halfDifference(EphemerisFit plus, EphemerisFit minus, String name) {
+        return (plus.parameter(name).orElseThrow().value() - minus.parameter(name).orElseThrow().value()) / 2;
+    }
+
     /** χ²/(n − k), NaN when n ≤ k. */
     public double reducedChi2() {
         return n > freeParameters ? chi2 / (n - freeParameters) : Double.NaN;

@@ -140,7 +140,9 @@ public final class MinimumFinder {
         return new MinimumSearchResult(minima, skipped, pWindow, sWindow, pDuration, sDuration,
                 primary == null ? Double.NaN : primary.depth(), secondary == null ? Double.NaN : secondary.depth(),
                 lc.timeScale(), primary == null || secondary == null ? Double.NaN
-                        : (sp - 0.5) * p + secondary.centreShiftDays() - primary.centreShiftDays(), sp, notes);
+                        : (sp - 0.5) * p + secondary.centreShiftDays() - primary.centreShiftDays(),
+                primary == null || secondary == null ? Double.NaN
+                        : Math.hypot(primary.binWidthDays(), secondary.binWidthDays()), sp, notes);
     }
 
     /** Phase of time {@code time} from the eclipse at {@code phase}, in [−0.5, 0.5). */

@@ -12,10 +12,11 @@ import org.twinlight.photometry.RobustStatistics;
  * out-of-eclipse level (the median of all points). Common practice, no source.
  *
  * @param centreShiftDays where the folded eclipse centre lies relative to the expected time, days
+ * @param binWidthDays width of the phase bins the centre was found with, days: its resolution
  * @param durationDays width between the two edges, days
  * @param depth fractional depth of the deepest bin below the out-of-eclipse level
  */
-record MinimumProfileEstimate(double centreShiftDays, double durationDays, double depth) {
+record MinimumProfileEstimate(double centreShiftDays, double durationDays, double depth, double binWidthDays) {
 
     /**
      * @param t times, days
@@ -90,7 +91,8 @@ record MinimumProfileEstimate(double centreShiftDays, double durationDays, doubl
         double leftPhase = -maxHalfPhase + left * width;
         double rightPhase = -maxHalfPhase + (right + 1) * width;
         double p = eph.periodDays();
-        return new MinimumProfileEstimate((leftPhase + rightPhase) / 2 * p, (rightPhase - leftPhase) * p, depth / baseline);
+        return new MinimumProfileEstimate((leftPhase + rightPhase) / 2 * p, (rightPhase - leftPhase) * p, depth / baseline,
+                width * p);
     }
 
     /** Robust point-to-point scatter of a series: 1.4826·MAD of successive differences / √2. */

@@ -19,14 +19,16 @@ import org.twinlight.time.TimeScale;
  * @param secondaryOffsetDays displacement of the secondary eclipses from phase 0.5 seen in the
  *     folded light curve, days (secondary minus primary centre, minus half a period); NaN when
  *     either eclipse is not seen
+ * @param secondaryOffsetErrorDays its 1σ resolution, days: each folded centre is found to within one
+ *     phase bin, so the two bin widths in quadrature (conservative); NaN with the offset
  * @param secondaryPhase phase at which the secondaries were measured: the one asked for, or the
  *     one where a secondary was found when none was seen there
  * @param notes remarks for people (e.g. a secondary found away from the expected phase)
  */
 public record MinimumSearchResult(List<MinimumTime> minima, List<MinimumSkip> skipped, double primaryWindowDays,
         double secondaryWindowDays, double primaryDurationDays, double secondaryDurationDays, double primaryDepth,
-        double secondaryDepth, TimeScale timeScale, double secondaryOffsetDays, double secondaryPhase,
-        List<String> notes) {
+        double secondaryDepth, TimeScale timeScale, double secondaryOffsetDays, double secondaryOffsetErrorDays,
+        double secondaryPhase, List<String> notes) {
 
     public MinimumSearchResult {
         minima = List.copyOf(minima);
@@ -46,7 +48,8 @@ public record MinimumSearchResult(List<MinimumTime> minima, List<MinimumSkip> sk
         List<MinimumSkip> s = skipped.stream().map(k -> new MinimumSkip(k.cycle(), k.type(),
                 convert.applyAsDouble(k.predictedTimeDays()), k.nPoints(), k.reason())).toList();
         return new MinimumSearchResult(m, s, primaryWindowDays, secondaryWindowDays, primaryDurationDays,
-                secondaryDurationDays, primaryDepth, secondaryDepth, scale, secondaryOffsetDays, secondaryPhase, notes);
+                secondaryDurationDays, primaryDepth, secondaryDepth, scale, secondaryOffsetDays, secondaryOffsetErrorDays,
+                secondaryPhase, notes);
     }
 
     /** True when the eclipses at the secondary phase are clearly deeper than those at phase 0. */

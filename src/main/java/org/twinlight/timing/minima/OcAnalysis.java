@@ -65,7 +65,7 @@ public final class OcAnalysis {
      * @throws WorkFailedException when there are fewer than two cycles to fit
      */
     public static OcResult analyse(List<MinimumTime> minima, Ephemeris reference, boolean tryLightTime) {
-        return analyse(minima, reference, tryLightTime, Double.NaN);
+        return analyse(minima, reference, tryLightTime, Double.NaN, Double.NaN);
     }
 
     /**
@@ -77,7 +77,7 @@ public final class OcAnalysis {
      * when unknown), with a note.
      */
     public static OcResult analyse(List<MinimumTime> minima, Ephemeris reference, boolean tryLightTime,
-            double measuredSecondaryOffsetDays) {
+            double measuredSecondaryOffsetDays, double measuredSecondaryOffsetErrorDays) {
         checkTimings(minima);
         List<MinimumTime> sorted = new ArrayList<>(minima);
         sorted.sort(Comparator.comparingDouble(MinimumTime::timeDays));
@@ -125,6 +125,19 @@ public final class OcAnalysis {
                 }
                 linear = polynomial(EphemerisModel.LINEAR, cycle, secondary, ocFit, sigma, reference, false)
                         .withFixedSecondaryOffset(fixedOffset);
+                // The fixed offset is itself uncertain; refit with it moved by ±1σ and add the half-difference
+                // of each result to its uncertainty (propagation of a fixed parameter's error, common
+                // practice, no source), so the period is never more precise than the offset allows.
+                double offsetError = Double.isFinite(measuredSecondaryOffsetErrorDays) ? measuredSecondaryOffsetErrorDays
+                        : 0;
+                if (offsetError > 0) {
+                    linear = linear.withFixedOffsetError(
+                            refitWithOffset(cycle, secondary, oc, sigma, reference, fixedOffset + offsetError),
+                            refitWithOffset(cycle, secondary, oc, sigma, reference, fixedOffset - offsetError),
+                            offsetError);
+                    secondaryNote += String.format(Locale.ROOT, " ± %.2f min (its resolution, carried into the epoch"
+                            + " and period errors)", offsetError * 1440);
+                }
             }
         }
         EphemerisFit quadratic = null;
@@ -149,6 +162,17 @@ public final class OcAnalysis {
         }
         return new OcResult(reference, points, linear, quadratic, lightTime, choice.preferred(), notes,
                 seriesDifference(cycle, secondary, oc, sigma));
+    }
+
+    /** The linear ephemeris of O−C from which a secondary offset {@code offsetDays} was taken out. */
+    private static EphemerisFit refitWithOffset(double[] cycle, boolean[] secondary, double[] oc, double[] sigma,
+            Ephemeris reference, double offsetDays) {
+        double[] shifted = oc.clone();
+        for (int i = 0; i < shifted.length; i++) {
+            shifted[i] -= secondary[i] ? offsetDays : 0;
+        }
+        return polynomial(EphemerisModel.LINEAR, cycle, secondary, shifted, sigma, reference, false)
+                .withFixedSecondaryOffset(offsetDays);
     }
 
     /** {@code fit} with the secondary offset fixed at {@code offsetDays}; unchanged when that is NaN or fit is null. */

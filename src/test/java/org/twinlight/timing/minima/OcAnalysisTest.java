@@ -198,7 +198,7 @@ class OcAnalysisTest {
         double mean = java.util.Arrays.stream(cycles).average().orElseThrow();
         double sxx = java.util.Arrays.stream(cycles).map(c -> (c - mean) * (c - mean)).sum();
         double pooledSigma = sigma / Math.sqrt(sxx);
-        OcResult r = OcAnalysis.analyse(list, REFERENCE, false, 0.003);
+        OcResult r = OcAnalysis.analyse(list, REFERENCE, false, 0.003, Double.NaN);
         EphemerisParameter period = r.linear().parameter("period").orElseThrow();
         assertThat(period.value()).isCloseTo(3.2145678, within(4 * period.uncertainty()));
         assertThat(period.uncertainty()).isCloseTo(pooledSigma, within(0.3 * pooledSigma));
@@ -214,10 +214,39 @@ class OcAnalysisTest {
             interleaved.add(MinimumTime.of(i + 0.5, MinimumType.SECONDARY,
                     calculated(i + 0.5) + 0.003 + sigma * random.nextGaussian(), sigma, MinimumMethod.TEMPLATE));
         }
-        OcResult free = OcAnalysis.analyse(interleaved, REFERENCE, false, 0.0);
+        OcResult free = OcAnalysis.analyse(interleaved, REFERENCE, false, 0.0, Double.NaN);
         assertThat(free.modelNotes()).noneMatch(n -> n.contains("cannot be separated"));
         EphemerisParameter fitted = free.linear().parameter("secondaryOffset").orElseThrow();
         assertThat(fitted.value()).isCloseTo(0.003, within(4 * fitted.uncertainty()));
+    }
+
+    /**
+     * Regression: a short ground run, primaries on the first nights and secondaries on the last, with
+     * the folded-curve offset off by one bin (−3.4 min where the truth is 0). The fixed offset's
+     * resolution must reach the period's error: the true period stays within 2σ (it was 5σ off when
+     * the offset was taken as exact). The expected shift of the period, offset error / cycle
+     * separation, is written out here.
+     */
+    @Test
+    void uncertainFixedOffsetWidensThePeriodError() {
+        double sigma = 15.0 / 86400;
+        double binError = 3.4 / 1440;
+        List<MinimumTime> list = new ArrayList<>();
+        for (double c : new double[] {0, 1}) {
+            list.add(MinimumTime.of(c, MinimumType.PRIMARY, calculated(c), sigma, MinimumMethod.TEMPLATE));
+        }
+        for (double c : new double[] {2.5, 3.5}) {
+            list.add(MinimumTime.of(c, MinimumType.SECONDARY, calculated(c), sigma, MinimumMethod.TEMPLATE));
+        }
+        OcResult r = OcAnalysis.analyse(list, REFERENCE, false, -binError, binError);
+        EphemerisParameter period = r.linear().parameter("period").orElseThrow();
+        // a wrong offset δ moves the period by about δ / (mean secondary cycle − mean primary cycle) = δ / 2.5
+        double shift = binError / 2.5;
+        assertThat(Math.abs(period.value() - 3.2145678)).isCloseTo(shift, within(0.2 * shift));
+        assertThat(period.uncertainty()).isGreaterThan(0.8 * shift);
+        assertThat(Math.abs(period.value() - 3.2145678)).isLessThan(2 * period.uncertainty());
+        assertThat(r.linear().parameter("secondaryOffset").orElseThrow().uncertainty()).isEqualTo(binError);
+        assertThat(r.modelNotes()).anyMatch(n -> n.contains("carried into the epoch and period errors"));
     }
 
     @Test
