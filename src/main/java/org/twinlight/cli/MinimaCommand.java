@@ -16,6 +16,7 @@ import org.twinlight.report.InputDigest;
 import org.twinlight.report.MinimaCsv;
 import org.twinlight.report.MinimaSubmissionTable;
 import org.twinlight.report.OcPlot;
+import org.twinlight.report.ResultSet;
 import org.twinlight.timing.Ephemeris;
 import org.twinlight.timing.minima.EphemerisFit;
 import org.twinlight.timing.minima.EphemerisParameter;
@@ -158,13 +159,16 @@ public final class MinimaCommand implements Callable<Integer> {
 
         String version = VersionInfo.version();
         String source = file.getFileName().toString();
-        MinimaCsv.write(out.resolve("minima.csv"), search.minima(), lc.timeScale(), source, given);
-        EphemerisJson.write(out.resolve("ephemeris.json"), new EphemerisJson.Content(given, oc, search, chosen,
-                secondaryPhase, source, InputDigest.sha256(file), version));
-        OcPlot.write(out.resolve("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
-                reference.epochDays(), reference.periodDays()), lc.timeScale(), chosen.label());
-        MinimaSubmissionTable.write(out.resolve("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,
-                lc.timeScale(), source, reference, observer, filterName, version));
+        try (ResultSet set = ResultSet.open(out, "minima")) {
+            MinimaCsv.write(set.file("minima.csv"), search.minima(), lc.timeScale(), source, given);
+            EphemerisJson.write(set.file("ephemeris.json"), new EphemerisJson.Content(given, oc, search, chosen,
+                    secondaryPhase, source, InputDigest.sha256(file), version));
+            OcPlot.write(set.file("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
+                    reference.epochDays(), reference.periodDays()), lc.timeScale(), chosen.label());
+            MinimaSubmissionTable.write(set.file("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,
+                    lc.timeScale(), source, reference, observer, filterName, version));
+            set.commit();
+        }
 
         printSummary(o, lc, search, chosen, oc);
         o.flush();

@@ -9,6 +9,7 @@ import org.twinlight.BadInputException;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.report.PeriodResultJson;
 import org.twinlight.report.PeriodogramPlot;
+import org.twinlight.report.ResultSet;
 import org.twinlight.timing.period.PeriodCandidate;
 import org.twinlight.timing.period.PeriodSearch;
 import org.twinlight.timing.period.PeriodSearchResult;
@@ -74,12 +75,13 @@ public final class PeriodCommand implements Callable<Integer> {
         PeriodSearchSettings settings = PeriodSearchSettings.defaults().withMinPeriodDays(minPeriod)
                 .withMaxPeriodDays(maxPeriod).withParallel(!singleThread);
         PeriodSearchResult r = PeriodSearch.search(lc, settings);
-        Path json = out.resolve("period.json");
-        Path png = out.resolve("periodogram.png");
-        PeriodResultJson.write(json, r, lc.timeScale().label(), file.getFileName().toString(), org.twinlight.report.InputDigest.sha256(file),
-                lc.rejectedCount(), VersionInfo.version());
-        PeriodogramPlot.write(png, r, lc);
-        printSummary(spec.commandLine().getOut(), r, lc, json, png);
+        try (ResultSet set = ResultSet.open(out, "period")) {
+            PeriodResultJson.write(set.file("period.json"), r, lc.timeScale().label(), file.getFileName().toString(),
+                    org.twinlight.report.InputDigest.sha256(file), lc.rejectedCount(), VersionInfo.version());
+            PeriodogramPlot.write(set.file("periodogram.png"), r, lc);
+            set.commit();
+        }
+        printSummary(spec.commandLine().getOut(), r, lc, out.resolve("period.json"), out.resolve("periodogram.png"));
         return 0;
     }
 

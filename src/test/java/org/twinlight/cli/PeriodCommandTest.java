@@ -86,8 +86,9 @@ class PeriodCommandTest {
         assertThat(png.getHeight()).isGreaterThan(600);
         assertThat(so.toString()).contains("period").contains("secondary at phase").contains("runners-up");
         try (var files = Files.list(out)) {
+            // besides the results only the hidden lock and list of the result set (ResultSet)
             assertThat(files.map(p -> p.getFileName().toString())).containsExactlyInAnyOrder("period.json",
-                    "periodogram.png");
+                    "periodogram.png", ".twinlight.lock", ".twinlight-period.files");
         }
     }
 
