@@ -185,7 +185,7 @@ record ColumnChoice(int time, int value, int error, int band, int quality) {
         }
     }
 
-    private static int resolve(Path file, String where, List<String> names, int width, String spec, String option) {
+    static int resolve(Path file, String where, List<String> names, int width, String spec, String option) {
         if (spec == null || spec.isBlank()) {
             return -1;
         }

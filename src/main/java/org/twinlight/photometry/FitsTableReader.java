@@ -190,8 +190,10 @@ final class FitsTableReader {
         String fixedBand = bandKeyword(hdu.getHeader(), primary);
         List<String> notes = time.declared()
                 ? LightCurveReader.overrideNotes(time.scale(), options.timeScale()) : List.of();
-        return LightCurveReader.withNotes(rows.build(file.getFileName().toString(), fixedBand, scale, toDays, offset),
-                notes);
+        Map<String, LightCurve> curves = rows.build(file.getFileName().toString(), fixedBand, scale, toDays, offset);
+        List<String> all = new ArrayList<>(notes);
+        all.addAll(ValueCheck.check(file, valueName, kind, options.valueKind() != null, curves));
+        return LightCurveReader.withNotes(curves, all);
     }
 
     /**

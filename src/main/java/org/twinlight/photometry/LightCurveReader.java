@@ -71,6 +71,35 @@ public final class LightCurveReader {
     }
 
     /**
+     * Reads one column of numbers from a delimited text file by the same rules as {@link #read}
+     * (delimiter, decimal comma, header, byte-order mark, encoding), for commands that need a
+     * column of times only.
+     *
+     * @param choice header name or 1-based number of the column; null for the column the header
+     *     names as the time, else the first column holding a number in the first data row
+     * @throws org.twinlight.BadInputException naming the file, the lines and the column when a row
+     *     holds no number there, or the column does not exist
+     */
+    public static TextColumn readColumn(Path file, String choice) {
+        byte[] head = new byte[16];
+        int n = 0;
+        if (!Files.isDirectory(file)) {
+            try (InputStream in = Files.newInputStream(file)) {
+                n = in.readNBytes(head, 0, head.length);
+            } catch (NoSuchFileException e) {
+                throw BadInputException.at(file, null, null, "no such file");
+            } catch (IOException e) {
+                throw BadInputException.at(file, null, null, "cannot read the file (" + e.getMessage() + ")");
+            }
+        }
+        if (FitsTableReader.looksLikeFits(java.util.Arrays.copyOf(head, n), file.getFileName().toString())) {
+            throw BadInputException.at(file, null, null, "a FITS file; this command reads a column of times from "
+                    + "delimited text");
+        }
+        return TextTableReader.readColumn(file, choice);
+    }
+
+    /**
      * Index (0-based) of the column that a header row names as the time, by the same names the
      * readers detect (time, bjd, hjd, jd, mjd, btjd, ..., or a scale label such as BJD_TDB), or −1.
      */
