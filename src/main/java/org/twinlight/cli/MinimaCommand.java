@@ -162,7 +162,7 @@ public final class MinimaCommand implements Callable<Integer> {
         try (ResultSet set = ResultSet.open(out, "minima")) {
             MinimaCsv.write(set.file("minima.csv"), search.minima(), lc.timeScale(), source, given);
             EphemerisJson.write(set.file("ephemeris.json"), new EphemerisJson.Content(given, oc, search, chosen,
-                    secondaryPhase, source, InputDigest.sha256(file), version));
+                    secondaryPhase, source, InputDigest.sha256(file), version), lc.notes());
             OcPlot.write(set.file("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
                     reference.epochDays(), reference.periodDays()), lc.timeScale(), chosen.label());
             MinimaSubmissionTable.write(set.file("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,

@@ -77,7 +77,7 @@ public final class PeriodCommand implements Callable<Integer> {
         PeriodSearchResult r = PeriodSearch.search(lc, settings);
         try (ResultSet set = ResultSet.open(out, "period")) {
             PeriodResultJson.write(set.file("period.json"), r, lc.timeScale().label(), file.getFileName().toString(),
-                    org.twinlight.report.InputDigest.sha256(file), lc.rejectedCount(), VersionInfo.version());
+                    org.twinlight.report.InputDigest.sha256(file), lc.rejectedCount(), VersionInfo.version(), lc.notes());
             PeriodogramPlot.write(set.file("periodogram.png"), r, lc);
             set.commit();
         }
