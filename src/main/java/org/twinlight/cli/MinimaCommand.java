@@ -110,6 +110,7 @@ public final class MinimaCommand implements Callable<Integer> {
         if (!(periodDays > 0) || !Double.isFinite(periodDays)) {
             throw new BadInputException("option --period: " + periodDays + " d is not allowed; expected a period > 0 days");
         }
+        OptionChecks.periodDays("--period", periodDays);
         if (!Double.isFinite(epochDays)) {
             throw new BadInputException("option --epoch: " + epochDays + " is not a finite time in days");
         }

@@ -1,7 +1,6 @@
 package org.twinlight.cli;
 
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -57,19 +56,13 @@ public final class PeriodCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        if (minPeriod != null && !(minPeriod > 0 && Double.isFinite(minPeriod))) {
-            throw new BadInputException("option --min-period: expected a positive number of days, got " + minPeriod);
-        }
-        if (maxPeriod != null && !(maxPeriod > 0 && Double.isFinite(maxPeriod))) {
-            throw new BadInputException("option --max-period: expected a positive number of days, got " + maxPeriod);
-        }
+        OptionChecks.periodDays("--min-period", minPeriod);
+        OptionChecks.periodDays("--max-period", maxPeriod);
         if (minPeriod != null && maxPeriod != null && !(maxPeriod > minPeriod)) {
             throw new BadInputException("options --min-period " + minPeriod + " and --max-period " + maxPeriod
                     + ": the maximum must exceed the minimum");
         }
-        if (!Files.isRegularFile(file)) {
-            throw new BadInputException(file + ": no such file");
-        }
+        OptionChecks.readableFile(file);
         OutputTargets.checkDirectory(out, java.util.List.of("period.json", "periodogram.png"), java.util.List.of(file));
         LightCurve lc = photometry.read(file, spec.commandLine().getOut());
         PeriodSearchSettings settings = PeriodSearchSettings.defaults().withMinPeriodDays(minPeriod)
