@@ -1,7 +1,6 @@
 package org.twinlight.photometry;
 
 import java.nio.file.Path;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -40,14 +39,17 @@ final class ValueCheck {
         String how = "; give --values magnitude if they are magnitudes, or --values flux to read them as flux anyway";
         for (LightCurve lc : curves.values()) {
             double[] f = lc.fluxes();
-            Arrays.sort(f);
-            double lo = f[0];
-            double hi = f[f.length - 1];
-            double median = f[f.length / 2];
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = Double.NEGATIVE_INFINITY;
             int notPositive = 0;
-            while (notPositive < f.length && f[notPositive] <= 0) {
-                notPositive++;
+            for (double v : f) {
+                lo = Math.min(lo, v);
+                hi = Math.max(hi, v);
+                if (v <= 0) {
+                    notPositive++;
+                }
             }
+            double median = RobustStatistics.medianBySelection(f, f.length);
             String band = lc.band() == null || lc.band().isEmpty() ? "" : " (band " + lc.band() + ")";
             if (median <= 0) {
                 throw BadInputException.at(file, null, column, String.format(Locale.ROOT, "the values read as flux"
