@@ -51,4 +51,30 @@ public final class Messages {
         }
         return sb.toString();
     }
+
+    /**
+     * {@code value ± uncertainty} with the uncertainty to two significant digits and the value to
+     * the same decimal place (at least {@code minDecimals}); an uncertainty that is not a positive
+     * number is written as "n/a" and the value to {@code minDecimals} places.
+     */
+    public static String valueWithUncertainty(double value, double uncertainty, int minDecimals) {
+        if (!Double.isFinite(value)) {
+            return "n/a";
+        }
+        if (!(uncertainty > 0) || !Double.isFinite(uncertainty)) {
+            return String.format(Locale.ROOT, "%." + minDecimals + "f ± n/a", value);
+        }
+        int decimals = Math.max(minDecimals, Math.min(15, 1 - (int) Math.floor(Math.log10(uncertainty))));
+        return String.format(Locale.ROOT, "%." + decimals + "f ± %." + decimals + "f", value, uncertainty);
+    }
+
+    /** {@code v} with {@code decimals} places, or "n/a" when it is NaN or infinite. */
+    public static String fixed(double v, int decimals) {
+        return Double.isFinite(v) ? String.format(Locale.ROOT, "%." + decimals + "f", v) : "n/a";
+    }
+
+    /** "1 point", "2 points": a count with its noun in the right number. */
+    public static String count(long n, String singular, String plural) {
+        return n + " " + (n == 1 ? singular : plural);
+    }
 }

@@ -83,8 +83,8 @@ public final class PeriodCommand implements Callable<Integer> {
         w.printf(Locale.ROOT, "%s: %d points over %.3f d, time scale %s; %d trial periods from %.4g to %.4g d%n",
                 lc.source(), s.points(), s.baselineDays(), lc.timeScale().label(), s.frequencies(),
                 s.minPeriodDays(), s.maxPeriodDays());
-        w.printf(Locale.ROOT, "period  %.8f ± %.8f d  (%s)%n", r.periodDays(), r.periodUncertaintyDays(),
-                r.uncertaintyMethod());
+        w.printf(Locale.ROOT, "period  %s d  (%s)%n", Messages.valueWithUncertainty(r.periodDays(),
+                r.periodUncertaintyDays(), 8), r.uncertaintyMethod());
         w.printf(Locale.ROOT, "epoch   %.6f ± %.6f (time scale %s), primary depth %.5f, S/N %.1f%n", r.epochDays(),
                 r.epochUncertaintyDays(), lc.timeScale().label(), r.primary().depth(), r.primary().signalToNoise());
         w.println("signal  " + r.significanceNote());
@@ -101,8 +101,8 @@ public final class PeriodCommand implements Callable<Integer> {
         w.println("runners-up:");
         for (PeriodCandidate c : r.candidates()) {
             if (!c.role().equals("best")) {
-                w.printf(Locale.ROOT, "  %14.8f d  SR %.5g  SDE %5.1f  Θ %.4f  %s%n", c.periodDays(), c.blsPower(),
-                        c.sde(), c.pdmTheta(), c.role());
+                w.printf(Locale.ROOT, "  %14.8f d  SR %.5g  SDE %5s  Θ %.4f  %s%n", c.periodDays(), c.blsPower(),
+                        Messages.fixed(c.sde(), 1), c.pdmTheta(), c.role());
             }
         }
         w.println("wrote " + json + " and " + png);

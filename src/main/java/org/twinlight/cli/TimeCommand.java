@@ -63,6 +63,9 @@ public final class TimeCommand implements Callable<Integer> {
             description = "Column holding the times, by header name or 1-based number (default: the column the header names as the time, e.g. time, hjd, bjd_tdb; else the first numeric column).")
     String column;
 
+    /** Largest |time| accepted, days: JD 10⁷ is in the year 22,666, far past any time scale's tables. */
+    static final double LARGEST_TIME_DAYS = 1e7;
+
     @Spec
     CommandSpec spec;
 
@@ -85,6 +88,11 @@ public final class TimeCommand implements Callable<Integer> {
         csv.append("; input ").append(file.getFileName()).append(", ").append(times.name()).append('\n');
         csv.append("time_in,time_out\n");
         for (int i = 0; i < times.size(); i++) {
+            if (!(Math.abs(times.value(i)) <= LARGEST_TIME_DAYS)) {
+                throw BadInputException.at(file, "line " + times.lineNumber(i), times.name(), Messages.shorten(
+                        times.text(i)) + " is not a (modified) Julian date; expected a number of days within ±"
+                        + Messages.number(LARGEST_TIME_DAYS));
+            }
             double converted;
             try {
                 converted = TimeConverter.convert(times.value(i), fromScale, toScale, direction);

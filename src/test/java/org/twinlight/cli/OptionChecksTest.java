@@ -120,4 +120,14 @@ class OptionChecksTest extends CommandTestSupport {
         assertThat(Messages.number(0.8731542)).isEqualTo("0.8731542");
         assertThat(Messages.number(2460571.41238)).isEqualTo("2460571.41238");
     }
+
+    @Test
+    void anUncertaintyIsShownToTwoSignificantDigits() {
+        // regression: "± 0.00000000 d" for an uncertainty of 2.9e-9 d
+        assertThat(Messages.valueWithUncertainty(0.873154203, 2.9e-9, 8)).isEqualTo("0.8731542030 ± 0.0000000029");
+        assertThat(Messages.valueWithUncertainty(2.61, 0.0004, 8)).isEqualTo("2.61000000 ± 0.00040000");
+        assertThat(Messages.valueWithUncertainty(2.61, Double.NaN, 6)).isEqualTo("2.610000 ± n/a");
+        assertThat(Messages.fixed(Double.NaN, 1)).isEqualTo("n/a");
+        assertThat(Messages.count(1, "point", "points")).isEqualTo("1 point");
+    }
 }

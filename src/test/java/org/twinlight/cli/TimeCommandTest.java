@@ -178,5 +178,9 @@ class TimeCommandTest extends CommandTestSupport {
         Path in = file("neg.txt", "2460000.5\n-5\n");
         assertThat(run(in.toString(), "--from", "JD_UTC", "--to", "JD_TT")).isEqualTo(2);
         assertThat(err.toString()).contains("neg.txt", "line 2", "-5").doesNotContain("internal error");
+        Path huge = file("huge.txt", "2460000.5\n1e300\n");
+        assertThat(run(huge.toString(), "--from", "JD_TT", "--to", "JD_TDB")).isEqualTo(2);
+        assertThat(err.toString()).contains("line 2", "1e300 is not a (modified) Julian date");
+        assertThat(out.toString()).doesNotContain("0000000000000000000000");
     }
 }

@@ -97,7 +97,7 @@ public final class PeriodSearch {
     public static PeriodSearchResult search(LightCurve lc, PeriodSearchSettings settings) {
         int n = lc.size();
         if (n < MIN_POINTS) {
-            throw new BadInputException(lc.source() + ": only " + n + " usable points; a period search needs at least "
+            throw new BadInputException(lc.source() + ": only " + n + (n == 1 ? " usable point" : " usable points") + "; a period search needs at least "
                     + MIN_POINTS);
         }
         Prepared data = prepare(lc);
