@@ -460,9 +460,21 @@ final class TextTableReader {
         return t.equals("nan") || t.equals("+nan") || t.equals("-nan");
     }
 
+    /**
+     * Longest field taken for a number: a double has 17 significant digits, so a field of more
+     * than 64 characters is not one (and is not parsed, so a field of megabytes costs nothing).
+     */
+    private static final int LONGEST_NUMBER = 64;
+    /** A Fortran exponent {@code 1.5d-03}; written without nested repetition so it runs in linear time. */
+    private static final java.util.regex.Pattern FORTRAN_EXPONENT =
+            java.util.regex.Pattern.compile("[+-]?(?:\\d+(?:\\.\\d*)?|\\.\\d+)d[+-]?\\d+");
+
     /** The number {@code s} spells, or NaN when it spells none (or spells NaN). */
     static double number(String s, boolean decimalComma) {
         String t = s.trim();
+        if (t.length() > LONGEST_NUMBER) {
+            return Double.NaN;
+        }
         try {
             return Double.parseDouble(t);
         } catch (NumberFormatException e) {
@@ -483,7 +495,7 @@ final class TextTableReader {
         if (decimalComma && u.indexOf(',') >= 0 && u.indexOf('.') < 0 && u.indexOf(',') == u.lastIndexOf(',')) {
             u = u.replace(',', '.');
         }
-        if (u.matches("[+-]?(\\d+\\.?\\d*|\\.\\d+)d[+-]?\\d+")) {
+        if (FORTRAN_EXPONENT.matcher(u).matches()) {
             u = u.replace('d', 'e');
         }
         if (u.equals(lower)) {
