@@ -224,13 +224,17 @@ final class TextTableReader {
         List<Integer> bad = new ArrayList<>();
         for (int k = layout.firstData(); k < p.data().size(); k++) {
             int i = p.data().get(k);
-            columnValue(out, bad, i + 1, layout.fields(p.lines().get(i)), index, layout.decimalComma());
+            List<String> f = layout.fields(p.lines().get(i));
+            checkFieldCount(file, layout, i + 1, f);
+            columnValue(out, bad, i + 1, f, index, layout.decimalComma());
         }
         String line;
         while ((line = src.next()) != null) {
             String t = stripComment(line);
             if (!t.isBlank()) {
-                columnValue(out, bad, src.lineNumber(), split(t, layout.delimiter()), index, layout.decimalComma());
+                List<String> f = split(t, layout.delimiter());
+                checkFieldCount(file, layout, src.lineNumber(), f);
+                columnValue(out, bad, src.lineNumber(), f, index, layout.decimalComma());
             }
         }
         if (!bad.isEmpty()) {
@@ -292,12 +296,7 @@ final class TextTableReader {
     private static void readRow(Path file, Layout layout, RowCollector rows, int lineNumber, List<String> f, int need,
             ColumnChoice c) {
         boolean decimalComma = layout.decimalComma();
-        if (layout.header() != null && filled(f) > layout.header().size()) {
-            throw BadInputException.at(file, "line " + lineNumber, null, filled(f) + " fields where the "
-                    + layout.where() + " names " + layout.header().size() + " columns"
-                    + (layout.delimiter() == ',' ? "; if the numbers are written with a decimal comma, the comma "
-                            + "cannot also separate the fields: use semicolons or tabs between them" : ""));
-        }
+        checkFieldCount(file, layout, lineNumber, f);
         String band = null;
         if (c.band() >= 0) {
             band = c.band() < f.size() ? f.get(c.band()) : "";
@@ -329,6 +328,16 @@ final class TextTableReader {
             }
         }
         rows.add(lineNumber, band, v[0], v[1], v[2], v[3]);
+    }
+
+    /** Refuses a row with more fields than the header names (a decimal comma in comma-separated fields). */
+    private static void checkFieldCount(Path file, Layout layout, int lineNumber, List<String> f) {
+        if (layout.header() != null && filled(f) > layout.header().size()) {
+            throw BadInputException.at(file, "line " + lineNumber, null, filled(f) + " fields where the "
+                    + layout.where() + " names " + layout.header().size() + " columns"
+                    + (layout.delimiter() == ',' ? "; if the numbers are written with a decimal comma, the comma "
+                            + "cannot also separate the fields: use semicolons or tabs between them" : ""));
+        }
     }
 
     /** Number of fields up to the last non-empty one (a trailing delimiter adds no field). */
