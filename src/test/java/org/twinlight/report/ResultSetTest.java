@@ -185,4 +185,13 @@ class ResultSetTest {
         assertThatThrownBy(() -> ResultSet.open(file.resolve("sub"), "demo")).isInstanceOf(WorkFailedException.class)
                 .hasMessageContaining("cannot create the output directory").hasMessageNotContaining("Exception");
     }
+
+    @Test
+    void writeFailuresSayWhyInWords() {
+        assertThat(AtomicFiles.reason(new java.nio.file.AccessDeniedException("/data/out/fit.json")))
+                .isEqualTo("permission denied (/data/out/fit.json)");
+        assertThat(AtomicFiles.reason(new java.nio.file.FileSystemException("/data/out", null,
+                "No space left on device"))).isEqualTo("No space left on device (/data/out)");
+        assertThat(AtomicFiles.reason(new IOException())).isEqualTo("an input/output error");
+    }
 }
