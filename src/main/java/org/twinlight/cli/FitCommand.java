@@ -20,6 +20,7 @@ import org.twinlight.report.FitFiles;
 import org.twinlight.report.ModelFileJson;
 import org.twinlight.report.FitPlot;
 import org.twinlight.report.InputDigest;
+import org.twinlight.report.ResultSet;
 import org.twinlight.time.TimeScale;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -173,15 +174,18 @@ public final class FitCommand implements Callable<Integer> {
         for (FitData d : data) {
             d.lightCurve().notes().forEach(n -> notes.add(d.lightCurve().source() + ": " + n));
         }
-        FitFiles.writeJson(out.resolve("fit.json"), doc);
-        FitFiles.writeResiduals(out.resolve("residuals.csv"), r, scale);
-        FitFiles.writeJson(out.resolve("model.json"), ModelFileJson.toJson(r.model()));
         List<String> bandList = data.stream().map(FitData::band).distinct().toList();
-        String title = "Fit of " + files.get(0).getFileName();
-        FitPlot.write(r, bandList.get(0), out.resolve("fit.png"), title, scale.label());
-        for (int b = 1; b < bandList.size(); b++) {
-            FitPlot.write(r, bandList.get(b), out.resolve("fit-" + safe(bandList.get(b)) + ".png"), title,
-                    scale.label());
+        try (ResultSet set = ResultSet.open(out, "fit")) {
+            FitFiles.writeJson(set.file("fit.json"), doc);
+            FitFiles.writeResiduals(set.file("residuals.csv"), r, scale);
+            FitFiles.writeJson(set.file("model.json"), ModelFileJson.toJson(r.model()));
+            String title = "Fit of " + files.get(0).getFileName();
+            FitPlot.write(r, bandList.get(0), set.file("fit.png"), title, scale.label());
+            for (int b = 1; b < bandList.size(); b++) {
+                FitPlot.write(r, bandList.get(b), set.file("fit-" + safe(bandList.get(b)) + ".png"), title,
+                        scale.label());
+            }
+            set.commit();
         }
         console().print(FitFiles.summary(r, scale));
         console().println("caution: " + FitFiles.CAUTION);

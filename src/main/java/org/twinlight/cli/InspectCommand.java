@@ -35,6 +35,9 @@ import picocli.CommandLine.Spec;
         })
 public final class InspectCommand implements Callable<Integer> {
 
+    /** What the scatter row says when there are too few points to measure it. */
+    private static final String NO_SCATTER = "not measured (too few points in a segment)";
+
     /** Segments listed one by one in the text output; the JSON lists all. */
     private static final int SEGMENTS_LISTED = 20;
 
@@ -62,16 +65,33 @@ public final class InspectCommand implements Callable<Integer> {
         }
         Map<String, LightCurve> bands = photometry.readBands(file, spec.commandLine().getOut());
         List<LightCurveSummary> summaries = new ArrayList<>();
+        List<Double> magnitudeErrors = new ArrayList<>();
         for (LightCurve lc : bands.values()) {
             summaries.add(LightCurveSummary.of(lc, segmentGapDays));
+            magnitudeErrors.add(medianMagnitudeError(lc));
         }
         PrintWriter out = spec.commandLine().getOut();
-        out.print(json ? json(summaries) : text(summaries));
+        out.print(json ? json(summaries, magnitudeErrors) : text(summaries, magnitudeErrors));
         out.flush();
         return 0;
     }
 
-    private String text(List<LightCurveSummary> summaries) {
+    /**
+     * Median of the points' magnitude errors σ_m = σ_F / (0.4 ln 10 · F), the errors as the file
+     * gave them; NaN without errors or for flux input.
+     */
+    private static double medianMagnitudeError(LightCurve lc) {
+        if (lc.originalKind() != ValueKind.MAGNITUDE || !lc.hasErrors()) {
+            return Double.NaN;
+        }
+        double[] e = new double[lc.size()];
+        for (int i = 0; i < e.length; i++) {
+            e[i] = Magnitudes.toMagnitudeError(lc.flux(i), lc.fluxError(i));
+        }
+        return org.twinlight.photometry.RobustStatistics.medianBySelection(e, e.length);
+    }
+
+    private String text(List<LightCurveSummary> summaries, List<Double> magnitudeErrors) {
         StringBuilder sb = new StringBuilder();
         sb.append(row("File", file.toString()));
         if (summaries.size() > 1) {
@@ -97,21 +117,31 @@ public final class InspectCommand implements Callable<Integer> {
                     + days(s.segmentGapDays()) + ")"));
             for (int k = 0; k < Math.min(s.segments().size(), SEGMENTS_LISTED); k++) {
                 LightCurveSummary.Segment g = s.segments().get(k);
-                sb.append(row("", fmt("%3d  %.6f to %.6f  %s, %d points", k + 1, g.startDays(), g.endDays(),
-                        days(g.spanDays()), g.points())));
+                sb.append(row("", fmt("%3d  %.6f to %.6f  %s, %s", k + 1, g.startDays(), g.endDays(),
+                        days(g.spanDays()), Messages.count(g.points(), "point", "points"))));
             }
             if (s.segments().size() > SEGMENTS_LISTED) {
                 sb.append(row("", "... and " + (s.segments().size() - SEGMENTS_LISTED) + " more (see --json)"));
             }
-            String magnitudes = s.valueKind() == ValueKind.MAGNITUDE && s.minFlux() > 0
-                    ? fmt(" (magnitudes %.4f to %.4f)", Magnitudes.fromRelativeFlux(s.maxFlux()),
-                            Magnitudes.fromRelativeFlux(s.minFlux())) : "";
-            sb.append(row("Flux", fmt("min %.6g, median %.6g, max %.6g", s.minFlux(), s.medianFlux(), s.maxFlux())
-                    + magnitudes));
-            sb.append(row("Errors", s.hasErrors() ? fmt("median %.3g", s.medianErrorFlux())
-                    + relative(s.medianErrorFlux(), s.medianFlux()) : "none in the file"));
-            sb.append(row("Scatter", fmt("%.3g", s.scatterFlux()) + relative(s.scatterFlux(), s.medianFlux())
-                    + ", robust point-to-point noise"));
+            if (s.valueKind() == ValueKind.MAGNITUDE && s.minFlux() > 0) {
+                // in the unit the file gave: magnitudes (brightest = smallest)
+                double medianMag = Magnitudes.fromRelativeFlux(s.medianFlux());
+                sb.append(row("Magnitudes", fmt("brightest %.4f, median %.4f, faintest %.4f (depth %.4f mag)",
+                        Magnitudes.fromRelativeFlux(s.maxFlux()), medianMag, Magnitudes.fromRelativeFlux(s.minFlux()),
+                        Magnitudes.fromRelativeFlux(s.minFlux()) - medianMag)));
+                double magErr = magnitudeErrors.get(summaries.indexOf(s));
+                sb.append(row("Errors", Double.isFinite(magErr) ? fmt("median %.4f mag", magErr) : "none in the file"));
+                sb.append(row("Scatter", Double.isFinite(s.scatterFlux()) && s.medianFlux() > 0
+                        ? fmt("%.4f mag", Magnitudes.toMagnitudeError(s.medianFlux(), s.scatterFlux()))
+                                + ", robust point-to-point noise" : NO_SCATTER));
+            } else {
+                sb.append(row("Flux", fmt("min %.6g, median %.6g, max %.6g", s.minFlux(), s.medianFlux(),
+                        s.maxFlux())));
+                sb.append(row("Errors", s.hasErrors() ? fmt("median %.3g", s.medianErrorFlux())
+                        + relative(s.medianErrorFlux(), s.medianFlux()) : "none in the file"));
+                sb.append(row("Scatter", Double.isFinite(s.scatterFlux()) ? fmt("%.3g", s.scatterFlux())
+                        + relative(s.scatterFlux(), s.medianFlux()) + ", robust point-to-point noise" : NO_SCATTER));
+            }
             sb.append(row("Outliers", s.outlierCount() + " more than " + fmt("%.0f", LightCurveSummary.OUTLIER_SIGMAS)
                     + " sigma from the running median and from lines through the neighbours on either side"
                     + " (counted, not removed)"));
@@ -158,7 +188,7 @@ public final class InspectCommand implements Callable<Integer> {
         return fmt("%.4f d", d);
     }
 
-    private String json(List<LightCurveSummary> summaries) {
+    private String json(List<LightCurveSummary> summaries, List<Double> magnitudeErrors) {
         Map<String, Object> root = new LinkedHashMap<>();
         root.put("file", file.toString());
         List<Map<String, Object>> list = new ArrayList<>();
@@ -196,6 +226,15 @@ public final class InspectCommand implements Callable<Integer> {
             m.put("scatter", finite(s.scatterFlux()));
             m.put("outlierSigmas", LightCurveSummary.OUTLIER_SIGMAS);
             m.put("outliers", s.outlierCount());
+            if (s.valueKind() == ValueKind.MAGNITUDE && s.minFlux() > 0) {
+                Map<String, Object> mag = new LinkedHashMap<>();
+                mag.put("brightest", finite(Magnitudes.fromRelativeFlux(s.maxFlux())));
+                mag.put("median", finite(Magnitudes.fromRelativeFlux(s.medianFlux())));
+                mag.put("faintest", finite(Magnitudes.fromRelativeFlux(s.minFlux())));
+                mag.put("medianError", finite(magnitudeErrors.get(summaries.indexOf(s))));
+                mag.put("scatter", finite(Magnitudes.toMagnitudeError(s.medianFlux(), s.scatterFlux())));
+                m.put("magnitudes", mag);
+            }
             list.add(m);
         }
         root.put("bands", list);

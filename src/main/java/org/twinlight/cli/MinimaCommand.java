@@ -17,6 +17,7 @@ import org.twinlight.report.InputDigest;
 import org.twinlight.report.MinimaCsv;
 import org.twinlight.report.MinimaSubmissionTable;
 import org.twinlight.report.OcPlot;
+import org.twinlight.report.ResultSet;
 import org.twinlight.time.SkyDirection;
 import org.twinlight.time.TimeConverter;
 import org.twinlight.time.TimeScale;
@@ -139,6 +140,7 @@ public final class MinimaCommand implements Callable<Integer> {
         if (!(periodDays > 0) || !Double.isFinite(periodDays)) {
             throw new BadInputException("option --period: " + periodDays + " d is not allowed; expected a period > 0 days");
         }
+        OptionChecks.periodDays("--period", periodDays);
         if (!Double.isFinite(epochDays)) {
             throw new BadInputException("option --epoch: " + epochDays + " is not a finite time in days");
         }
@@ -225,13 +227,17 @@ public final class MinimaCommand implements Callable<Integer> {
 
         String version = VersionInfo.version();
         String source = file.getFileName().toString();
-        MinimaCsv.write(out.resolve("minima.csv"), search.minima(), scale, source, given);
-        EphemerisJson.write(out.resolve("ephemeris.json"), new EphemerisJson.Content(given, oc, search, chosen,
-                secondaryPhase, source, InputDigest.sha256(file), version));
-        OcPlot.write(out.resolve("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
-                reference.epochDays(), reference.periodDays()), scale, chosen.label());
-        MinimaSubmissionTable.write(out.resolve("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,
-                scale, convert ? dataScale : null, source, reference, object, direction, observer, bandName, version));
+        try (ResultSet set = ResultSet.open(out, "minima")) {
+            MinimaCsv.write(set.file("minima.csv"), search.minima(), scale, source, given);
+            EphemerisJson.write(set.file("ephemeris.json"), new EphemerisJson.Content(given, oc, search, chosen,
+                    secondaryPhase, source, InputDigest.sha256(file), version), lc.notes());
+            OcPlot.write(set.file("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
+                    reference.epochDays(), reference.periodDays()), scale, chosen.label());
+            MinimaSubmissionTable.write(set.file("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,
+                    scale, convert ? dataScale : null, source, reference, object, direction, observer, bandName,
+                    version));
+            set.commit();
+        }
 
         printSummary(o, lc, scale, search, chosen, oc);
         o.flush();

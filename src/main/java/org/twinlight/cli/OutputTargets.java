@@ -19,6 +19,7 @@ final class OutputTargets {
      * {@code outputNames} inside it is one of the {@code inputs}.
      */
     static void checkDirectory(Path outDir, List<String> outputNames, List<Path> inputs) {
+        OptionChecks.notEmpty("--out", outDir);
         if (Files.exists(outDir) && !Files.isDirectory(outDir)) {
             throw new BadInputException("option --out: " + outDir + " is a file; expected a directory for the results"
                     + " (it is created if missing)");
@@ -30,6 +31,7 @@ final class OutputTargets {
 
     /** Refuses an output file that is one of the inputs. */
     static void checkFile(Path target, List<Path> inputs) {
+        OptionChecks.notEmpty("--out", target);
         if (Files.isDirectory(target)) {
             throw new BadInputException("option --out: " + target + " is a directory; expected a file name");
         }

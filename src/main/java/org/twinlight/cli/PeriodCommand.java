@@ -1,7 +1,6 @@
 package org.twinlight.cli;
 
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -9,6 +8,7 @@ import org.twinlight.BadInputException;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.report.PeriodResultJson;
 import org.twinlight.report.PeriodogramPlot;
+import org.twinlight.report.ResultSet;
 import org.twinlight.timing.period.PeriodDecision;
 import org.twinlight.timing.period.PeriodSearch;
 import org.twinlight.timing.period.PeriodSearchResult;
@@ -58,30 +58,25 @@ public final class PeriodCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        if (minPeriod != null && !(minPeriod > 0 && Double.isFinite(minPeriod))) {
-            throw new BadInputException("option --min-period: expected a positive number of days, got " + minPeriod);
-        }
-        if (maxPeriod != null && !(maxPeriod > 0 && Double.isFinite(maxPeriod))) {
-            throw new BadInputException("option --max-period: expected a positive number of days, got " + maxPeriod);
-        }
+        OptionChecks.periodDays("--min-period", minPeriod);
+        OptionChecks.periodDays("--max-period", maxPeriod);
         if (minPeriod != null && maxPeriod != null && !(maxPeriod > minPeriod)) {
             throw new BadInputException("options --min-period " + minPeriod + " and --max-period " + maxPeriod
                     + ": the maximum must exceed the minimum");
         }
-        if (!Files.isRegularFile(file)) {
-            throw new BadInputException(file + ": no such file");
-        }
+        OptionChecks.readableFile(file);
         OutputTargets.checkDirectory(out, java.util.List.of("period.json", "periodogram.png"), java.util.List.of(file));
         LightCurve lc = photometry.read(file, spec.commandLine().getOut());
         PeriodSearchSettings settings = PeriodSearchSettings.defaults().withMinPeriodDays(minPeriod)
                 .withMaxPeriodDays(maxPeriod).withParallel(!singleThread);
         PeriodSearchResult r = PeriodSearch.search(lc, settings);
-        Path json = out.resolve("period.json");
-        Path png = out.resolve("periodogram.png");
-        PeriodResultJson.write(json, r, lc.timeScale().label(), file.getFileName().toString(), org.twinlight.report.InputDigest.sha256(file),
-                lc.rejectedCount(), VersionInfo.version());
-        PeriodogramPlot.write(png, r, lc);
-        printSummary(spec.commandLine().getOut(), r, lc, json, png);
+        try (ResultSet set = ResultSet.open(out, "period")) {
+            PeriodResultJson.write(set.file("period.json"), r, lc.timeScale().label(), file.getFileName().toString(),
+                    org.twinlight.report.InputDigest.sha256(file), lc.rejectedCount(), VersionInfo.version(), lc.notes());
+            PeriodogramPlot.write(set.file("periodogram.png"), r, lc);
+            set.commit();
+        }
+        printSummary(spec.commandLine().getOut(), r, lc, out.resolve("period.json"), out.resolve("periodogram.png"));
         return 0;
     }
 
@@ -90,8 +85,8 @@ public final class PeriodCommand implements Callable<Integer> {
         w.printf(Locale.ROOT, "%s: %d points over %.3f d, time scale %s; %d trial periods from %.4g to %.4g d%n",
                 lc.source(), s.points(), s.baselineDays(), lc.timeScale().label(), s.frequencies(),
                 s.minPeriodDays(), s.maxPeriodDays());
-        w.printf(Locale.ROOT, "period  %.8f ± %.8f d  (%s)%n", r.periodDays(), r.periodUncertaintyDays(),
-                r.uncertaintyMethod());
+        w.printf(Locale.ROOT, "period  %s d  (%s)%n", Messages.valueWithUncertainty(r.periodDays(),
+                r.periodUncertaintyDays(), 8), r.uncertaintyMethod());
         w.printf(Locale.ROOT, "epoch   %.6f ± %.6f (time scale %s), primary depth %.5f, S/N %.1f%n", r.epochDays(),
                 r.epochUncertaintyDays(), lc.timeScale().label(), r.primary().depth(), r.primary().signalToNoise());
         w.println("signal  " + r.significanceNote());

@@ -11,6 +11,8 @@ import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.ModelFile;
 import org.twinlight.eclipse.SyntheticLightCurve;
 import org.twinlight.photometry.LightCurve;
+import org.twinlight.photometry.LightCurveReader;
+import org.twinlight.photometry.TextColumn;
 import org.twinlight.report.LightCurveFiles;
 import org.twinlight.report.ModelFileJson;
 import org.twinlight.time.TimeScale;
@@ -87,8 +89,36 @@ public final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--out", required = true, paramLabel = "F.csv|F.fits", description = "Output file (.csv or .fits).")
     Path out;
 
+    /** Most points one run simulates (100 million doubles take 0.8 GB per column). */
+    static final int MAX_POINTS = 50_000_000;
+
     @Override
     public Integer call() {
+        OptionChecks.notEmpty("--out", out);
+        String outName = out.getFileName() == null ? "" : out.getFileName().toString().toLowerCase(Locale.ROOT);
+        boolean fits = outName.endsWith(".fits") || outName.endsWith(".fit") || outName.endsWith(".fts");
+        if (!fits && !outName.endsWith(".csv")) {
+            throw new BadInputException("option --out: '" + out + "' ends in neither .csv nor .fits; the name says "
+                    + "which is written (CSV: time,flux[,flux_err]; FITS: a binary table)");
+        }
+        OptionChecks.finite("--magnitudes", referenceMagnitude);
+        OptionChecks.finite("--noise-ppm", noisePpm);
+        if (fits) {
+            OptionChecks.fitsText("--object", objectName);
+        }
+        OptionChecks.plainText("--object", objectName);
+        if (sampling.regular != null) {
+            Regular r = sampling.regular;
+            OptionChecks.finite("--start", r.start);
+            OptionChecks.finite("--end", r.end);
+            OptionChecks.finite("--cadence", r.cadenceMinutes);
+            double points = (r.end - r.start) * 1440 / r.cadenceMinutes;
+            if (r.cadenceMinutes > 0 && points > MAX_POINTS) {
+                throw new BadInputException(String.format(Locale.ROOT, "options --start/--end/--cadence: %s points "
+                        + "asked for; at most %d are simulated in one run (a longer cadence or a shorter span)",
+                        Messages.number(Math.floor(points) + 1), MAX_POINTS));
+            }
+        }
         ModelFile mf = ModelFileJson.read(model);
         if (band != null && !mf.bands().containsKey(band)) {
             throw new BadInputException(model + ": option --band: the model has no band '" + band + "'"
@@ -104,8 +134,8 @@ public final class SimulateCommand implements Callable<Integer> {
         double[] times;
         if (sampling.times != null) {
             // only the times are needed: a file of one column is enough
-            times = TimeColumnFile.read(sampling.times, null).entries().stream()
-                    .mapToDouble(TimeColumnFile.Entry::value).sorted().toArray();
+            TextColumn column = LightCurveReader.readColumn(sampling.times, null);
+            times = java.util.stream.IntStream.range(0, column.size()).mapToDouble(column::value).sorted().toArray();
         } else {
             List<SyntheticLightCurve.Gap> gapList = new ArrayList<>();
             for (String g : gaps) {
@@ -129,10 +159,9 @@ public final class SimulateCommand implements Callable<Integer> {
         OutputTargets.checkFile(out, java.util.Arrays.asList(model, sampling.times));
         LightCurve lc = SyntheticLightCurve.observe(new BinaryModel(p), times, noisePpm, seed,
                 out.getFileName().toString(), band, scale);
-        String name = out.getFileName().toString().toLowerCase(Locale.ROOT);
         String note = "simulated by twinlight " + VersionInfo.version() + " from " + model.getFileName()
                 + (noisePpm > 0 ? ", noise " + noisePpm + " ppm, seed " + seed : ", noise-free");
-        if (name.endsWith(".fits") || name.endsWith(".fit") || name.endsWith(".fts")) {
+        if (fits) {
             if (referenceMagnitude != null) {
                 throw new BadInputException("option --magnitudes: FITS output holds flux; write CSV for magnitudes");
             }

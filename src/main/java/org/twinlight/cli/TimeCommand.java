@@ -6,6 +6,8 @@ import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.twinlight.BadInputException;
+import org.twinlight.photometry.LightCurveReader;
+import org.twinlight.photometry.TextColumn;
 import org.twinlight.report.AtomicFiles;
 import org.twinlight.time.SkyDirection;
 import org.twinlight.time.TimeConverter;
@@ -61,6 +63,9 @@ public final class TimeCommand implements Callable<Integer> {
             description = "Column holding the times, by header name or 1-based number (default: the column the header names as the time, e.g. time, hjd, bjd_tdb; else the first numeric column).")
     String column;
 
+    /** Largest |time| accepted, days: JD 10⁷ is in the year 22,666, far past any time scale's tables. */
+    static final double LARGEST_TIME_DAYS = 1e7;
+
     @Spec
     CommandSpec spec;
 
@@ -72,7 +77,7 @@ public final class TimeCommand implements Callable<Integer> {
         if (out != null) {
             OutputTargets.checkFile(out, java.util.List.of(file));
         }
-        TimeColumnFile.Column times = TimeColumnFile.read(file, column);
+        TextColumn times = LightCurveReader.readColumn(file, column);
 
         StringBuilder csv = new StringBuilder();
         csv.append("# time_in: ").append(fromScale.label()).append("; time_out: ").append(toScale.label());
@@ -82,14 +87,22 @@ public final class TimeCommand implements Callable<Integer> {
         }
         csv.append("; input ").append(file.getFileName()).append(", ").append(times.name()).append('\n');
         csv.append("time_in,time_out\n");
-        for (TimeColumnFile.Entry entry : times.entries()) {
+        for (int i = 0; i < times.size(); i++) {
+            if (!(Math.abs(times.value(i)) <= LARGEST_TIME_DAYS)) {
+                throw BadInputException.at(file, "line " + times.lineNumber(i), times.name(), Messages.shorten(
+                        times.text(i)) + " is not a (modified) Julian date; expected a number of days within ±"
+                        + Messages.number(LARGEST_TIME_DAYS));
+            }
             double converted;
             try {
-                converted = TimeConverter.convert(entry.value(), fromScale, toScale, direction);
+                converted = TimeConverter.convert(times.value(i), fromScale, toScale, direction);
             } catch (BadInputException e) {
-                throw BadInputException.at(file, "line " + entry.line(), times.name(), e.getMessage());
+                throw BadInputException.at(file, "line " + times.lineNumber(i), times.name(), e.getMessage());
+            } catch (IllegalArgumentException e) {
+                throw BadInputException.at(file, "line " + times.lineNumber(i), times.name(), "cannot convert "
+                        + times.text(i) + " from " + fromScale.label() + ": " + e.getMessage());
             }
-            csv.append(entry.text()).append(',').append(plain(converted)).append('\n');
+            csv.append(asWritten(times.text(i), times.value(i))).append(',').append(plain(converted)).append('\n');
         }
 
         if (out == null) {
@@ -99,7 +112,7 @@ public final class TimeCommand implements Callable<Integer> {
         } else {
             AtomicFiles.writeString(out, csv.toString());
             spec.commandLine().getOut().printf("%d times converted from %s to %s: %s%n",
-                    times.entries().size(), fromScale.label(), toScale.label(), out);
+                    times.size(), fromScale.label(), toScale.label(), out);
         }
         return 0;
     }
@@ -125,6 +138,17 @@ public final class TimeCommand implements Callable<Integer> {
         }
         return SkyPositionOptions.parse(ra, dec, "converting " + fromScale.label() + " to " + toScale.label());
     }
+
+    /**
+     * The input time as written when it is a plain decimal number (so its digits are kept), else
+     * the value read (a decimal comma, an exponent or a Fortran exponent would not read back from
+     * the CSV).
+     */
+    private static String asWritten(String text, double value) {
+        return PLAIN_DECIMAL.matcher(text).matches() ? text : plain(value);
+    }
+
+    private static final java.util.regex.Pattern PLAIN_DECIMAL = java.util.regex.Pattern.compile("[+-]?\\d+(\\.\\d*)?");
 
     /** Shortest text that reads back to the same double, never in exponent form. */
     private static String plain(double value) {

@@ -58,21 +58,43 @@ public final class TwinlightCommand implements Runnable {
                 ex.printStackTrace(err);
             }
             if (ex instanceof BadInputException) {
-                err.println("error: " + ex.getMessage());
+                err.println("error: " + Messages.shorten(ex.getMessage()));
                 return 2;
             }
-            if (ex instanceof WorkFailedException) {
-                err.println("failed: " + ex.getMessage());
+            if (ex instanceof WorkFailedException || ex instanceof java.io.UncheckedIOException) {
+                err.println("failed: " + Messages.shorten(ex.getMessage()));
                 return 1;
             }
-            if (ex instanceof java.io.UncheckedIOException) {
-                err.println("failed: " + ex.getMessage());
-                return 1;
-            }
-            err.println("internal error: " + ex + (wantTrace ? "" : " (run again with --debug for details)"));
+            err.println("internal error: " + Messages.shorten(String.valueOf(ex))
+                    + (wantTrace ? "" : " (run again with --debug for details)"));
             return 1;
         });
+        CommandLine.IParameterExceptionHandler usage = cl.getParameterExceptionHandler();
+        cl.setParameterExceptionHandler((ex, args) -> usage.handleParseException(
+                new CommandLine.ParameterException(ex.getCommandLine(), Messages.shorten(ex.getMessage()), ex), args));
         return cl;
+    }
+
+    /**
+     * Runs the command line; a shortage of memory ends the run with a message naming the heap option
+     * (exit 1) instead of the Java virtual machine's stack trace.
+     */
+    static int execute(CommandLine cl, String[] args) {
+        try {
+            return cl.execute(args);
+        } catch (OutOfMemoryError e) {
+            cl.getErr().println(outOfMemoryMessage(Runtime.getRuntime().maxMemory()));
+            cl.getErr().flush();
+            return 1;
+        }
+    }
+
+    /** What to do when the memory given to Java (at most {@code maxHeapBytes}) ran out. */
+    static String outOfMemoryMessage(long maxHeapBytes) {
+        long mb = maxHeapBytes / (1024 * 1024);
+        return "failed: out of memory: the input or the work needs more than the " + mb + " MB Java may use here. "
+                + "Give Java more memory with the heap option -Xmx, e.g. java -Xmx" + Math.max(1, 2 * mb / 1024 + 1)
+                + "g -jar twinlight.jar ..., or use a shorter light curve (fewer rows or a coarser cadence)";
     }
 
     public static void main(String[] args) {
@@ -80,6 +102,6 @@ public final class TwinlightCommand implements Runnable {
         if (java.util.Arrays.asList(args).contains("--debug")) {
             FITS_LOG.setLevel(java.util.logging.Level.ALL);
         }
-        System.exit(cl.execute(args));
+        System.exit(execute(cl, args));
     }
 }

@@ -57,7 +57,7 @@ public final class FitsTableReader {
             int index = chooseHdu(file, hdus, options.hdu());
             return readTable(file, index, (BinaryTableHDU) hdus.get(index), hdus.get(0).getHeader(), options);
         } catch (IOException e) {
-            throw BadInputException.at(file, null, null, "cannot read the FITS file (" + e.getMessage() + ")");
+            throw BadInputException.at(file, null, null, "cannot read the FITS file (" + reason(e) + ")");
         }
     }
 
@@ -66,11 +66,11 @@ public final class FitsTableReader {
             return fits.readHDU();
         } catch (IOException | RuntimeException e) {
             if (index == 0) {
-                throw BadInputException.at(file, "HDU 0", null, "not a readable FITS file, damaged or truncated (" + e.getMessage()
+                throw BadInputException.at(file, "HDU 0", null, "not a readable FITS file, damaged or truncated (" + reason(e)
                         + "); expected a FITS file with a binary table");
             }
             throw BadInputException.at(file, "HDU " + index, null, "the FITS file is damaged or truncated ("
-                    + e.getMessage() + ")");
+                    + reason(e) + ")");
         }
     }
 
@@ -121,7 +121,7 @@ public final class FitsTableReader {
         try {
             table = hdu.getData();
         } catch (RuntimeException e) {
-            throw BadInputException.at(file, where, null, "cannot read the table (" + e.getMessage() + ")");
+            throw BadInputException.at(file, where, null, "cannot read the table (" + reason(e) + ")");
         }
         int ncols = hdu.getNCols();
         List<String> names = new ArrayList<>(ncols);
@@ -162,7 +162,7 @@ public final class FitsTableReader {
             bands = c.band() >= 0 ? bandColumn(table, c.band(), nrows) : null;
         } catch (RuntimeException e) {
             throw BadInputException.at(file, where, null, "cannot read the table rows; the file may be truncated ("
-                    + e.getMessage() + ")");
+                    + reason(e) + ")");
         }
         double typicalTime = Double.NaN;
         for (int r = 0; r < nrows; r++) {
@@ -190,8 +190,10 @@ public final class FitsTableReader {
         String fixedBand = bandKeyword(hdu.getHeader(), primary);
         List<String> notes = time.declared()
                 ? LightCurveReader.overrideNotes(time.scale(), options.timeScale()) : List.of();
-        return LightCurveReader.withNotes(rows.build(file.getFileName().toString(), fixedBand, scale, toDays, offset),
-                notes);
+        Map<String, LightCurve> curves = rows.build(file.getFileName().toString(), fixedBand, scale, toDays, offset);
+        List<String> all = new ArrayList<>(notes);
+        all.addAll(ValueCheck.check(file, valueName, kind, options.valueKind() != null, curves));
+        return LightCurveReader.withNotes(curves, all);
     }
 
     /**
@@ -262,5 +264,23 @@ public final class FitsTableReader {
             }
         }
         return null;
+    }
+
+    /**
+     * What went wrong in the FITS library, in words: the end of the file reached early, or the
+     * library's message when it is one a person can read; never a Java class or method name.
+     */
+    static String reason(Throwable e) {
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof java.io.EOFException) {
+                return "the file ends before the data its header announces";
+            }
+        }
+        String m = e.getMessage();
+        if (m == null || m.isBlank() || m.contains("Cannot invoke") || m.contains("java.") || m.contains("nom.tam")
+                || m.contains("Exception") || m.contains("\"null\"")) {
+            return "the header or data cannot be decoded";
+        }
+        return m.length() > 200 ? m.substring(0, 200) + "…" : m;
     }
 }

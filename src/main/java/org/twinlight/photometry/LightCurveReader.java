@@ -54,20 +54,43 @@ public final class LightCurveReader {
         if (Files.isDirectory(file)) {
             throw BadInputException.at(file, null, null, "a directory; expected a photometry file");
         }
-        byte[] head = new byte[16];
-        int n;
-        try (InputStream in = Files.newInputStream(file)) {
-            n = in.readNBytes(head, 0, head.length);
-        } catch (NoSuchFileException e) {
-            throw BadInputException.at(file, null, null, "no such file");
-        } catch (IOException e) {
-            throw BadInputException.at(file, null, null, "cannot read the file (" + e.getMessage() + ")");
-        }
-        byte[] start = java.util.Arrays.copyOf(head, n);
-        if (FitsTableReader.looksLikeFits(start, file.getFileName().toString())) {
+        if (isFits(file)) {
             return FitsTableReader.read(file, o);
         }
         return TextTableReader.read(file, o);
+    }
+
+    /** Whether the file starts like a FITS file; a missing or unreadable file is bad input. */
+    private static boolean isFits(Path file) {
+        byte[] head;
+        try (InputStream in = Files.newInputStream(file)) {
+            head = in.readNBytes(16);
+        } catch (NoSuchFileException e) {
+            throw BadInputException.at(file, null, null, "no such file");
+        } catch (java.nio.file.AccessDeniedException e) {
+            throw BadInputException.at(file, null, null, "cannot read the file: permission denied");
+        } catch (IOException e) {
+            throw BadInputException.at(file, null, null, "cannot read the file (" + e.getMessage() + ")");
+        }
+        return FitsTableReader.looksLikeFits(head, file.getFileName().toString());
+    }
+
+    /**
+     * Reads one column of numbers from a delimited text file by the same rules as {@link #read}
+     * (delimiter, decimal comma, header, byte-order mark, encoding), for commands that need a
+     * column of times only.
+     *
+     * @param choice header name or 1-based number of the column; null for the column the header
+     *     names as the time, else the first column holding a number in the first data row
+     * @throws org.twinlight.BadInputException naming the file, the lines and the column when a row
+     *     holds no number there, or the column does not exist
+     */
+    public static TextColumn readColumn(Path file, String choice) {
+        if (!Files.isDirectory(file) && isFits(file)) {
+            throw BadInputException.at(file, null, null, "a FITS file; this command reads a column of times from "
+                    + "delimited text");
+        }
+        return TextTableReader.readColumn(file, choice);
     }
 
     /**

@@ -103,7 +103,7 @@ public record LightCurveSummary(String source, String band, TimeScale timeScale,
             steps[i - 1] = t[i] - t[i - 1];
             largest = i == 1 ? steps[0] : Math.max(largest, steps[i - 1]);
         }
-        double cadence = RunningMedianResiduals.median(steps.clone(), steps.length);
+        double cadence = RobustStatistics.medianBySelection(steps.clone(), steps.length);
         double gapThreshold = GAP_CADENCE_MULTIPLE * cadence;
         int gaps = 0;
         for (double s : steps) {
@@ -124,9 +124,9 @@ public record LightCurveSummary(String source, String band, TimeScale timeScale,
             min = Math.min(min, v);
             max = Math.max(max, v);
         }
-        double medianFlux = RunningMedianResiduals.median(f, n);
+        double medianFlux = RobustStatistics.medianBySelection(f, n);
         double medianError = lightCurve.hasErrors()
-                ? RunningMedianResiduals.median(lightCurve.fluxErrors(), n) : Double.NaN;
+                ? RobustStatistics.medianBySelection(lightCurve.fluxErrors(), n) : Double.NaN;
         RunningMedianResiduals residuals = new RunningMedianResiduals(lightCurve, segmentGapDays);
         return new LightCurveSummary(lightCurve.source(), lightCurve.band(), lightCurve.timeScale(),
                 lightCurve.originalKind(), n, lightCurve.rejectedRows(), t[0], t[n - 1], t[n - 1] - t[0], cadence,

@@ -28,6 +28,66 @@ public final class RobustStatistics {
         return n % 2 == 1 ? values[n / 2] : 0.5 * (values[n / 2 - 1] + values[n / 2]);
     }
 
+    /**
+     * Median of the first {@code n} values (none NaN) in time proportional to n, reordering them
+     * in place (Hoare's selection, "Find", Comm. ACM 4, 321, 1961): for long series where sorting
+     * would dominate. The same value as {@link #medianInPlace}; the order left behind is not sorted.
+     */
+    public static double medianBySelection(double[] values, int n) {
+        if (n == 0) {
+            return Double.NaN;
+        }
+        int k = n / 2;
+        double upper = select(values, n, k);
+        if (n % 2 == 1) {
+            return upper;
+        }
+        double lower = values[0];
+        for (int i = 1; i < k; i++) {
+            lower = Math.max(lower, values[i]);
+        }
+        return 0.5 * (lower + upper);
+    }
+
+    /** The k-th smallest (0-based) of the first n values; afterwards values[0..k) ≤ values[k] ≤ values(k..n). */
+    private static double select(double[] a, int n, int k) {
+        int lo = 0;
+        int hi = n - 1;
+        while (hi > lo) {
+            int mid = (lo + hi) >>> 1;
+            // median of three as the pivot, so sorted input stays linear
+            double x = a[lo];
+            double y = a[mid];
+            double z = a[hi];
+            double pivot = Math.max(Math.min(x, y), Math.min(Math.max(x, y), z));
+            int i = lo;
+            int j = hi;
+            while (i <= j) {
+                while (a[i] < pivot) {
+                    i++;
+                }
+                while (a[j] > pivot) {
+                    j--;
+                }
+                if (i <= j) {
+                    double t = a[i];
+                    a[i] = a[j];
+                    a[j] = t;
+                    i++;
+                    j--;
+                }
+            }
+            if (k <= j) {
+                hi = j;
+            } else if (k >= i) {
+                lo = i;
+            } else {
+                return a[k];
+            }
+        }
+        return a[k];
+    }
+
     /** 1.4826 × the median absolute deviation from the median: a σ that outliers and eclipses barely move. */
     public static double madSigma(double[] values) {
         double med = median(values);

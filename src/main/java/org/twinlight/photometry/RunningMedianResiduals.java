@@ -76,11 +76,11 @@ final class RunningMedianResiduals {
                 finite[c++] = r;
             }
         }
-        double centre = median(finite, used);
+        double centre = RobustStatistics.medianBySelection(finite, used);
         for (int i = 0; i < used; i++) {
             finite[i] = Math.abs(finite[i] - centre);
         }
-        sigma = used == 0 ? Double.NaN : MAD_TO_SIGMA * median(finite, used);
+        sigma = used == 0 ? Double.NaN : MAD_TO_SIGMA * RobustStatistics.medianBySelection(finite, used);
     }
 
     /** The robust point-to-point scatter σ, flux units (0 when more than half the residuals are 0). */

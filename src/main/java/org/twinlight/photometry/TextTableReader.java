@@ -1,15 +1,9 @@
 package org.twinlight.photometry;
 
 import java.io.IOException;
-import java.nio.ByteBuffer;
-import java.nio.charset.CharacterCodingException;
-import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -37,7 +31,9 @@ import org.twinlight.time.TimeScale;
  *       is not a comma.</li>
  * </ul>
  *
- * The file is read as UTF-8, or as ISO-8859-1 when it is not valid UTF-8. It is never changed.
+ * The file is read line by line ({@link TextLines}: UTF-8, ISO-8859-1 when it is not valid UTF-8,
+ * or UTF-16), so memory grows with the number of rows kept, not with the file. Values read as
+ * flux are checked by {@link ValueCheck}. The file is never changed.
  */
 public final class TextTableReader {
 
@@ -52,91 +48,227 @@ public final class TextTableReader {
             throw BadInputException.at(file, null, null, "option --hdu applies to FITS files; this file is read as "
                     + "delimited text (it does not start with 'SIMPLE  =')");
         }
-        List<String> lines = lines(file);
-        List<Integer> dataLines = new ArrayList<>();
-        for (int i = 0; i < lines.size(); i++) {
-            String t = stripComment(lines.get(i)).trim();
-            if (!t.isEmpty()) {
-                dataLines.add(i);
+        return TextLines.read(file, lines -> readTable(file, options, lines));
+    }
+
+    /**
+     * Reads one column of numbers, as the {@code time} command needs: chosen by {@code choice} (a
+     * header name or 1-based number), else the column the header names as the time, else the
+     * first column holding a number in the first data row. Every data row must hold a number
+     * there; the rows that do not are named in the error.
+     */
+    static TextColumn readColumn(Path file, String choice) {
+        return TextLines.read(file, lines -> column(file, choice, lines));
+    }
+
+    /** The first lines of a file, up to the first {@value #DELIMITER_SAMPLE_LINES} + 1 data lines. */
+    private record Prelude(List<String> lines, List<Integer> data, boolean complete) {
+    }
+
+    /** Delimiter, decimal mark and header of a table, found from its first lines. */
+    private record Layout(char delimiter, boolean decimalComma, List<String> header, String where, int firstData,
+            int width) {
+        List<String> fields(String line) {
+            return split(stripComment(line), delimiter);
+        }
+    }
+
+    private static Prelude prelude(TextLines src) throws IOException {
+        List<String> lines = new ArrayList<>();
+        List<Integer> data = new ArrayList<>();
+        while (data.size() <= DELIMITER_SAMPLE_LINES) {
+            String line = src.next();
+            if (line == null) {
+                return new Prelude(lines, data, true);
+            }
+            lines.add(line);
+            if (!stripComment(line).trim().isEmpty()) {
+                data.add(lines.size() - 1);
             }
         }
-        if (dataLines.isEmpty()) {
-            throw BadInputException.at(file, null, null, lines.stream().allMatch(String::isBlank)
-                    ? "the file is empty; expected rows of time, flux or magnitude and optional error"
-                    : "the file holds only comments and blank lines; expected rows of time, flux or magnitude "
-                            + "and optional error");
-        }
+        return new Prelude(lines, data, false);
+    }
+
+    private static Layout layout(Path file, Prelude p, ReadOptions options) {
+        List<String> lines = p.lines();
+        List<Integer> dataLines = p.data();
         char delimiter = detectDelimiter(lines, dataLines);
         boolean decimalComma = delimiter != ',';
-
         List<String> first = split(stripComment(lines.get(dataLines.get(0))), delimiter);
         List<String> second = dataLines.size() > 1 ? split(stripComment(lines.get(dataLines.get(1))), delimiter) : null;
         List<String> header = null;
-        int headerLine = -1;
+        int firstData = 0;
+        String where = null;
         if (isHeader(first, second, decimalComma)) {
             header = first;
-            headerLine = dataLines.get(0);
-            dataLines.remove(0);
-            if (dataLines.isEmpty()) {
+            int headerLine = dataLines.get(0);
+            firstData = 1;
+            where = "header line " + (headerLine + 1);
+            if (dataLines.size() == 1) {
                 throw BadInputException.at(file, "line " + (headerLine + 1), null, "a header row and no data rows "
                         + "after it; expected rows of time, flux or magnitude and optional error");
             }
         }
         int width = header != null ? header.size() : first.size();
-        ColumnChoice columns;
         if (header == null) {
             List<String> commented = commentHeader(lines, dataLines.get(0), delimiter, width, decimalComma, file,
                     options);
             if (commented != null) {
                 header = commented;
+                where = "comment header";
             }
         }
-        String where = header == null ? null : headerLine >= 0 ? "header line " + (headerLine + 1) : "comment header";
-        columns = ColumnChoice.choose(file, where, header, width, options, true);
+        if (header == null && delimiter == ',') {
+            refuseDecimalCommasInCommaFields(file, lines, dataLines);
+        }
+        return new Layout(delimiter, decimalComma, header, where, firstData, width);
+    }
+
+    /**
+     * A comma-separated file without a header whose numbers hold no decimal point and whose rows
+     * all have an even number of fields (at least four) is most likely written with a decimal
+     * comma ({@code 2460570,301,11,83}): the fields cannot be told apart, so it is refused.
+     */
+    private static void refuseDecimalCommasInCommaFields(Path file, List<String> lines, List<Integer> dataLines) {
+        for (int idx : dataLines) {
+            String t = stripComment(lines.get(idx));
+            int n = split(t, ',').size();
+            if (t.indexOf('.') >= 0 || n < 4 || n % 2 != 0) {
+                return;
+            }
+        }
+        int line = dataLines.get(0) + 1;
+        throw BadInputException.at(file, "line " + line, null, "the numbers hold no decimal point and every row has "
+                + "an even number of comma-separated fields: the file looks written with decimal commas, which "
+                + "cannot be told apart from the commas between the fields. Separate the fields with semicolons "
+                + "or tabs, or write decimal points");
+    }
+
+    private static Map<String, LightCurve> readTable(Path file, ReadOptions options, TextLines src)
+            throws IOException {
+        Prelude p = prelude(src);
+        List<String> lines = p.lines();
+        if (p.data().isEmpty()) {
+            throw BadInputException.at(file, null, null, lines.stream().allMatch(String::isBlank)
+                    ? "the file is empty; expected rows of time, flux or magnitude and optional error"
+                    : "the file holds only comments and blank lines; expected rows of time, flux or magnitude "
+                            + "and optional error");
+        }
+        Layout layout = layout(file, p, options);
+        List<String> header = layout.header();
+        ColumnChoice columns = ColumnChoice.choose(file, layout.where(), header, layout.width(), options, true);
 
         String timeName = ColumnChoice.label(header, columns.time());
         String valueName = ColumnChoice.label(header, columns.value());
         ValueKind kind = options.valueKind() != null ? options.valueKind()
                 : header != null && ColumnChoice.normalise(valueName).contains("mag") ? ValueKind.MAGNITUDE
                         : ValueKind.FLUX;
-        TimeScale declared = declaredTimeScale(file, lines, dataLines.get(0));
+        TimeScale declared = declaredTimeScale(file, lines, p.data().get(0));
         if (declared == null) {
             declared = header == null ? TimeScale.UNKNOWN : TimeScale.parse(timeName).orElse(TimeScale.UNKNOWN);
         }
         TimeScale scale = options.timeScale() != null ? options.timeScale() : declared;
-        List<String> notes = LightCurveReader.overrideNotes(declared, options.timeScale());
+        List<String> notes = new ArrayList<>(LightCurveReader.overrideNotes(declared, options.timeScale()));
+        if (!src.charset().equals(java.nio.charset.StandardCharsets.UTF_8)
+                && !src.charset().equals(java.nio.charset.StandardCharsets.ISO_8859_1)) {
+            notes.add("the file is UTF-16 text and was read as such");
+        }
         String bandName = ColumnChoice.label(header, columns.band());
         RowCollector rows = new RowCollector(file, RowPlace.TEXT_LINE, timeName, bandName, kind, columns.error() >= 0);
         int need = columns.widest();
-        for (int index : dataLines) {
-            List<String> f = split(stripComment(lines.get(index)), delimiter);
-            readRow(rows, index + 1, f, need, columns, decimalComma);
+        for (int k = layout.firstData(); k < p.data().size(); k++) {
+            int index = p.data().get(k);
+            readRow(file, layout, rows, index + 1, layout.fields(lines.get(index)), need, columns);
+        }
+        String line;
+        while ((line = src.next()) != null) {
+            String t = stripComment(line);
+            if (!t.isBlank()) {
+                readRow(file, layout, rows, src.lineNumber(), split(t, layout.delimiter()), need, columns);
+            }
         }
         double offset = options.timeOffsetDays() == null ? 0.0 : options.timeOffsetDays();
         Map<String, LightCurve> curves = rows.build(file.getFileName().toString(), null, scale,
                 DoubleUnaryOperator.identity(), offset);
-        if (options.valueKind() == null && kind == ValueKind.FLUX) {
-            notes = new ArrayList<>(notes);
-            notes.addAll(magnitudeLookalike(curves));
-        }
+        notes.addAll(ValueCheck.check(file, valueName, kind, options.valueKind() != null, curves));
         return LightCurveReader.withNotes(curves, notes);
     }
 
-    /**
-     * A remark when values read as flux look like magnitudes: all between 3 and 30 with a spread of
-     * under 2 (typical magnitudes of variable stars; common practice, no source).
-     */
-    private static List<String> magnitudeLookalike(Map<String, LightCurve> curves) {
-        for (LightCurve lc : curves.values()) {
-            double[] f = lc.fluxes();
-            double lo = Arrays.stream(f).min().orElse(0);
-            double hi = Arrays.stream(f).max().orElse(0);
-            if (lo >= 3 && hi <= 30 && hi - lo < 2) {
-                return List.of(String.format(Locale.ROOT, "the values (%.3f to %.3f) were read as flux but "
-                        + "look like magnitudes; if they are, give --values magnitude", lo, hi));
+    private static TextColumn column(Path file, String choice, TextLines src) throws IOException {
+        Prelude p = prelude(src);
+        if (p.data().isEmpty()) {
+            throw BadInputException.at(file, null, null, "no times found (only comments, blank lines or a header)");
+        }
+        Layout layout = layout(file, p, ReadOptions.defaults());
+        List<String> header = layout.header();
+        List<String> firstRow = layout.fields(p.lines().get(p.data().get(layout.firstData())));
+        int index = -1;
+        if (choice != null && !choice.isBlank()) {
+            index = ColumnChoice.resolve(file, layout.where(), header, layout.width(), choice, "--column");
+        } else if (header != null) {
+            index = ColumnChoice.timeColumn(header);
+        }
+        if (index < 0) {
+            for (int c = 0; c < firstRow.size() && index < 0; c++) {
+                if (!isNotANumber(firstRow.get(c), layout.decimalComma())) {
+                    index = c;
+                }
+            }
+            if (index < 0) {
+                throw BadInputException.at(file, "line " + (p.data().get(layout.firstData()) + 1), null,
+                        "no numeric column in the first data row; choose the time column with --column NAME|N");
             }
         }
-        return List.of();
+        String name = header != null && index < header.size() ? header.get(index) : "column " + (index + 1);
+        TextColumn.Builder out = new TextColumn.Builder(name);
+        List<Integer> bad = new ArrayList<>();
+        for (int k = layout.firstData(); k < p.data().size(); k++) {
+            int i = p.data().get(k);
+            List<String> f = layout.fields(p.lines().get(i));
+            checkFieldCount(file, layout, i + 1, f);
+            columnValue(out, bad, i + 1, f, index, layout.decimalComma());
+        }
+        String line;
+        while ((line = src.next()) != null) {
+            String t = stripComment(line);
+            if (!t.isBlank()) {
+                List<String> f = split(t, layout.delimiter());
+                checkFieldCount(file, layout, src.lineNumber(), f);
+                columnValue(out, bad, src.lineNumber(), f, index, layout.decimalComma());
+            }
+        }
+        if (!bad.isEmpty()) {
+            throw BadInputException.at(file, describeLines(bad, out.badCount()), name,
+                    "expected a time (a decimal number)");
+        }
+        return out.build();
+    }
+
+    private static void columnValue(TextColumn.Builder out, List<Integer> bad, int lineNumber, List<String> f,
+            int index, boolean decimalComma) {
+        String text = index < f.size() ? f.get(index) : "";
+        double v = number(text, decimalComma);
+        if (!Double.isFinite(v)) {
+            out.countBad();
+            if (bad.size() < LINES_LISTED) {
+                bad.add(lineNumber);
+            }
+            return;
+        }
+        out.add(lineNumber, text, v);
+    }
+
+    private static final int LINES_LISTED = 5;
+
+    private static String describeLines(List<Integer> lines, int total) {
+        StringBuilder sb = new StringBuilder(total == 1 ? "line " : "lines ");
+        for (int k = 0; k < lines.size(); k++) {
+            sb.append(k > 0 ? ", " : "").append(lines.get(k));
+        }
+        if (total > lines.size()) {
+            sb.append(" and ").append(total - lines.size()).append(" more");
+        }
+        return sb.toString();
     }
 
     private static final java.util.regex.Pattern TIME_SCALE_COMMENT =
@@ -161,8 +293,10 @@ public final class TextTableReader {
         return null;
     }
 
-    private static void readRow(RowCollector rows, int lineNumber, List<String> f, int need, ColumnChoice c,
-            boolean decimalComma) {
+    private static void readRow(Path file, Layout layout, RowCollector rows, int lineNumber, List<String> f, int need,
+            ColumnChoice c) {
+        boolean decimalComma = layout.decimalComma();
+        checkFieldCount(file, layout, lineNumber, f);
         String band = null;
         if (c.band() >= 0) {
             band = c.band() < f.size() ? f.get(c.band()) : "";
@@ -196,32 +330,37 @@ public final class TextTableReader {
         rows.add(lineNumber, band, v[0], v[1], v[2], v[3]);
     }
 
+    /**
+     * Every line of a small text file (a velocity table), read with the same encoding rules as the
+     * photometry ({@link TextLines}); photometry itself is read line by line, never whole.
+     */
     public static List<String> lines(Path file) {
-        byte[] bytes;
-        try {
-            bytes = Files.readAllBytes(file);
-        } catch (NoSuchFileException e) {
-            throw BadInputException.at(file, null, null, "no such file");
-        } catch (IOException e) {
-            throw BadInputException.at(file, null, null, "cannot read the file (" + e.getMessage() + ")");
-        }
-        for (int i = 0; i < Math.min(bytes.length, 4096); i++) {
-            if (bytes[i] == 0) {
-                throw BadInputException.at(file, null, null, "a binary file that is not FITS; expected delimited "
-                        + "text or a FITS binary table");
+        return TextLines.read(file, src -> {
+            List<String> all = new java.util.ArrayList<>();
+            for (String line = src.next(); line != null; line = src.next()) {
+                all.add(line);
             }
+            return all;
+        });
+    }
+
+    /** Refuses a row with more fields than the header names (a decimal comma in comma-separated fields). */
+    private static void checkFieldCount(Path file, Layout layout, int lineNumber, List<String> f) {
+        if (layout.header() != null && filled(f) > layout.header().size()) {
+            throw BadInputException.at(file, "line " + lineNumber, null, filled(f) + " fields where the "
+                    + layout.where() + " names " + layout.header().size() + " columns"
+                    + (layout.delimiter() == ',' ? "; if the numbers are written with a decimal comma, the comma "
+                            + "cannot also separate the fields: use semicolons or tabs between them" : ""));
         }
-        String text;
-        try {
-            text = StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
-                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(ByteBuffer.wrap(bytes)).toString();
-        } catch (CharacterCodingException e) {
-            text = new String(bytes, StandardCharsets.ISO_8859_1);
+    }
+
+    /** Number of fields up to the last non-empty one (a trailing delimiter adds no field). */
+    private static int filled(List<String> f) {
+        int n = f.size();
+        while (n > 0 && f.get(n - 1).isEmpty()) {
+            n--;
         }
-        if (text.startsWith("\uFEFF")) {
-            text = text.substring(1);
-        }
-        return Arrays.asList(text.split("\r\n|\r|\n", -1));
+        return n;
     }
 
     public static String stripComment(String line) {
@@ -344,9 +483,21 @@ public final class TextTableReader {
         return t.equals("nan") || t.equals("+nan") || t.equals("-nan");
     }
 
+    /**
+     * Longest field taken for a number: a double has 17 significant digits, so a field of more
+     * than 64 characters is not one (and is not parsed, so a field of megabytes costs nothing).
+     */
+    private static final int LONGEST_NUMBER = 64;
+    /** A Fortran exponent {@code 1.5d-03}; written without nested repetition so it runs in linear time. */
+    private static final java.util.regex.Pattern FORTRAN_EXPONENT =
+            java.util.regex.Pattern.compile("[+-]?(?:\\d+(?:\\.\\d*)?|\\.\\d+)d[+-]?\\d+");
+
     /** The number {@code s} spells, or NaN when it spells none (or spells NaN). */
     public static double number(String s, boolean decimalComma) {
         String t = s.trim();
+        if (t.length() > LONGEST_NUMBER) {
+            return Double.NaN;
+        }
         try {
             return Double.parseDouble(t);
         } catch (NumberFormatException e) {
@@ -367,7 +518,7 @@ public final class TextTableReader {
         if (decimalComma && u.indexOf(',') >= 0 && u.indexOf('.') < 0 && u.indexOf(',') == u.lastIndexOf(',')) {
             u = u.replace(',', '.');
         }
-        if (u.matches("[+-]?(\\d+\\.?\\d*|\\.\\d+)d[+-]?\\d+")) {
+        if (FORTRAN_EXPONENT.matcher(u).matches()) {
             u = u.replace('d', 'e');
         }
         if (u.equals(lower)) {

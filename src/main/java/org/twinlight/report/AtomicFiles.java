@@ -4,7 +4,11 @@ import java.io.IOException;
 import java.io.OutputStream;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
+import java.nio.file.AccessDeniedException;
 import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.FileAlreadyExistsException;
+import java.nio.file.FileSystemException;
+import java.nio.file.NoSuchFileException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
@@ -63,7 +67,25 @@ public final class AtomicFiles {
                 Files.deleteIfExists(tmp);
             }
         } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + target + ": " + e.getMessage(), e);
+            throw new UncheckedIOException("cannot write " + target + ": " + reason(e), e);
         }
+    }
+
+    /** The reason of an input/output failure in words a user can act on, without library class names. */
+    public static String reason(IOException e) {
+        if (e instanceof AccessDeniedException) {
+            return "permission denied (" + e.getMessage() + ")";
+        }
+        if (e instanceof NoSuchFileException) {
+            return "no such file or directory (" + e.getMessage() + ")";
+        }
+        if (e instanceof FileAlreadyExistsException) {
+            return "a file of that name is in the way (" + e.getMessage() + ")";
+        }
+        if (e instanceof FileSystemException f && f.getReason() != null) {
+            return f.getReason() + (f.getFile() != null ? " (" + f.getFile() + ")" : "");
+        }
+        String m = e.getMessage();
+        return m == null || m.isBlank() ? "an input/output error" : m;
     }
 }

@@ -52,6 +52,11 @@ public final class EphemerisJson {
     }
 
     public static void write(Path target, Content c) {
+        write(target, c, java.util.List.of());
+    }
+
+    /** As above, with the reader's remarks on the input (kept as {@code input.notes}). */
+    public static void write(Path target, Content c, java.util.List<String> inputNotes) {
         ObjectNode root = MAPPER.createObjectNode();
         if (c.oc() != null) {
             EphemerisFit linear = c.oc().linear();
@@ -150,6 +155,7 @@ public final class EphemerisJson {
         ObjectNode input = root.putObject("input");
         input.put("file", c.inputFile());
         input.put("sha256", c.inputSha256());
+        inputNotes.forEach(input.putArray("notes")::add);
         root.putObject("software").put("version", c.softwareVersion());
         try {
             AtomicFiles.writeString(target, MAPPER.writeValueAsString(root) + "\n");

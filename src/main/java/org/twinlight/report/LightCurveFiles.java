@@ -61,7 +61,8 @@ public final class LightCurveFiles {
     /**
      * A FITS file with an empty primary HDU and one binary table (TIME, FLUX[, FLUX_ERR], QUALITY)
      * whose times are days since {@code referenceJd}, described by the FITS time keywords (Rots et
-     * al. 2015, A&amp;A 574, A36): TIMESYS, TIMEREF, TIMEUNIT and the split reference JDREFI/JDREFF.
+     * al. 2015, A&amp;A 574, A36): TIMESYS, TREFPOS (and the older TIMEREF), TIMEUNIT and the split
+     * reference JDREFI/JDREFF. FLUX_ERR is left out when the light curve has no errors.
      */
     public static void writeFits(LightCurve lc, Path target, double referenceJd, String objectName) {
         AtomicFiles.write(target, out -> {
@@ -74,25 +75,33 @@ public final class LightCurveFiles {
                 for (int i = 0; i < n; i++) {
                     time[i] = lc.time(i) - referenceJd;
                     flux[i] = (float) lc.flux(i);
-                    err[i] = (float) (lc.hasErrors() ? lc.fluxError(i) : Double.NaN);
+                    err[i] = (float) lc.fluxError(i);
                 }
                 BinaryTable table = new BinaryTable();
                 table.addColumn(time);
                 table.addColumn(flux);
-                table.addColumn(err);
+                // a noise-free curve has no errors: no FLUX_ERR column rather than one of NaN, which no
+                // reader (this one included) could use
+                if (lc.hasErrors()) {
+                    table.addColumn(err);
+                }
                 table.addColumn(quality);
                 BinaryTableHDU hdu = (BinaryTableHDU) Fits.makeHDU(table);
-                hdu.setColumnName(0, "TIME", "time of mid-exposure");
-                hdu.setColumnName(1, "FLUX", "relative flux");
-                hdu.setColumnName(2, "FLUX_ERR", "1-sigma error of FLUX");
-                hdu.setColumnName(3, "QUALITY", "0 = good");
+                int col = 0;
+                hdu.setColumnName(col++, "TIME", "time of mid-exposure");
+                hdu.setColumnName(col++, "FLUX", "relative flux");
+                if (lc.hasErrors()) {
+                    hdu.setColumnName(col++, "FLUX_ERR", "1-sigma error of FLUX");
+                }
+                hdu.setColumnName(col, "QUALITY", "0 = good");
                 Header h = hdu.getHeader();
                 h.addValue("EXTNAME", "LIGHTCURVE", "photometry table");
                 h.addValue("OBJECT", objectName, "target name");
                 TimeScale scale = lc.timeScale();
                 if (scale.isKnown()) {
                     h.addValue("TIMESYS", scale.standard().name(), "time standard of TIME");
-                    h.addValue("TIMEREF", timeRef(scale.reference()), "reference position of TIME");
+                    h.addValue("TREFPOS", refPos(scale.reference()), "reference position of TIME");
+                    h.addValue("TIMEREF", timeRef(scale.reference()), "older name of TREFPOS");
                 }
                 double whole = Math.floor(referenceJd);
                 h.addValue("JDREFI", (long) whole, "integer part of the reference JD");
@@ -113,6 +122,15 @@ public final class LightCurveFiles {
                 throw new IOException("cannot write FITS table: " + e.getMessage(), e);
             }
         });
+    }
+
+    /** The FITS time standard's TREFPOS value of a reference position (Rots et al. 2015, sect. 4.2). */
+    private static String refPos(TimeReference r) {
+        return switch (r) {
+            case GEOCENTRIC -> "GEOCENTER";
+            case HELIOCENTRIC -> "HELIOCENTER";
+            case BARYCENTRIC -> "BARYCENTER";
+        };
     }
 
     private static String timeRef(TimeReference r) {

@@ -6,6 +6,8 @@ import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.file.Path;
+import java.util.List;
+import java.util.Locale;
 import org.twinlight.timing.period.EclipseEvent;
 import org.twinlight.timing.period.OddEvenComparison;
 import org.twinlight.timing.period.PeriodCandidate;
@@ -35,11 +37,22 @@ public final class PeriodResultJson {
      */
     public static void write(Path target, PeriodSearchResult r, String timeScale, String inputFile, String sha256,
             int rejectedRows, String version) {
-        AtomicFiles.writeString(target, toJson(r, timeScale, inputFile, sha256, rejectedRows, version));
+        write(target, r, timeScale, inputFile, sha256, rejectedRows, version, List.of());
+    }
+
+    /** As above, with the reader's remarks on the input (kept as {@code input.notes}). */
+    public static void write(Path target, PeriodSearchResult r, String timeScale, String inputFile, String sha256,
+            int rejectedRows, String version, List<String> inputNotes) {
+        AtomicFiles.writeString(target, toJson(r, timeScale, inputFile, sha256, rejectedRows, version, inputNotes));
     }
 
     static String toJson(PeriodSearchResult r, String timeScale, String inputFile, String sha256, int rejectedRows,
             String version) {
+        return toJson(r, timeScale, inputFile, sha256, rejectedRows, version, List.of());
+    }
+
+    static String toJson(PeriodSearchResult r, String timeScale, String inputFile, String sha256, int rejectedRows,
+            String version, List<String> inputNotes) {
         ObjectNode root = MAPPER.createObjectNode();
         valueWithError(root.putObject("period"), r.periodDays(), r.periodUncertaintyDays());
         valueWithError(root.putObject("epoch"), r.epochDays(), r.epochUncertaintyDays());
@@ -107,6 +120,7 @@ public final class PeriodResultJson {
         input.put("file", inputFile);
         input.put("sha256", sha256);
         input.put("rejectedRows", rejectedRows);
+        inputNotes.forEach(input.putArray("notes")::add);
         root.putObject("software").put("version", version);
         try {
             return MAPPER.writeValueAsString(root) + System.lineSeparator();

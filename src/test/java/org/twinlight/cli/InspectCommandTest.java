@@ -133,4 +133,27 @@ class InspectCommandTest extends CommandTestSupport {
         assertThat(out.toString()).contains("--segment-gap").contains("--json").contains("--time-column")
                 .contains("--hdu");
     }
+
+    @Test
+    void magnitudesAreShownInMagnitudesNotAsTinyFluxes() throws IOException {
+        Path p = twoNights();
+        assertThat(run("inspect", p.toString())).isZero();
+        String text = out.toString();
+        // 11.0 ± 0.001 mag as written; 10^(-0.4·11) = 4e-5 must not be what the user reads
+        assertThat(text).contains("Magnitudes   brightest 10.9990, median 11.0", "faintest 11.0010")
+                .contains("Errors       median 0.0050 mag").doesNotContain("e-05").doesNotContain("Flux  ");
+        out.getBuffer().setLength(0);
+        assertThat(run("inspect", p.toString(), "--json")).isZero();
+        JsonNode m = new ObjectMapper().readTree(out.toString()).at("/bands/0/magnitudes");
+        assertThat(m.get("faintest").asDouble()).isCloseTo(11.001, org.assertj.core.data.Offset.offset(1e-4));
+        assertThat(m.get("medianError").asDouble()).isCloseTo(0.005, org.assertj.core.data.Offset.offset(1e-9));
+    }
+
+    @Test
+    void onePointSaysScatterIsNotMeasuredAndCountsInTheSingular() throws IOException {
+        Path p = dir.resolve("one.csv");
+        Files.writeString(p, "time,flux\n2460100.5,1.0\n");
+        assertThat(run("inspect", p.toString())).isZero();
+        assertThat(out.toString()).contains("1 point\n", "Scatter      not measured").doesNotContain("NaN");
+    }
 }

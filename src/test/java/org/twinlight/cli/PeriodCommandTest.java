@@ -89,8 +89,9 @@ class PeriodCommandTest {
         assertThat(so.toString()).contains("period").contains("secondary at phase").contains("DECISION Confident")
                 .contains("evidence:");
         try (var files = Files.list(out)) {
+            // besides the results only the hidden lock and list of the result set (ResultSet)
             assertThat(files.map(p -> p.getFileName().toString())).containsExactlyInAnyOrder("period.json",
-                    "periodogram.png");
+                    "periodogram.png", ".twinlight.lock", ".twinlight-period.files");
         }
     }
 

@@ -103,6 +103,72 @@ class FitsTableReaderTest {
         assertThat(lc.time(1)).isEqualTo(2451546.0);
     }
 
+    private LightCurve readWithKeys(String name, String... keysAndValues) throws IOException {
+        FitsFixture.Table t = new FitsFixture.Table()
+                .column("TIME", new double[] {0.0, 1.0})
+                .column("FLUX", new double[] {1, 1})
+                .key("TIMEUNIT", "d").key("MJDREF", 60000.0);
+        for (int i = 0; i < keysAndValues.length; i += 2) {
+            t.key(keysAndValues[i], keysAndValues[i + 1]);
+        }
+        return LightCurveReader.read(write(name, new FitsFixture().table(t)), ReadOptions.defaults());
+    }
+
+    @ParameterizedTest
+    @ValueSource(strings = {"2023-02-29", "2023-02-30T99:00:00", "2023-13-01", "2023-04-31T00:00:00",
+        "2023-01-01T23:60:00", "2023-01-01T12:00:61"})
+    void anImpossibleDateReferenceIsRefusedNotRolledOver(String date) throws IOException {
+        FitsFixture.Table t = new FitsFixture.Table()
+                .column("TIME", new double[] {0.0, 1.0})
+                .column("FLUX", new double[] {1, 1})
+                .key("TIMESYS", "TT").key("DATEREF", date).key("TIMEUNIT", "d");
+        Path p = write("bad-date.fits", new FitsFixture().table(t));
+        assertThatThrownBy(() -> LightCurveReader.read(p, ReadOptions.defaults()))
+                .isInstanceOf(BadInputException.class).hasMessageContaining("key 'DATEREF'")
+                .hasMessageContaining(date);
+    }
+
+    @Test
+    void aLeapDayAndALeapSecondAreValidDateReferences() throws IOException {
+        // 2024 is a Gregorian leap year; 2016-12-31T23:59:60 UTC was a leap second (IERS Bulletin C 52)
+        FitsFixture.Table t = new FitsFixture.Table()
+                .column("TIME", new double[] {0.0, 1.0})
+                .column("FLUX", new double[] {1, 1})
+                .key("TIMESYS", "TT").key("DATEREF", "2024-02-29").key("TIMEUNIT", "d");
+        LightCurve lc = LightCurveReader.read(write("leap.fits", new FitsFixture().table(t)), ReadOptions.defaults());
+        // independent: java.time's day count from 1970-01-01, whose 0 h is JD 2440587.5 (Explanatory
+        // Supplement 1992, table 15.3: the Julian date of the Unix epoch)
+        assertThat(lc.time(0)).isEqualTo(java.time.LocalDate.of(2024, 2, 29).toEpochDay() + 2440587.5);
+        t.key("DATEREF", "2016-12-31T23:59:60");
+        assertThat(LightCurveReader.read(write("leap-second.fits", new FitsFixture().table(t)), ReadOptions.defaults())
+                .size()).isEqualTo(2);
+    }
+
+    @Test
+    void theStandardsReferencePositionKeywordGivesBarycentricTimes() throws IOException {
+        // Rots et al. 2015 (A&A 574, A36), sect. 4.2: TREFPOS = 'BARYCENTER' with TIMESYS = 'TDB' is BJD_TDB
+        assertThat(readWithKeys("trefpos.fits", "TIMESYS", "TDB", "TREFPOS", "BARYCENTER").timeScale())
+                .isEqualTo(TimeScale.BJD_TDB);
+        assertThat(readWithKeys("helio.fits", "TIMESYS", "UTC", "TREFPOS", "HELIOCENTER").timeScale())
+                .isEqualTo(TimeScale.parse("HJD_UTC").orElseThrow());
+        // the older keyword alone, and both when they agree
+        assertThat(readWithKeys("timeref.fits", "TIMESYS", "TDB", "TIMEREF", "SOLARSYSTEM").timeScale())
+                .isEqualTo(TimeScale.BJD_TDB);
+        assertThat(readWithKeys("both.fits", "TIMESYS", "TDB", "TREFPOS", "BARYCENTER", "TIMEREF", "SOLARSYSTEM")
+                .timeScale()).isEqualTo(TimeScale.BJD_TDB);
+    }
+
+    @Test
+    void contradictoryOrUnknownTimeKeywordsAreRefused() {
+        assertThatThrownBy(() -> readWithKeys("clash.fits", "TIMESYS", "TDB", "TREFPOS", "BARYCENTER", "TIMEREF",
+                "LOCAL")).isInstanceOf(BadInputException.class).hasMessageContaining("key 'TREFPOS'")
+                .hasMessageContaining("contradicts the older keyword TIMEREF");
+        assertThatThrownBy(() -> readWithKeys("sys.fits", "TIMESYS", "BJD")).isInstanceOf(BadInputException.class)
+                .hasMessageContaining("key 'TIMESYS'").hasMessageContaining("'BJD' is not a time scale");
+        assertThatThrownBy(() -> readWithKeys("pos.fits", "TREFPOS", "MOON")).isInstanceOf(BadInputException.class)
+                .hasMessageContaining("key 'TREFPOS'");
+    }
+
     @Test
     void noTimeKeywordsLeavesTimesAsGivenAndScaleUnknown() throws IOException {
         FitsFixture.Table t = new FitsFixture.Table()

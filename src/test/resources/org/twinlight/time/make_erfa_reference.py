@@ -19,11 +19,9 @@ random.seed(20261202)
 print("# made by make_erfa_reference.py with pyerfa", erfa.__version__)
 print("# mjd_utc,ra_deg,dec_deg,bmjd_tdb,hmjd_utc,tdb_minus_tt_s,"
       "helio_x_au,helio_y_au,helio_z_au,bary_x_au,bary_y_au,bary_z_au")
-for k in range(200):
-    day = random.randint(47892, 64328)  # 1990-01-01 .. 2035-01-01 (MJD)
-    frac = round(random.random(), 10)
-    ra = random.uniform(0.0, 360.0)
-    dec = math.degrees(math.asin(random.uniform(-1.0, 1.0)))
+
+
+def row(day, frac, ra, dec):
     u1, u2 = 2400000.5, day + frac
     a1, a2 = erfa.utctai(u1, u2)
     t1, t2 = erfa.taitt(a1, a2)
@@ -41,3 +39,15 @@ for k in range(200):
     hmjd = day + frac + dh / 86400.0
     print("%.10f,%.9f,%.9f,%.12f,%.12f,%.9e,%.12f,%.12f,%.12f,%.12f,%.12f,%.12f" % (
         day + frac, ra, dec, bmjd, hmjd, dtdb, rh[0], rh[1], rh[2], rb[0], rb[1], rb[2]))
+
+
+for k in range(200):
+    day = random.randint(47892, 64328)  # 1990-01-01 .. 2035-01-01 (MJD)
+    frac = round(random.random(), 10)
+    ra = random.uniform(0.0, 360.0)
+    dec = math.degrees(math.asin(random.uniform(-1.0, 1.0)))
+    row(day, frac, ra, dec)
+
+# the time command's test case: MJD_UTC 59000.25 and 59000.30 at RA 05:34:31.94, Dec +22:00:52.2
+for frac in (0.25, 0.30):
+    row(59000, frac, (5 + 34 / 60 + 31.94 / 3600) * 15, 22 + 0 / 60 + 52.2 / 3600)

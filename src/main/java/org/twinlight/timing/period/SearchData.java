@@ -30,7 +30,7 @@ record SearchData(String source, double[] timesDays, double[] flux, double[] err
     static SearchData of(LightCurve lc) {
         int n = lc.size();
         if (n < MIN_POINTS) {
-            throw new BadInputException(lc.source() + ": only " + n + " usable points; a period search needs at least "
+            throw new BadInputException(lc.source() + ": only " + n + (n == 1 ? " usable point" : " usable points") + "; a period search needs at least "
                     + MIN_POINTS);
         }
         double[] t = lc.timesDays();
