@@ -11,7 +11,7 @@ import picocli.CommandLine.Option;
 @Command(name = "twinlight",
         mixinStandardHelpOptions = true,
         versionProvider = VersionInfo.class,
-        description = "Eclipsing-binary light curves: inspect, period, times of minimum and O−C, model fit, velocities, absolute dimensions, time scales.",
+        description = "Eclipsing-binary light curves: inspect, period, times of minimum and O−C, model fit, velocities, absolute dimensions, time scales, and the minima to come seen from a site.",
         subcommands = {
             CommandLine.HelpCommand.class,
             SimulateCommand.class,
