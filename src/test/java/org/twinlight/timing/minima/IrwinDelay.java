@@ -1,5 +1,7 @@
 package org.twinlight.timing.minima;
 
+import org.twinlight.testsupport.BisectionKepler;
+
 /**
  * The light-travel-time delay of an eclipsing pair on an orbit around a third body, written out
  * in the tests independently of the production code: Irwin (1952, ApJ 116, 211, eq. 1)
@@ -23,19 +25,7 @@ final class IrwinDelay {
      */
     static double delay(double t, double p3, double amplitude, double e, double omegaDeg, double tPeri) {
         double m = 2 * Math.PI * (t - tPeri) / p3;
-        m -= 2 * Math.PI * Math.floor(m / (2 * Math.PI));
-        double lo = 0;
-        double hi = 2 * Math.PI;
-        for (int i = 0; i < 200; i++) {
-            double mid = 0.5 * (lo + hi);
-            if (mid - e * Math.sin(mid) < m) {
-                lo = mid;
-            } else {
-                hi = mid;
-            }
-        }
-        double bigE = 0.5 * (lo + hi);
-        double nu = 2 * Math.atan(Math.sqrt((1 + e) / (1 - e)) * Math.tan(bigE / 2));
+        double nu = BisectionKepler.trueAnomaly(m, e);
         double w = Math.toRadians(omegaDeg);
         return amplitude * ((1 - e * e) / (1 + e * Math.cos(nu)) * Math.sin(nu + w) + e * Math.sin(w));
     }
