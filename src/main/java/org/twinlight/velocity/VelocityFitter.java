@@ -277,14 +277,15 @@ public final class VelocityFitter {
             }
         }
         List<VelocityEstimate> est = layout.estimates(p, c, data.instruments());
-        if (reduced < 1 && !estimated) {
+        if (reduced < 1 && !estimated && settings.fitJitter()) {
+            notes.add(String.format(Locale.ROOT, "jitter fitted as 0 km/s for both stars: chi2/nu = %.2f is below "
+                    + "1 without it; the uncertainties come from the stated errors alone, not scaled down", reduced));
+        }
+        // a chi2/nu more than its own 1-sigma spread √(2/ν) below 1 is worth a note
+        if (reduced < 1 - Math.sqrt(2.0 / dof) && !estimated) {
             notes.add(String.format(Locale.ROOT, "chi2/nu = %.2f < 1: the scatter is smaller than the stated errors "
                     + "(overstated errors, or chance: with nu = %d its spread is %.2f); the uncertainties are "
                     + "the stated errors' ones, not scaled down", reduced, dof, Math.sqrt(2.0 / dof)));
-            if (settings.fitJitter()) {
-                notes.add("jitter fitted as 0 km/s for both stars: the scatter needs no extra term; the "
-                        + "uncertainties come from the stated errors alone");
-            }
         } else if (reduced > 2 && !estimated) {
             notes.add(String.format(Locale.ROOT, "chi2/nu = %.2f: the scatter is larger than the errors; the "
                     + "uncertainties were scaled up with it (consider --jitter fit, or look for an instrument with "
