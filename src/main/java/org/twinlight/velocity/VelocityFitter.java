@@ -35,6 +35,8 @@ import org.twinlight.WorkFailedException;
 public final class VelocityFitter {
 
     private static final int JITTER_ROUNDS = 20;
+    /** A negative K beyond this many σ from 0 is the input's fault, not chance. */
+    private static final double SIGNIFICANT_K = 3.0;
 
     private VelocityFitter() {
     }
@@ -88,7 +90,6 @@ public final class VelocityFitter {
             iterations += solved.iterations;
             p = solved.best;
         }
-        checkSigns(data, p);
         List<String> notes = new ArrayList<>();
         if (settings.fitJitter()) {
             // each star's share of the degrees of freedom, so each star's chi2 matches its own share
@@ -123,16 +124,22 @@ public final class VelocityFitter {
     /**
      * K1 and K2 are positive by the model's convention (v1 = γ + K1[cos(ν+ω) + e cos ω], v2 with
      * −K2, the epoch the primary conjunction; INTERFACE.md); a fit that converges to a negative
-     * one means the input does not follow it.
+     * one either says the input does not follow it (both clearly negative: the stars or the epoch
+     * swapped; one clearly negative: the same star twice) or that the data do not determine K
+     * (within {@value #SIGNIFICANT_K} σ of 0).
      *
-     * @throws BadInputException saying which convention the data break and what to try
+     * @throws BadInputException when a negative K is significant, saying what to try
+     * @throws WorkFailedException when a negative K is consistent with 0
      */
-    private static void checkSigns(VelocityData data, VelocityParameters p) {
+    private static void checkSigns(VelocityData data, VelocityParameters p, double sigmaK1, double sigmaK2) {
         if (p.k1Kms() >= 0 && p.k2Kms() >= 0) {
             return;
         }
-        String fitted = String.format(Locale.ROOT, "K1 = %.2f km/s and K2 = %.2f km/s", p.k1Kms(), p.k2Kms());
-        if (p.k1Kms() < 0 && p.k2Kms() < 0) {
+        String fitted = String.format(Locale.ROOT, "K1 = %.2f ± %.2f km/s and K2 = %.2f ± %.2f km/s", p.k1Kms(),
+                sigmaK1, p.k2Kms(), sigmaK2);
+        boolean clear1 = p.k1Kms() < -SIGNIFICANT_K * sigmaK1;
+        boolean clear2 = p.k2Kms() < -SIGNIFICANT_K * sigmaK2;
+        if (clear1 && clear2) {
             throw new BadInputException(data.source() + ": the fit gives negative semi-amplitudes (" + fitted
                     + "): each star moves opposite to the model's orbit. Either the velocity columns of the two "
                     + "stars are swapped (star 1 is the star eclipsed at primary minimum) or the epoch is that of "
@@ -140,10 +147,17 @@ public final class VelocityFitter {
                     + "(--v1-column/--v2-column and --v1-error-column/--v2-error-column), or check the epoch "
                     + "of the model");
         }
-        throw new BadInputException(data.source() + ": the fit gives " + fitted + ": one of the two stars moves "
-                + "with the other instead of opposite to it, so the columns 'v1' and 'v2' do not hold the two stars "
-                + "of a double-lined orbit (the same star twice, or velocities of one star split between them?). "
-                + "Check the columns chosen with --v1-column/--v2-column");
+        if ((clear1 && p.k2Kms() > 0) || (clear2 && p.k1Kms() > 0)) {
+            throw new BadInputException(data.source() + ": the fit gives " + fitted + ": one of the two stars moves "
+                    + "with the other instead of opposite to it, so the columns 'v1' and 'v2' do not hold the two "
+                    + "stars of a double-lined orbit (the same star twice, or velocities of one star split between "
+                    + "them?). Check the columns chosen with --v1-column/--v2-column");
+        }
+        throw new WorkFailedException(data.source() + ": the fit gives " + fitted + ": a negative semi-amplitude "
+                + "within " + (int) SIGNIFICANT_K + " sigma of 0, so these " + data.size() + " velocities do not "
+                + "determine it (too few, too noisy, or all near conjunction where both stars move at gamma). Try "
+                + "more velocities near the quadratures (phases 0.25 and 0.75), or fewer free parameters; if the "
+                + "columns or the epoch could be wrong, check them too");
     }
 
     private static double[] errors(StarVelocities s) {
@@ -277,6 +291,7 @@ public final class VelocityFitter {
             }
         }
         List<VelocityEstimate> est = layout.estimates(p, c, data.instruments());
+        checkSigns(data, p, Math.sqrt(c[0][0]), Math.sqrt(c[1][1]));
         if (reduced < 1 && !estimated && settings.fitJitter()) {
             notes.add(String.format(Locale.ROOT, "jitter fitted as 0 km/s for both stars: chi2/nu = %.2f is below "
                     + "1 without it; the uncertainties come from the stated errors alone, not scaled down", reduced));
