@@ -171,6 +171,30 @@ class VelocityFitterTest {
                 .isInstanceOf(BadInputException.class).hasMessageContaining("moves with the other");
     }
 
+    @Test
+    void aNegativeKConsistentWithZeroIsUndeterminedNotSwapped() {
+        // 4 epochs with σ = K1/6: now and then the phases fall near conjunction and a K comes out
+        // negative but within 3σ of 0. That must stop the work as undetermined (exit 1), never be
+        // called swapped columns (exit 2), and every fit that is accepted has positive K.
+        VelocityParameters truth = new VelocityParameters(3.418276, 2460412.63415, 0.0, 90.0, 30.0, 40.0, -12.0,
+                new double[] {0.0}, 0.0, 0.0);
+        int undetermined = 0;
+        for (long seed = 1; seed <= 2000; seed++) {
+            VelocityData d = SyntheticVelocities.make(truth, 4, 5.0, 5.0, 1, 1.0, seed);
+            VelocityParameters start = new VelocityParameters(truth.periodDays(), truth.epochDays(), 0.0, 90.0, 24.0,
+                    48.0, -7.0, new double[1], 0.0, 0.0);
+            try {
+                VelocityFitResult r = VelocityFitter.fit(d, start, VelocityFitSettings.defaults());
+                assertThat(r.best().k1Kms()).isPositive();
+                assertThat(r.best().k2Kms()).isPositive();
+            } catch (org.twinlight.WorkFailedException e) {
+                assertThat(e.getMessage()).contains("do not determine").contains("within 3 sigma of 0");
+                undetermined++;
+            }
+        }
+        assertThat(undetermined).isBetween(1, 40);
+    }
+
     /** (AᵀWA)⁻¹ of the linear model in K1, K2, γ for a circular orbit with ω = 90°. */
     private static double[][] linearCovariance(VelocityData d, VelocityParameters orbit) {
         int n1 = d.star1().size();
