@@ -17,6 +17,10 @@ class VelocityFitterTest {
     private static final VelocityParameters CIRCULAR = new VelocityParameters(3.2145, 2460100.3812, 0.0, 90.0, 78.0,
             96.5, -14.2, new double[] {0.0, 2.3}, 0.0, 0.0);
 
+    /** The orbit of the small-set tests: K1 = 30, K2 = 40 km/s, one instrument. */
+    private static final VelocityParameters SMALL_SET = new VelocityParameters(3.418276, 2460412.63415, 0.0, 90.0,
+            30.0, 40.0, -12.0, new double[] {0.0}, 0.0, 0.0);
+
     private static VelocityParameters wrongStart(VelocityParameters truth) {
         return new VelocityParameters(truth.periodDays(), truth.epochDays(), truth.eccentricity() * 0.5,
                 truth.omegaDeg() + 20, truth.k1Kms() * 0.8, truth.k2Kms() * 1.2, truth.gammaKms() + 5,
@@ -100,8 +104,7 @@ class VelocityFitterTest {
         // ν = 5..9, z normal and χ²_ν independent as in linear least squares: 0.934-0.943; scaling
         // both ways gives 1.13-1.29) and fails on the old rule. Beyond 2σ the same Monte Carlo gives
         // 3.5 % (binomial σ 0.75 % over 600), the old rule 7.7-10 %: the bound is 6 %.
-        VelocityParameters truth = new VelocityParameters(3.418276, 2460412.63415, 0.0, 90.0, 30.0, 40.0, -12.0,
-                new double[] {0.0}, 0.0, 0.0);
+        VelocityParameters truth = SMALL_SET;
         List<Double> pulls = new ArrayList<>();
         for (long seed = 1; seed <= 300; seed++) {
             int epochs = 4 + (int) (seed % 3);
@@ -122,33 +125,29 @@ class VelocityFitterTest {
         // fixed: v1 = γ + K1 s, v2 = γ − K2 s with s = cos(ν+ω) = −sin(2π(t − T0)/P) for a circular
         // orbit with the epoch at primary conjunction, ν + ω = 90°; Hilditch 2001, An Introduction to
         // Close Binary Stars, eq. 2.45 and §3.1), computed here with Commons Math.
-        VelocityParameters truth = new VelocityParameters(3.418276, 2460412.63415, 0.0, 90.0, 30.0, 40.0, -12.0,
-                new double[] {0.0}, 0.0, 0.0);
-        VelocityData d = SyntheticVelocities.make(truth, 5, 5.0, 5.0, 1, 2.0, 77);
-        VelocityFitResult r = VelocityFitter.fit(d, wrongStart(truth), VelocityFitSettings.defaults());
+        VelocityData d = SyntheticVelocities.make(SMALL_SET, 5, 5.0, 5.0, 1, 2.0, 77);
+        VelocityFitResult r = VelocityFitter.fit(d, wrongStart(SMALL_SET), VelocityFitSettings.defaults());
         assertThat(r.reducedChi2()).isLessThan(0.6);
-        double[][] cov = linearCovariance(d, truth);
-        assertThat(r.estimate("k1").uncertainty()).isCloseTo(Math.sqrt(cov[0][0]), within(0.005 * Math.sqrt(cov[0][0])));
-        assertThat(r.estimate("k2").uncertainty()).isCloseTo(Math.sqrt(cov[1][1]), within(0.005 * Math.sqrt(cov[1][1])));
+        double[][] cov = linearCovariance(d, SMALL_SET);
+        assertErrorIs(r, "k1", cov[0][0]);
+        assertErrorIs(r, "k2", cov[1][1]);
         assertThat(r.notes()).anyMatch(n -> n.contains("not scaled down"));
         assertThat(r.notes()).anyMatch(n -> n.contains("degrees of freedom"));
         // with the jitter fitted it stays 0 and the note says so
-        VelocityFitResult j = VelocityFitter.fit(d, wrongStart(truth), new VelocityFitSettings(Set.of(), 0, true, 200));
+        VelocityFitResult j = VelocityFitter.fit(d, wrongStart(SMALL_SET), new VelocityFitSettings(Set.of(), 0, true,
+                200));
         assertThat(j.best().jitter1Kms()).isZero();
-        assertThat(j.estimate("k1").uncertainty()).isCloseTo(Math.sqrt(cov[0][0]), within(0.005 * Math.sqrt(cov[0][0])));
+        assertErrorIs(j, "k1", cov[0][0]);
         assertThat(j.notes()).anyMatch(n -> n.contains("jitter fitted as 0"));
     }
 
     @Test
     void underestimatedErrorsAreScaledUp() {
         // errors stated at a quarter of the noise: the K errors must be the linear ones times √(χ²/ν)
-        VelocityParameters truth = new VelocityParameters(3.418276, 2460412.63415, 0.0, 90.0, 30.0, 40.0, -12.0,
-                new double[] {0.0}, 0.0, 0.0);
-        VelocityData d = SyntheticVelocities.make(truth, 12, 2.0, 2.0, 1, 0.25, 78);
-        VelocityFitResult r = VelocityFitter.fit(d, wrongStart(truth), VelocityFitSettings.defaults());
+        VelocityData d = SyntheticVelocities.make(SMALL_SET, 12, 2.0, 2.0, 1, 0.25, 78);
+        VelocityFitResult r = VelocityFitter.fit(d, wrongStart(SMALL_SET), VelocityFitSettings.defaults());
         assertThat(r.reducedChi2()).isGreaterThan(4);
-        double expected = Math.sqrt(linearCovariance(d, truth)[0][0] * r.reducedChi2());
-        assertThat(r.estimate("k1").uncertainty()).isCloseTo(expected, within(0.005 * expected));
+        assertErrorIs(r, "k1", linearCovariance(d, SMALL_SET)[0][0] * r.reducedChi2());
     }
 
     @Test
@@ -176,8 +175,7 @@ class VelocityFitterTest {
         // 4 epochs with σ = K1/6: now and then the phases fall near conjunction and a K comes out
         // negative but within 3σ of 0. That must stop the work as undetermined (exit 1), never be
         // called swapped columns (exit 2), and every fit that is accepted has positive K.
-        VelocityParameters truth = new VelocityParameters(3.418276, 2460412.63415, 0.0, 90.0, 30.0, 40.0, -12.0,
-                new double[] {0.0}, 0.0, 0.0);
+        VelocityParameters truth = SMALL_SET;
         int undetermined = 0;
         for (long seed = 1; seed <= 2000; seed++) {
             VelocityData d = SyntheticVelocities.make(truth, 4, 5.0, 5.0, 1, 1.0, seed);
@@ -193,6 +191,11 @@ class VelocityFitterTest {
             }
         }
         assertThat(undetermined).isBetween(1, 40);
+    }
+
+    /** The fit's error of {@code name} is √variance to 0.5 %. */
+    private static void assertErrorIs(VelocityFitResult r, String name, double variance) {
+        assertThat(r.estimate(name).uncertainty()).isCloseTo(Math.sqrt(variance), within(0.005 * Math.sqrt(variance)));
     }
 
     /** (AᵀWA)⁻¹ of the linear model in K1, K2, γ for a circular orbit with ω = 90°. */
