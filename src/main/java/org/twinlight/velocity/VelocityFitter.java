@@ -292,7 +292,7 @@ public final class VelocityFitter {
         }
         List<VelocityEstimate> est = layout.estimates(p, c, data.instruments());
         checkSigns(data, p, Math.sqrt(c[0][0]), Math.sqrt(c[1][1]));
-        if (reduced < 1 && !estimated && settings.fitJitter()) {
+        if (reduced < 1 && !estimated && settings.fitJitter() && p.jitter1Kms() == 0 && p.jitter2Kms() == 0) {
             notes.add(String.format(Locale.ROOT, "jitter fitted as 0 km/s for both stars: chi2/nu = %.2f is below "
                     + "1 without it; the uncertainties come from the stated errors alone, not scaled down", reduced));
         }
