@@ -82,6 +82,10 @@ public final class DimensionsCommand implements Callable<Integer> {
     @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Seed of the draws (default: ${DEFAULT-VALUE}).")
     long seed;
 
+    @Option(names = "--object", paramLabel = "NAME", description = "Name of the star, for the plot titles "
+            + "(default: the light curve named in fit.json).")
+    String object;
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
 
@@ -97,6 +101,9 @@ public final class DimensionsCommand implements Callable<Integer> {
         OutputTargets.checkDirectory(out, List.of("dimensions.json", "dimensions.txt", "mass-radius.png",
                 "mass-luminosity.png"), inputs);
         checkOptions();
+        if (object != null) {
+            OptionChecks.plainText("--object", object);
+        }
         FitJsonInput lc = FitJsonInput.read(fit);
         List<String> notes = new ArrayList<>();
         if (lc.posterior()) {
@@ -166,6 +173,7 @@ public final class DimensionsCommand implements Callable<Integer> {
             }
             mean[9] = Double.NaN;
         }
+        String missingCorrelations = missingCorrelations(lc, fromFit, cov);
         BinaryElements central = BinaryElements.fromVector(mean);
         String problem = central.problem();
         if (problem != null) {
@@ -177,7 +185,15 @@ public final class DimensionsCommand implements Callable<Integer> {
         } catch (IllegalArgumentException e) {
             throw new BadInputException(fit + ": " + e.getMessage());
         }
-        List<String> warnings = SanityChecks.warnings(r.central(), central);
+        List<String> warnings = new ArrayList<>();
+        if (missingCorrelations != null) {
+            warnings.add(missingCorrelations);
+        }
+        String geometry = SanityChecks.eclipseGeometry(central, lc.model().common().omegaDeg());
+        if (geometry != null) {
+            warnings.add(geometry);
+        }
+        warnings.addAll(SanityChecks.warnings(r.central(), central));
         Map<String, double[]> used = new LinkedHashMap<>();
         for (int i = 0; i < mean.length; i++) {
             used.put(BinaryElements.NAMES.get(i), new double[] {mean[i], Math.sqrt(cov[i][i])});
@@ -188,7 +204,7 @@ public final class DimensionsCommand implements Callable<Integer> {
                 VersionInfo.version()));
         String table = DimensionsFiles.table(r, warnings);
         org.twinlight.report.AtomicFiles.writeString(out.resolve("dimensions.txt"), table);
-        String title = "Absolute dimensions from " + fit.getFileName();
+        String title = "Absolute dimensions of " + objectName(lc);
         DimensionsPlots.massRadius(r, out.resolve("mass-radius.png"), title);
         boolean luminosities = r.estimates().containsKey(Quantity.LOG_LUMINOSITY1)
                 && r.estimates().containsKey(Quantity.LOG_LUMINOSITY2);
@@ -202,6 +218,43 @@ public final class DimensionsCommand implements Callable<Integer> {
         console().println("wrote dimensions.json, dimensions.txt, mass-radius.png" + (luminosities
                 ? " and mass-luminosity.png" : "") + " to " + out);
         return 0;
+    }
+
+    /**
+     * A warning when fit.json gives errors for two or more of the elements used but not their
+     * correlations (no {@code correlation} block, or one without some of them): they are then drawn
+     * as independent, which for r2 and i (often correlated near −1 in partial eclipses) can make
+     * the radius errors far too large or too small. Null when nothing is missing.
+     */
+    private String missingCorrelations(FitJsonInput lc, String[] fromFit, double[][] cov) {
+        List<String> withErrors = new ArrayList<>();
+        List<String> missing = new ArrayList<>();
+        for (int i = 0; i < fromFit.length; i++) {
+            if (fromFit[i] != null && cov[i][i] > 0) {
+                withErrors.add(fromFit[i]);
+                if (!lc.correlationNames().contains(fromFit[i])) {
+                    missing.add(fromFit[i]);
+                }
+            }
+        }
+        if (withErrors.size() < 2 || missing.isEmpty()) {
+            return null;
+        }
+        String what = lc.correlationNames().isEmpty() ? "has no 'correlation' block"
+                : "has no correlations for " + String.join(", ", missing) + " in its 'correlation' block";
+        return fit + " " + what + ": the errors of " + String.join(", ", withErrors) + " were drawn as "
+                + "independent, so the errors of radii, masses and luminosities ignore their correlations (r2 and "
+                + "the inclination, for one, are typically strongly correlated) and may be much too large or too "
+                + "small; use the fit.json the fit command wrote, which carries them";
+    }
+
+    /** What the plots are titled with: --object, else the fitted light curve, else the fit.json. */
+    private String objectName(FitJsonInput lc) {
+        if (object != null && !object.isBlank()) {
+            return object.trim();
+        }
+        return lc.lightCurveName() != null ? lc.lightCurveName() + " (" + fit.getFileName() + ")"
+                : String.valueOf(fit.getFileName());
     }
 
     private void checkOptions() {

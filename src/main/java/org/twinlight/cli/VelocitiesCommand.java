@@ -59,6 +59,10 @@ public final class VelocitiesCommand implements Callable<Integer> {
             description = "Iteration limit of the solver (default: ${DEFAULT-VALUE}).")
     int maxIterations;
 
+    @Option(names = "--object", paramLabel = "NAME", description = "Name of the star, for the plot title "
+            + "(default: the velocity file's name).")
+    String object;
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
 
@@ -69,6 +73,9 @@ public final class VelocitiesCommand implements Callable<Integer> {
     public Integer call() {
         OutputTargets.checkDirectory(out, List.of("velocities.json", "velocities.png"), List.of(file, model));
         VelocityFitSettings settings = settings(free, jitter, maxIterations);
+        if (object != null) {
+            OptionChecks.plainText("--object", object);
+        }
         ModelInput m = ModelInput.read(model);
         VelocityData data = velocityOptions.read(file, console());
         VelocityFileOptions.checkTimeScale(data, file, m.timeScale(), model, console());
@@ -77,7 +84,8 @@ public final class VelocitiesCommand implements Callable<Integer> {
         ObjectNode derived = VelocityFiles.derivedJson(r, warnings);
         FitFiles.writeJson(out.resolve("velocities.json"), VelocityFiles.json(r, data, settings, file.toString(),
                 InputDigest.sha256(file), model.toString(), derived, warnings, VersionInfo.version()));
-        VelocityPlot.write(r, data, out.resolve("velocities.png"), "Radial velocities of " + file.getFileName());
+        VelocityPlot.write(r, data, out.resolve("velocities.png"), "Radial velocities of "
+                + (object != null && !object.isBlank() ? object.trim() : String.valueOf(file.getFileName())));
         console().print(VelocityFiles.summary(r, data));
         warnings.forEach(w -> console().println("warning: " + w));
         console().println("caution: " + VelocityFiles.CAUTION);

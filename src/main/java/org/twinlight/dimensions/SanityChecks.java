@@ -50,6 +50,34 @@ public final class SanityChecks {
         return out;
     }
 
+    /**
+     * A warning when these elements cannot give an eclipse, or null when they can: at a conjunction
+     * the sky-projected separation in units of a is cos i · (1 − e²)/(1 ± e sin ω) (+ at primary
+     * conjunction, ν + ω = 90°; − at secondary), and the stars overlap only when it is below
+     * r1 + r2 (Winn 2010, "Transits and Occultations", in Exoplanets, ed. Seager, eqs. 7–8, with
+     * ω of the eclipsed star as in the contract's convention). An eclipse fit cannot have come out
+     * like this, so the inclination is not from an eclipse and the masses (∝ 1/sin³i) are not to
+     * be trusted.
+     *
+     * @param omegaDeg argument of periastron of star 1, degrees (any value for a circular orbit)
+     */
+    public static String eclipseGeometry(BinaryElements el, double omegaDeg) {
+        double cosI = Math.abs(Math.cos(Math.toRadians(el.inclinationDeg())));
+        double e = el.eccentricity();
+        double esinw = e * Math.sin(Math.toRadians(omegaDeg));
+        double primary = cosI * (1 - e * e) / (1 + esinw);
+        double secondary = cosI * (1 - e * e) / (1 - esinw);
+        double sum = el.radius1() + el.radius2();
+        if (Math.min(primary, secondary) < sum) {
+            return null;
+        }
+        return String.format(Locale.ROOT, "the geometry gives no eclipse: at i = %.2f deg the stars' projected "
+                + "separation at conjunction is %.4f a (primary) and %.4f a (secondary), more than r1 + r2 = %.4f, so "
+                + "they never overlap. The inclination is then not from an eclipse (a wrong or hand-made fit.json?), "
+                + "and the masses, which scale as 1/sin^3 i, are not to be trusted", el.inclinationDeg(), primary,
+                secondary, sum);
+    }
+
     private static void star(List<String> out, int n, double mass, double companion, double fractionalRadius,
             double logg, double density, double teff, double logL, double e) {
         String s = "star " + n + ": ";

@@ -17,7 +17,9 @@ import org.twinlight.dimensions.Quantity;
 /**
  * The two stars in the mass–radius plane (with lines of constant surface gravity, exact from
  * g = GM/R²) and in the mass–luminosity plane (with the main-sequence relation of Eker et al.
- * 2018), each with its 1σ error bars; the colours and markers of {@link VelocityPlot}.
+ * 2018), each with its 1σ error bars; the colours and markers of {@link VelocityPlot}. The
+ * legend gives each star's values with their errors, since bars smaller than the marker (masses
+ * from good velocities often are) cannot be seen.
  */
 public final class DimensionsPlots {
 
@@ -45,10 +47,10 @@ public final class DimensionsPlots {
             }
             line(c, "log g = " + logg, m, rad, new Color(0x99, 0x99, 0x99), logg == 4.0 || logg == 5.0);
         }
-        star(c, "star 1", r.estimates().get(Quantity.MASS1), r.estimates().get(Quantity.RADIUS1), VelocityPlot.STAR1,
-                SeriesMarkers.CIRCLE);
-        star(c, "star 2", r.estimates().get(Quantity.MASS2), r.estimates().get(Quantity.RADIUS2), VelocityPlot.STAR2,
-                SeriesMarkers.DIAMOND);
+        star(c, "star 1", "R", r.estimates().get(Quantity.MASS1), r.estimates().get(Quantity.RADIUS1),
+                VelocityPlot.STAR1, SeriesMarkers.CIRCLE);
+        star(c, "star 2", "R", r.estimates().get(Quantity.MASS2), r.estimates().get(Quantity.RADIUS2),
+                VelocityPlot.STAR2, SeriesMarkers.DIAMOND);
         PlotFiles.writePng(c, target);
     }
 
@@ -68,9 +70,9 @@ public final class DimensionsPlots {
             }
             line(c, "main sequence (Eker et al. 2018)", m, l, new Color(0x55, 0x55, 0x55), false);
         }
-        star(c, "star 1", r.estimates().get(Quantity.MASS1), r.estimates().get(Quantity.LOG_LUMINOSITY1),
+        star(c, "star 1", "log L", r.estimates().get(Quantity.MASS1), r.estimates().get(Quantity.LOG_LUMINOSITY1),
                 VelocityPlot.STAR1, SeriesMarkers.CIRCLE);
-        star(c, "star 2", r.estimates().get(Quantity.MASS2), r.estimates().get(Quantity.LOG_LUMINOSITY2),
+        star(c, "star 2", "log L", r.estimates().get(Quantity.MASS2), r.estimates().get(Quantity.LOG_LUMINOSITY2),
                 VelocityPlot.STAR2, SeriesMarkers.DIAMOND);
         PlotFiles.writePng(c, target);
     }
@@ -91,11 +93,13 @@ public final class DimensionsPlots {
         return c;
     }
 
-    private static void star(XYChart c, String name, DimensionEstimate x, DimensionEstimate y, Color colour,
-            Marker marker) {
+    private static void star(XYChart c, String star, String yName, DimensionEstimate x, DimensionEstimate y,
+            Color colour, Marker marker) {
         if (x == null || y == null) {
             return;
         }
+        String name = star + ": M = " + DimensionsFiles.rounded(x) + ", " + yName + " = " + DimensionsFiles.rounded(y)
+                + " (1σ bars)";
         // XChart draws only vertical error bars: the mass error is drawn as a short horizontal line
         XYSeries s = c.addSeries(name, new double[] {x.value()}, new double[] {y.value()},
                 new double[] {y.uncertainty()});

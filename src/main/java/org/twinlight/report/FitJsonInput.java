@@ -23,9 +23,12 @@ import org.twinlight.time.TimeScale;
  * @param correlationNames names of the fitted parameters in the order of {@code correlation}
  * @param correlation their correlation matrix
  * @param posterior whether the file holds a posterior (from a sampler)
+ * @param lightCurveName file name of the fitted light curve ({@code input.file}), or null when
+ *     fit.json does not say
  */
 public record FitJsonInput(Path file, TimeScale timeScale, ModelFile model, Map<String, Double> values,
-        Map<String, Double> uncertainties, List<String> correlationNames, double[][] correlation, boolean posterior) {
+        Map<String, Double> uncertainties, List<String> correlationNames, double[][] correlation, boolean posterior,
+        String lightCurveName) {
 
     /** The parameters a fit.json must hold for absolute dimensions. */
     public static final List<String> REQUIRED = List.of("period", "radius1", "radius2", "inclination");
@@ -88,7 +91,16 @@ public record FitJsonInput(Path file, TimeScale timeScale, ModelFile model, Map<
                     + "command writes it");
         }
         return new FitJsonInput(file, ModelInput.timeScale(root, file), ModelFileJson.parse(model, file), values, sigmas,
-                names, corr, root.has("posterior"));
+                names, corr, root.has("posterior"), lightCurveName(root));
+    }
+
+    private static String lightCurveName(JsonNode root) {
+        JsonNode f = root.path("input").path("file");
+        if (!f.isTextual() || f.asText().isBlank()) {
+            return null;
+        }
+        String name = f.asText().replace('\\', '/');
+        return name.substring(name.lastIndexOf('/') + 1);
     }
 
     private static void collect(Path file, JsonNode params, String prefix, Map<String, Double> values,

@@ -75,7 +75,7 @@ public final class VelocityFiles {
         r.freeNames().forEach(free::add);
         set.put("jitter", settings.fitJitter() ? "fit" : String.valueOf(settings.jitterKms()));
         set.put("method", "Levenberg-Marquardt least squares; uncertainties from the covariance scaled by the "
-                + "reduced chi-square");
+                + "reduced chi-square when it exceeds 1, never scaled down");
         ObjectNode sw = root.putObject("software");
         sw.put("name", "twinlight");
         sw.put("version", softwareVersion);

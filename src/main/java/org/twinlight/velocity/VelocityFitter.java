@@ -22,7 +22,11 @@ import org.twinlight.WorkFailedException;
  * Least-squares fit of the double-lined velocity model ({@link VelocityModel}) with the
  * Levenberg–Marquardt solver of Commons Math: K1, K2, γ and one offset per instrument after the
  * first always; e and ω (as e cos ω, e sin ω, so e = 0 is no boundary), period and epoch when
- * asked. Uncertainties come from the covariance scaled by χ²/ν, as the light-curve fit does.
+ * asked. Uncertainties come from the covariance scaled by max(1, χ²/ν) (the errors by
+ * max(1, √(χ²/ν))), the rule the O−C fits use: scatter larger than the stated errors widens them,
+ * but a small χ²/ν never shrinks them, because with the few degrees of freedom of a typical
+ * velocity set χ²/ν below 1 is mostly chance (its spread is √(2/ν)), and shrinking on it gives
+ * confident wrong K and e.
  * Without errors in the file each star's errors are estimated from its scatter (a first fit with
  * equal weights, then the RMS of the star's residuals). With {@code fitJitter} the jitter is the
  * value for each star that makes its χ² equal its share of the degrees of freedom, found by bisection after each fit, and the fit repeated until it
@@ -31,6 +35,8 @@ import org.twinlight.WorkFailedException;
 public final class VelocityFitter {
 
     private static final int JITTER_ROUNDS = 20;
+    /** A negative K beyond this many σ from 0 is the input's fault, not chance. */
+    private static final double SIGNIFICANT_K = 3.0;
 
     private VelocityFitter() {
     }
@@ -112,7 +118,46 @@ public final class VelocityFitter {
                     ? "either star" : !data.star1().hasErrors() ? "star 1" : "star 2")
                     + ": they were estimated from the scatter of the residuals, so chi2 says nothing about the fit");
         }
-        return summarise(data, p, layout, sigma1, sigma2, solved, iterations, estimated, notes);
+        return summarise(data, p, layout, sigma1, sigma2, solved, iterations, estimated, notes, settings);
+    }
+
+    /**
+     * K1 and K2 are positive by the model's convention (v1 = γ + K1[cos(ν+ω) + e cos ω], v2 with
+     * −K2, the epoch the primary conjunction; INTERFACE.md); a fit that converges to a negative
+     * one either says the input does not follow it (both clearly negative: the stars or the epoch
+     * swapped; one clearly negative: the same star twice) or that the data do not determine K
+     * (within {@value #SIGNIFICANT_K} σ of 0).
+     *
+     * @throws BadInputException when a negative K is significant, saying what to try
+     * @throws WorkFailedException when a negative K is consistent with 0
+     */
+    private static void checkSigns(VelocityData data, VelocityParameters p, double sigmaK1, double sigmaK2) {
+        if (p.k1Kms() >= 0 && p.k2Kms() >= 0) {
+            return;
+        }
+        String fitted = String.format(Locale.ROOT, "K1 = %.2f ± %.2f km/s and K2 = %.2f ± %.2f km/s", p.k1Kms(),
+                sigmaK1, p.k2Kms(), sigmaK2);
+        boolean clear1 = p.k1Kms() < -SIGNIFICANT_K * sigmaK1;
+        boolean clear2 = p.k2Kms() < -SIGNIFICANT_K * sigmaK2;
+        if (clear1 && clear2) {
+            throw new BadInputException(data.source() + ": the fit gives negative semi-amplitudes (" + fitted
+                    + "): each star moves opposite to the model's orbit. Either the velocity columns of the two "
+                    + "stars are swapped (star 1 is the star eclipsed at primary minimum) or the epoch is that of "
+                    + "the other eclipse, half a period off. Try swapping the columns of the stars "
+                    + "(--v1-column/--v2-column and --v1-error-column/--v2-error-column), or check the epoch "
+                    + "of the model");
+        }
+        if ((clear1 && p.k2Kms() > 0) || (clear2 && p.k1Kms() > 0)) {
+            throw new BadInputException(data.source() + ": the fit gives " + fitted + ": one of the two stars moves "
+                    + "with the other instead of opposite to it, so the columns 'v1' and 'v2' do not hold the two "
+                    + "stars of a double-lined orbit (the same star twice, or velocities of one star split between "
+                    + "them?). Check the columns chosen with --v1-column/--v2-column");
+        }
+        throw new WorkFailedException(data.source() + ": the fit gives " + fitted + ": a negative semi-amplitude "
+                + "within " + (int) SIGNIFICANT_K + " sigma of 0, so these " + data.size() + " velocities do not "
+                + "determine it (too few, too noisy, or all near conjunction where both stars move at gamma). Try "
+                + "more velocities near the quadratures (phases 0.25 and 0.75), or fewer free parameters; if the "
+                + "columns or the epoch could be wrong, check them too");
     }
 
     private static double[] errors(StarVelocities s) {
@@ -217,11 +262,15 @@ public final class VelocityFitter {
     }
 
     private static VelocityFitResult summarise(VelocityData data, VelocityParameters p, Layout layout,
-            double[] sigma1, double[] sigma2, Solved solved, int iterations, boolean estimated, List<String> notes) {
+            double[] sigma1, double[] sigma2, Solved solved, int iterations, boolean estimated, List<String> notes,
+            VelocityFitSettings settings) {
         VelocityModel.Residuals r = VelocityModel.residuals(data, p);
         double chi2 = chi2(r.residual1(), sigma1, p.jitter1Kms()) + chi2(r.residual2(), sigma2, p.jitter2Kms());
         int dof = data.size() - layout.size();
-        double scale = chi2 / dof;
+        double reduced = chi2 / dof;
+        // never below 1: a small chi2/nu on few degrees of freedom is chance as often as it is
+        // overstated errors, and shrinking on it made K and e confidently wrong on small sets
+        double scale = Math.max(1.0, reduced);
         // the Jacobian at the optimum, recomputed with the final jitter
         RealMatrix jac = solved.jacobian;
         RealMatrix cov;
@@ -242,13 +291,25 @@ public final class VelocityFitter {
             }
         }
         List<VelocityEstimate> est = layout.estimates(p, c, data.instruments());
-        if (scale < 1 && !estimated) {
-            notes.add(String.format(Locale.ROOT, "chi2/nu = %.2f < 1: the errors in the file may be overestimated; "
-                    + "the uncertainties were scaled down with it", scale));
-        } else if (scale > 2 && !estimated) {
+        checkSigns(data, p, Math.sqrt(c[0][0]), Math.sqrt(c[1][1]));
+        if (reduced < 1 && !estimated && settings.fitJitter() && p.jitter1Kms() == 0 && p.jitter2Kms() == 0) {
+            notes.add(String.format(Locale.ROOT, "jitter fitted as 0 km/s for both stars: chi2/nu = %.2f is below "
+                    + "1 without it; the uncertainties come from the stated errors alone, not scaled down", reduced));
+        }
+        // a chi2/nu more than its own 1-sigma spread √(2/ν) below 1 is worth a note
+        if (reduced < 1 - Math.sqrt(2.0 / dof) && !estimated) {
+            notes.add(String.format(Locale.ROOT, "chi2/nu = %.2f < 1: the scatter is smaller than the stated errors "
+                    + "(overstated errors, or chance: with nu = %d its spread is %.2f); the uncertainties are "
+                    + "the stated errors' ones, not scaled down", reduced, dof, Math.sqrt(2.0 / dof)));
+        } else if (reduced > 2 && !estimated) {
             notes.add(String.format(Locale.ROOT, "chi2/nu = %.2f: the scatter is larger than the errors; the "
                     + "uncertainties were scaled up with it (consider --jitter fit, or look for an instrument with "
-                    + "an offset or a bad point)", scale));
+                    + "an offset or a bad point)", reduced));
+        }
+        if (dof < 10) {
+            notes.add(String.format(Locale.ROOT, "only %d degrees of freedom (%d velocities, %d fitted quantities): "
+                    + "the uncertainties rest on the stated errors and are themselves uncertain; more velocities "
+                    + "spread over the orbit would settle K1 and K2", dof, data.size(), layout.size()));
         }
         return new VelocityFitResult(p, est, List.copyOf(layout.names), corr, c, sigma1, sigma2, data.size(), chi2,
                 dof, rms(r.residual1()), rms(r.residual2()), iterations, estimated, notes);

@@ -105,16 +105,17 @@ public final class VelocityReader {
     private static void readTextRow(VelocityRows rows, int line, List<String> f, VelocityColumns c,
             boolean decimalComma) {
         if (c.time() >= f.size() || f.get(c.time()).isEmpty()) {
-            rows.reject(RowRejection.MISSING_FIELD);
+            rows.reject("time", RowRejection.MISSING_FIELD);
             return;
         }
         int[] idx = {c.time(), c.v1(), c.e1(), c.v2(), c.e2()};
+        String[] roles = {"time", "v1", "v1_err", "v2", "v2_err"};
         double[] x = new double[idx.length];
         for (int k = 0; k < idx.length; k++) {
             String s = idx[k] >= 0 && idx[k] < f.size() ? f.get(idx[k]) : "";
             x[k] = s.isEmpty() ? Double.NaN : TextTableReader.number(s, decimalComma);
             if (!s.isEmpty() && Double.isNaN(x[k]) && !TextTableReader.isNanToken(s)) {
-                rows.reject(RowRejection.NOT_A_NUMBER);
+                rows.reject(roles[k], RowRejection.NOT_A_NUMBER);
                 return;
             }
         }

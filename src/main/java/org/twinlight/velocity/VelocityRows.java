@@ -37,6 +37,11 @@ final class VelocityRows {
         rejected.merge(reason.label(), 1, Integer::sum);
     }
 
+    /** Counts a row dropped whole because of one column ({@code time}, {@code v1}, ...): "column: reason". */
+    void reject(String column, RowRejection reason) {
+        rejected.merge(column + ": " + reason.label(), 1, Integer::sum);
+    }
+
     /**
      * Adds a row whose time parsed.
      *
@@ -48,7 +53,7 @@ final class VelocityRows {
      */
     void add(int row, double time, double[] v, double[] e, String instrument) {
         if (!Double.isFinite(time)) {
-            reject(RowRejection.NOT_FINITE);
+            reject("time", RowRejection.NOT_FINITE);
             return;
         }
         boolean any = false;

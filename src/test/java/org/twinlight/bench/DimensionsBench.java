@@ -36,6 +36,14 @@ public final class DimensionsBench {
                 new double[] {0.0}, 0.0, 0.0);
         pulls("e = 0.25, e and omega free, 40 epochs", eccentric, Set.of("eccentricity", "omega"), false, 1.0, seeds);
         pulls("errors stated 4x too small, jitter fitted", circular, Set.of(), true, 0.25, seeds);
+        // small sets: errors never scaled down on a chance chi2/nu < 1 (expected spread 0.93-0.94 for
+        // nu = 5-9 under max(1, chi2/nu), 3.5 % beyond 2 sigma)
+        VelocityParameters single = new VelocityParameters(3.418276, 2460412.63415, 0.0, 90.0, 30.0, 40.0, -12.0,
+                new double[] {0.0}, 0.0, 0.0);
+        for (int epochs : new int[] {4, 6}) {
+            pulls("small set, " + epochs + " epochs (" + 2 * epochs + " velocities), sigma 5 km/s", single, Set.of(),
+                    false, 1.0, 5.0, epochs, 4 * seeds);
+        }
     }
 
     private static void timePropagation() {
@@ -95,6 +103,12 @@ public final class DimensionsBench {
 
     private static void pulls(String label, VelocityParameters truth, Set<String> free, boolean jitter,
             double statedFraction, int seeds) {
+        pulls(label, truth, free, jitter, statedFraction, Double.NaN, free.isEmpty() ? 30 : 40, seeds);
+    }
+
+    /** Pulls over seeds; {@code sigma} NaN for the 1.5 and 2.5 km/s of the large sets. */
+    private static void pulls(String label, VelocityParameters truth, Set<String> free, boolean jitter,
+            double statedFraction, double sigma, int epochs, int seeds) {
         String[] names = free.isEmpty() ? new String[] {"k1", "k2", "gamma"}
                 : new String[] {"k1", "k2", "gamma", "eccentricity", "omega"};
         double[] truths = {truth.k1Kms(), truth.k2Kms(), truth.gammaKms(), truth.eccentricity(), truth.omegaDeg()};
@@ -102,27 +116,37 @@ public final class DimensionsBench {
         for (int k = 0; k < names.length; k++) {
             pulls.add(new ArrayList<>());
         }
+        List<String> refused = new ArrayList<>();
         long t0 = System.nanoTime();
         for (int seed = 1; seed <= seeds; seed++) {
-            VelocityData d = SyntheticVelocities.make(truth, free.isEmpty() ? 30 : 40, 1.5, 2.5, truth.instrumentCount(),
-                    statedFraction, seed);
+            VelocityData d = SyntheticVelocities.make(truth, epochs, Double.isNaN(sigma) ? 1.5 : sigma,
+                    Double.isNaN(sigma) ? 2.5 : sigma, truth.instrumentCount(), statedFraction, seed);
             VelocityParameters start = new VelocityParameters(truth.periodDays(), truth.epochDays(),
                     truth.eccentricity() * 0.5, truth.omegaDeg() + 20, truth.k1Kms() * 0.8, truth.k2Kms() * 1.2,
                     truth.gammaKms() + 5, new double[truth.instrumentCount()], 0.0, 0.0);
-            VelocityFitResult r = VelocityFitter.fit(d, start, new VelocityFitSettings(free, 0, jitter, 200));
+            VelocityFitResult r;
+            try {
+                r = VelocityFitter.fit(d, start, new VelocityFitSettings(free, 0, jitter, 200));
+            } catch (org.twinlight.BadInputException | org.twinlight.WorkFailedException e) {
+                refused.add(e.getClass().getSimpleName() + ": " + e.getMessage());
+                continue;
+            }
             for (int k = 0; k < names.length; k++) {
                 pulls.get(k).add((r.estimate(names[k]).value() - truths[k]) / r.estimate(names[k]).uncertainty());
             }
         }
-        System.out.printf(Locale.ROOT, "%s, %d seeds (%.1f ms per fit):%n", label, seeds,
-                (System.nanoTime() - t0) / 1e6 / seeds);
+        System.out.printf(Locale.ROOT, "%s, %d seeds (%.1f ms per fit), %d refused:%n", label, seeds,
+                (System.nanoTime() - t0) / 1e6 / seeds, refused.size());
+        refused.stream().limit(3).forEach(m -> System.out.println("  refused: " + m));
+        System.out.println("  refused as bad input: " + refused.stream().filter(m -> m.startsWith("Bad")).count());
         for (int k = 0; k < names.length; k++) {
             double[] p = pulls.get(k).stream().mapToDouble(Double::doubleValue).toArray();
             double mean = java.util.Arrays.stream(p).average().orElseThrow();
             double sd = Math.sqrt(java.util.Arrays.stream(p).map(v -> (v - mean) * (v - mean)).sum() / (p.length - 1));
             long inside = java.util.Arrays.stream(p).filter(v -> Math.abs(v) <= 1).count();
-            System.out.printf(Locale.ROOT, "  %-13s pull mean %+.3f, spread %.3f, |pull| <= 1 in %.1f%%%n", names[k],
-                    mean, sd, 100.0 * inside / p.length);
+            long beyond2 = java.util.Arrays.stream(p).filter(v -> Math.abs(v) > 2).count();
+            System.out.printf(Locale.ROOT, "  %-13s pull mean %+.3f, spread %.3f, |pull| <= 1 in %.1f%%, > 2 in %.1f%%%n",
+                    names[k], mean, sd, 100.0 * inside / p.length, 100.0 * beyond2 / p.length);
         }
     }
 }

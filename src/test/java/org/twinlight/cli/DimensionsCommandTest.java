@@ -143,6 +143,57 @@ class DimensionsCommandTest extends CommandTestSupport {
         assertThat(err.toString()).contains("rv.csv").contains("v2").contains("star 2");
     }
 
+    @Test
+    void swappedStarsAreBadInputSayingWhatToTry() throws Exception {
+        Path fit = fitJson("BJD_TDB", "0.0", true);
+        Path rv = velocities("BJD_TDB", true);
+        Path out = dir.resolve("swapped");
+        int code = console.run("velocities", rv.toString(), "--model", fit.toString(), "--v1-column", "v2",
+                "--v1-error-column", "v2_err", "--v2-column", "v1", "--v2-error-column", "v1_err", "--out",
+                out.toString());
+        assertThat(code).as(err.toString()).isEqualTo(2);
+        assertThat(err.toString()).contains("rv.csv").contains("swapped").contains("half a period")
+                .contains("--v1-column").doesNotContain("Exception");
+        assertThat(out.resolve("velocities.json")).doesNotExist();
+        assertBad("--velocities", rv.toString(), "--v1-column", "v2", "--v1-error-column", "v2_err", "--v2-column",
+                "v1", "--v2-error-column", "v1_err");
+        assertThat(err.toString()).contains("swapped").contains("epoch");
+    }
+
+    @Test
+    void aFitJsonWithoutCorrelationsIsWarnedAbout() throws Exception {
+        Path fit = fitJson("BJD_TDB", "0.0", true);
+        String noCorr = Files.readString(fit).replaceAll("(?s)\"correlation\": \\{.*?\\]\\]\\},", "");
+        assertThat(noCorr).doesNotContain("correlation");
+        Files.writeString(fit, noCorr);
+        Path out = dir.resolve("nocorr");
+        int code = console.run("dimensions", "--fit", fit.toString(), "--k1", "95", "--k1-error", "0.5", "--k2", "118",
+                "--k2-error", "0.6", "--out", out.toString());
+        assertThat(code).as(err.toString()).isZero();
+        assertThat(this.out.toString()).contains("warning: ").contains("no 'correlation' block");
+        assertThat(json(out.resolve("dimensions.json")).at("/warnings").toString())
+                .contains("ignore their correlations").contains("radius2").contains("inclination");
+        assertThat(Files.readString(out.resolve("dimensions.txt"))).contains("# warning: ")
+                .contains("ignore their correlations");
+        // with the block there is no such warning
+        fitJson("BJD_TDB", "0.0", true);
+        Path out2 = dir.resolve("withcorr");
+        assertThat(console.run("dimensions", "--fit", fit.toString(), "--k1", "95", "--k2", "118", "--out",
+                out2.toString())).isZero();
+        assertThat(Files.readString(out2.resolve("dimensions.txt"))).doesNotContain("correlation");
+    }
+
+    @Test
+    void geometryThatCannotEclipseIsWarnedAbout() throws Exception {
+        Path fit = fitJson("BJD_TDB", "0.0", true);
+        Files.writeString(fit, Files.readString(fit).replace("88.2", "30.0"));
+        Path out = dir.resolve("tilted");
+        assertThat(console.run("dimensions", "--fit", fit.toString(), "--k1", "95", "--k2", "118", "--out",
+                out.toString())).as(err.toString()).isZero();
+        assertThat(Files.readString(out.resolve("dimensions.txt"))).contains("no eclipse");
+        assertThat(json(out.resolve("dimensions.json")).at("/warnings").toString()).contains("not from an eclipse");
+    }
+
     private void assertBad(String... options) {
         err.getBuffer().setLength(0);
         String[] args = new String[options.length + 5];

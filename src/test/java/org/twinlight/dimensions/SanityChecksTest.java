@@ -28,6 +28,29 @@ class SanityChecksTest {
     }
 
     @Test
+    void geometryThatCannotEclipseIsNamed() {
+        // i = 30°, r1 + r2 = 0.17: cos i = 0.866 ≫ 0.17, no eclipse at any phase
+        BinaryElements tilted = new BinaryElements(3.0, 0, 30, 90, 110, 0.10, 0.07, Double.NaN, Double.NaN, Double.NaN);
+        assertThat(SanityChecks.eclipseGeometry(tilted, 90)).contains("no eclipse").contains("0.8660")
+                .contains("not from an eclipse");
+        // circular, edge-on enough: cos i < r1 + r2 ⇔ i > acos(0.17) = 80.21°
+        assertThat(SanityChecks.eclipseGeometry(new BinaryElements(3.0, 0, 80.3, 90, 110, 0.10, 0.07, Double.NaN,
+                Double.NaN, Double.NaN), 0)).isNull();
+        assertThat(SanityChecks.eclipseGeometry(new BinaryElements(3.0, 0, 80.1, 90, 110, 0.10, 0.07, Double.NaN,
+                Double.NaN, Double.NaN), 0)).isNotNull();
+        // e = 0.5, ω = 90°: the primary conjunction is at r = a(1 − e²)/(1 + e sin ω) = 0.5 a (the orbit's
+        // polar equation, r = a(1 − e²)/(1 + e cos ν) with ν = 90° − ω; Murray & Dermott 1999, eq. 2.20),
+        // the secondary at 1.5 a; at i = 75° only the primary eclipses (0.5 cos i = 0.129 < 0.17), which is
+        // enough; at i = 70° (0.171) neither does
+        BinaryElements ecc75 = new BinaryElements(3.0, 0.5, 75, 90, 110, 0.10, 0.07, Double.NaN, Double.NaN, Double.NaN);
+        assertThat(SanityChecks.eclipseGeometry(ecc75, 90)).isNull();
+        BinaryElements ecc70 = new BinaryElements(3.0, 0.5, 70, 90, 110, 0.10, 0.07, Double.NaN, Double.NaN, Double.NaN);
+        assertThat(SanityChecks.eclipseGeometry(ecc70, 90)).isNotNull();
+        // ω = 270° puts the near conjunction at the secondary instead: still an eclipse at 75°
+        assertThat(SanityChecks.eclipseGeometry(ecc75, 270)).isNull();
+    }
+
+    @Test
     void aSunLikePairRaisesNoWarning() {
         AbsoluteDimensions d = AbsoluteDimensions.of(sunLike(0.09, 0.08, 5772, 5500));
         assertThat(SanityChecks.warnings(d, sunLike(0.09, 0.08, 5772, 5500))).isEmpty();

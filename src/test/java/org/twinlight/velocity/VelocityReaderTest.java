@@ -52,14 +52,16 @@ class VelocityReaderTest {
                 2460102,30;abc;0,9;-51,0;1,5
                 2460103,40;20,0;0,9;;
                 2460104,50;nan;0,9;nan;1,0
+                abc;12,0;0,9;-3,0;1,1
                 """);
         VelocityData d = VelocityReader.read(f, VelocityReadOptions.defaults().withTimeScale(TimeScale.HJD_UTC));
         assertThat(d.timeScale()).isEqualTo(TimeScale.HJD_UTC);
         // row 2: star 1's error is 0 (star 1 dropped, star 2 kept); row 3: not a number;
-        // row 4: star 2 absent; row 5: neither star measured
+        // row 4: star 2 absent; row 5: neither star measured; row 6: the time is not a number
         assertThat(d.star1().velocitiesKms()).containsExactly(-30.1, 20.0);
         assertThat(d.star2().velocitiesKms()).containsExactly(40.5, -3.0);
-        assertThat(d.rejected()).containsEntry("star 1: error not positive", 1).containsEntry("not a number", 1)
+        assertThat(d.rejected()).containsEntry("star 1: error not positive", 1).containsEntry("v1: not a number", 1)
+                .containsEntry("time: not a number", 1)
                 .containsEntry("missing field", 1);
         assertThat(d.star1().rowNumbers()).containsExactly(1, 4);
     }
