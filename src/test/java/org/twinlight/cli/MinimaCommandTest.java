@@ -163,6 +163,68 @@ class MinimaCommandTest {
         assertThat(o.toString()).contains("warning").contains("epoch may be a secondary minimum");
     }
 
+    /**
+     * Phase of the secondary conjunction after the primary one, from the exact Kepler solution:
+     * conjunctions at ν + ω = 90° (primary) and 270° (secondary) (Kallrath &amp; Milone 2009, Eclipsing
+     * Binary Stars, 2nd ed., §3.1), ν → E by tan(E/2) = √((1−e)/(1+e)) tan(ν/2), M = E − e sin E
+     * (Kepler's equation). At i = 89° the minimum lies within seconds of the conjunction.
+     */
+    private static double secondaryConjunctionPhase(double e, double omegaDeg) {
+        double[] meanAnomaly = new double[2];
+        for (int k = 0; k < 2; k++) {
+            double nu = Math.toRadians(90 + 180 * k - omegaDeg);
+            double ecc = 2 * Math.atan(Math.sqrt((1 - e) / (1 + e)) * Math.tan(nu / 2));
+            meanAnomaly[k] = ecc - e * Math.sin(ecc);
+        }
+        double phase = (meanAnomaly[1] - meanAnomaly[0]) / (2 * Math.PI);
+        return phase - Math.floor(phase);
+    }
+
+    /**
+     * e = 0.32, ω = 35°, P = 4.6123 d, 27 d at 2-min cadence, 800 ppm: the secondary lies at phase
+     * 0.668, inside the range searched around the default phase 0.5 but far from 0.5. It is found,
+     * said to be found, and every secondary is timed at the phase Kepler's equation gives.
+     */
+    @Test
+    void eccentricSecondaryAwayFromHalfPhaseIsFoundAndTimed(@TempDir Path dir) throws IOException {
+        double period = 4.6123;
+        double epoch = 2460100.5;
+        double e = 0.32;
+        double omegaDeg = 35;
+        double expected = secondaryConjunctionPhase(e, omegaDeg);
+        // First-order form, Kallrath & Milone 2009 eq. (3.1.24): e cos ω = (π/2)(Δφ − ½) gives 0.6669;
+        // the exact phase must lie near it (the e³ terms move it by < 0.002).
+        assertThat(expected).isCloseTo(0.5 + 2 / Math.PI * e * Math.cos(Math.toRadians(omegaDeg)), within(0.002));
+        Path model = dir.resolve("eccentric.model.json");
+        Files.writeString(model, String.format(Locale.ROOT, "{\"period\":%s,\"epoch\":%s,\"radius1\":0.08,"
+                + "\"radius2\":0.06,\"inclination\":89.0,\"eccentricity\":%s,\"omega\":%s,"
+                + "\"surfaceBrightnessRatio\":0.8,\"thirdLight\":0.0,"
+                + "\"limbDarkening1\":{\"law\":\"quadratic\",\"coefficients\":[0.4,0.2]},"
+                + "\"limbDarkening2\":{\"law\":\"quadratic\",\"coefficients\":[0.45,0.2]}}", period, epoch, e,
+                omegaDeg));
+        Path curve = dir.resolve("eccentric.csv");
+        StringWriter o = new StringWriter();
+        StringWriter err = new StringWriter();
+        int code = commandLine(o, err).execute("simulate", "--model", model.toString(), "--start", "2460100",
+                "--end", "2460127", "--cadence", "2", "--noise-ppm", "800", "--seed", "3", "--time-scale", "BJD_TDB",
+                "--out", curve.toString());
+        assertThat(code).as(err.toString()).isZero();
+        Path out = dir.resolve("out");
+        code = commandLine(o, err).execute("minima", curve.toString(), "--period", String.valueOf(period),
+                "--epoch", String.valueOf(epoch), "--out", out.toString());
+        assertThat(code).as(err.toString()).isZero();
+        assertThat(o.toString()).containsPattern("one is seen at phase 0\\.66[6-9]");
+        List<String[]> secondaries = Files.readAllLines(out.resolve("minima.csv")).stream()
+                .filter(l -> l.contains(",secondary,") && l.contains(",template,")).map(l -> l.split(",")).toList();
+        assertThat(secondaries).hasSize(6);
+        for (String[] row : secondaries) {
+            double cycle = Double.parseDouble(row[0]);
+            double phase = (Double.parseDouble(row[2]) - epoch) / period - Math.floor(cycle);
+            // 0.0002 phase = 80 s: the first-order phase (5 min away) or the default 0.5 cannot pass.
+            assertThat(phase).as("cycle %s", cycle).isCloseTo(expected, within(2e-4));
+        }
+    }
+
     /** Exit code and standard error of one run. */
     private record Run(int code, String err) {
     }
