@@ -173,6 +173,7 @@ public final class MinimaCommand implements Callable<Integer> {
         OutputTargets.checkDirectory(out, List.of("minima.csv", "ephemeris.json", "o-c.png", "minima-submission.txt"),
                 List.of(file));
         LightCurve lc = oneBand(photometry.readBands(file, o));
+        EpochChecks.near(epochDays, periodDays, lc.timesDays(), file.toString(), "option --epoch");
         String bandName = band != null ? band : lc.band();
         TimeScale dataScale = lc.timeScale();
         TimeScale scale = target != null ? target : dataScale;

@@ -238,6 +238,25 @@ class MinimaCommandTest {
         return new Run(code, e.toString());
     }
 
+    /** An epoch far from the data is refused naming --epoch and the cycles between, not --window. */
+    @Test
+    void epochFarFromTheDataIsExitTwoNamingTheEpoch(@TempDir Path dir) throws IOException {
+        Path file = writeLightCurve(dir);
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
+                "--epoch", "1e15", "--out", dir.resolve("out").toString(), "--allow-unknown-scale");
+        assertThat(code).isEqualTo(2);
+        // (1e15 − 2460020) / 2.5 = 4.0e14 cycles
+        assertThat(e.toString()).contains("--epoch").contains("4.00e+14 cycles").contains("after the data")
+                .doesNotContain("--window").doesNotContain("Exception");
+        // The epoch in the offset form JD − 2450000 (10000.3 for 2460000.3) names the full date.
+        code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
+                "--epoch", "10000.3", "--out", dir.resolve("out").toString(), "--allow-unknown-scale");
+        assertThat(code).isEqualTo(2);
+        assertThat(e.toString()).contains("JD − 2450000").contains("2460000.3");
+    }
+
     @Test
     void badFileExitsTwoNamingTheFile(@TempDir Path dir) throws IOException {
         Path file = dir.resolve("broken.csv");
