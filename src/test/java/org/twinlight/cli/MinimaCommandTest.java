@@ -258,6 +258,18 @@ class MinimaCommandTest {
     }
 
     @Test
+    void raWithoutDecNamesTheMissingOption(@TempDir Path dir) throws IOException {
+        Path file = writeLightCurve(dir);
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
+                "--epoch", String.valueOf(EPOCH), "--out", dir.resolve("out").toString(), "--allow-unknown-scale",
+                "--ra", "10");
+        assertThat(code).isEqualTo(2);
+        assertThat(e.toString()).contains("option --dec is missing").contains("only --ra was given");
+    }
+
+    @Test
     void badFileExitsTwoNamingTheFile(@TempDir Path dir) throws IOException {
         Path file = dir.resolve("broken.csv");
         Files.writeString(file, "this is not photometry\nat all\n");
