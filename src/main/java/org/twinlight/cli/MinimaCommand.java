@@ -241,6 +241,7 @@ public final class MinimaCommand implements Callable<Integer> {
         }
 
         printSummary(o, lc, scale, search, chosen, oc);
+        o.println("caution: " + EphemerisJson.CAUTION);
         o.flush();
         return 0;
     }

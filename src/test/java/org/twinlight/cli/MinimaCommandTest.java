@@ -111,7 +111,9 @@ class MinimaCommandTest {
         assertThat(csv).noneMatch(l -> l.startsWith("4,primary,") && l.contains(",kvw,"));
         assertThat(json.get("skipped")).isNotNull();
 
+        assertThat(json.get("caution").asText()).contains("symmetric").contains("before submission");
         String table = Files.readString(out.resolve("minima-submission.txt"));
+        assertThat(table).contains("# Caution: The times of minimum depend on").contains("before");
         assertThat(table).contains("Time scale: BJD_TDB").contains("OBSERVER").contains("A. Nonymous")
                 .contains("FILTER").contains("# Object: Synthetic Pair 1")
                 .contains("RA 12:34:56.78 = 188.736583 deg, Dec -05:06:07.8 = -5.102167 deg");
