@@ -91,7 +91,7 @@ public final class EphemerisJson {
                 m.put("value", 0.5 + off.value() / p); // cycles of secondaries are n + 0.5
                 number(m, "uncertainty", off.uncertainty() / p);
                 // fixed at the folded light curve's value when the timings could not fit it
-                m.put("fittedToTimings", c.oc().modelNotes().stream().noneMatch(n -> n.contains("cannot be separated")));
+                m.put("fittedToTimings", !c.oc().secondaryOffsetFixed());
             });
         }
         ObjectNode given = root.putObject("givenEphemeris");

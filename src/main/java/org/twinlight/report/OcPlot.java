@@ -62,10 +62,20 @@ public final class OcPlot {
             addCurve(chart, result.linear(), MinimumType.PRIMARY, minE, maxE,
                     linearAnswer ? "linear ephemeris: no significant period change" : "linear ephemeris",
                     linearAnswer ? Color.DARK_GRAY : Color.GRAY, linearAnswer ? 2.2f : 1.2f);
-            result.linear().parameter("secondaryOffset").ifPresent(offset -> addCurve(chart, result.linear(),
-                    MinimumType.SECONDARY, minE, maxE, "linear ephemeris, secondary minima ("
-                            + (Double.isNaN(offset.uncertainty()) ? "offset fixed at the measured phase" : "fitted offset")
-                            + ")", PlotFiles.SECOND.brighter(), 1.2f));
+            // The linear fit's secondary line only where the linear ephemeris is the answer: under an
+            // accepted period change its offset means nothing. A fixed offset is dashed, so that a line
+            // at zero offset does not hide the primary one beneath it.
+            result.linear().parameter("secondaryOffset").filter(offset -> linearAnswer).ifPresent(offset -> {
+                boolean fixed = result.secondaryOffsetFixed();
+                XYSeries line = addCurve(chart, result.linear(), MinimumType.SECONDARY, minE, maxE,
+                        String.format(Locale.ROOT, "linear ephemeris, secondary minima (offset %s %.2f min%s)",
+                                fixed ? "fixed at" : "fitted:", offset.value() * MINUTES_PER_DAY,
+                                fixed ? ", from the folded light curve" : ""), PlotFiles.SECOND.brighter(), 1.6f);
+                if (fixed) {
+                    line.setLineStyle(new BasicStroke(1.6f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
+                            new float[] {8f, 6f}, 0f));
+                }
+            });
             if (!linearAnswer) {
                 String name = String.format(Locale.ROOT, "%s (ΔBIC = %.1f against linear, > %.0f; checks passed)",
                         preferred.model() == EphemerisModel.QUADRATIC ? "quadratic ephemeris" : "light-time orbit",
@@ -111,15 +121,17 @@ public final class OcPlot {
         s.setLineColor(color);
     }
 
-    private static void addCurve(XYChart chart, EphemerisFit fit, MinimumType type, double minE, double maxE,
+    private static XYSeries addCurve(XYChart chart, EphemerisFit fit, MinimumType type, double minE, double maxE,
             String name, Color color, float width) {
         double span = Math.max(maxE - minE, 1);
         double from = minE - 0.03 * span;
         double to = maxE + 0.03 * span;
-        double[] x = new double[CURVE_POINTS];
-        double[] y = new double[CURVE_POINTS];
-        for (int i = 0; i < CURVE_POINTS; i++) {
-            x[i] = from + (to - from) * i / (CURVE_POINTS - 1);
+        // A straight line as one segment: many short ones are drawn as steps of whole pixels.
+        int count = fit.model() == EphemerisModel.LINEAR ? 2 : CURVE_POINTS;
+        double[] x = new double[count];
+        double[] y = new double[count];
+        for (int i = 0; i < count; i++) {
+            x[i] = from + (to - from) * i / (count - 1);
             y[i] = fit.ocModelDays(x[i], type) * MINUTES_PER_DAY;
         }
         XYSeries s = chart.addSeries(name, x, y);
@@ -127,5 +139,6 @@ public final class OcPlot {
         s.setMarker(SeriesMarkers.NONE);
         s.setLineColor(color);
         s.setLineStyle(new BasicStroke(width));
+        return s;
     }
 }
