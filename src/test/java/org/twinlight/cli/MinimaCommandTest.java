@@ -169,7 +169,8 @@ class MinimaCommandTest {
      * Phase of the secondary conjunction after the primary one, from the exact Kepler solution:
      * conjunctions at ν + ω = 90° (primary) and 270° (secondary) (Kallrath &amp; Milone 2009, Eclipsing
      * Binary Stars, 2nd ed., §3.1), ν → E by tan(E/2) = √((1−e)/(1+e)) tan(ν/2), M = E − e sin E
-     * (Kepler's equation). At i = 89° the minimum lies within seconds of the conjunction.
+     * (Kepler's equation). At i = 89° the least projected separation, hence the minimum, comes 8 s after
+     * the secondary conjunction (the (dr/dν)/r · cos²i term; independent estimate in docs/timing.md).
      */
     private static double secondaryConjunctionPhase(double e, double omegaDeg) {
         double[] meanAnomaly = new double[2];
