@@ -233,7 +233,8 @@ public final class MinimaCommand implements Callable<Integer> {
             EphemerisJson.write(set.file("ephemeris.json"), new EphemerisJson.Content(given, oc, search, chosen,
                     secondaryPhase, source, InputDigest.sha256(file), version), lc.notes());
             OcPlot.write(set.file("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
-                    reference.epochDays(), reference.periodDays()), scale, chosen.label());
+                    reference.epochDays(), reference.periodDays()), scale, chosen.label(), search.secondaryPhase(),
+                    reference.periodDays());
             MinimaSubmissionTable.write(set.file("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,
                     scale, convert ? dataScale : null, source, reference, object, direction, observer, bandName,
                     version));
