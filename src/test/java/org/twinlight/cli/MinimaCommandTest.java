@@ -241,35 +241,37 @@ class MinimaCommandTest {
         return new Run(code, e.toString());
     }
 
+    /** Runs minima on the synthetic light curve with the given --epoch and extra options (unknown scale allowed). */
+    private static Run runWithEpoch(Path dir, String epoch, String... extra) throws IOException {
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        List<String> args = new java.util.ArrayList<>(List.of("minima", writeLightCurve(dir).toString(), "--period",
+                String.valueOf(PERIOD), "--epoch", epoch, "--out", dir.resolve("out").toString(),
+                "--allow-unknown-scale"));
+        args.addAll(List.of(extra));
+        int code = commandLine(o, e).execute(args.toArray(String[]::new));
+        return new Run(code, e.toString());
+    }
+
     /** An epoch far from the data is refused naming --epoch and the cycles between, not --window. */
     @Test
     void epochFarFromTheDataIsExitTwoNamingTheEpoch(@TempDir Path dir) throws IOException {
-        Path file = writeLightCurve(dir);
-        StringWriter o = new StringWriter();
-        StringWriter e = new StringWriter();
-        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
-                "--epoch", "1e15", "--out", dir.resolve("out").toString(), "--allow-unknown-scale");
-        assertThat(code).isEqualTo(2);
+        Run r = runWithEpoch(dir, "1e15");
+        assertThat(r.code()).isEqualTo(2);
         // (1e15 − 2460020) / 2.5 = 4.0e14 cycles
-        assertThat(e.toString()).contains("--epoch").contains("4.00e+14 cycles").contains("after the data")
+        assertThat(r.err()).contains("--epoch").contains("4.00e+14 cycles").contains("after the data")
                 .doesNotContain("--window").doesNotContain("Exception");
         // The epoch in the offset form JD − 2450000 (10000.3 for 2460000.3) names the full date.
-        code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
-                "--epoch", "10000.3", "--out", dir.resolve("out").toString(), "--allow-unknown-scale");
-        assertThat(code).isEqualTo(2);
-        assertThat(e.toString()).contains("JD − 2450000").contains("2460000.3");
+        r = runWithEpoch(dir, "10000.3");
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("JD − 2450000").contains("2460000.3");
     }
 
     @Test
     void raWithoutDecNamesTheMissingOption(@TempDir Path dir) throws IOException {
-        Path file = writeLightCurve(dir);
-        StringWriter o = new StringWriter();
-        StringWriter e = new StringWriter();
-        int code = commandLine(o, e).execute("minima", file.toString(), "--period", String.valueOf(PERIOD),
-                "--epoch", String.valueOf(EPOCH), "--out", dir.resolve("out").toString(), "--allow-unknown-scale",
-                "--ra", "10");
-        assertThat(code).isEqualTo(2);
-        assertThat(e.toString()).contains("option --dec is missing").contains("only --ra was given");
+        Run r = runWithEpoch(dir, String.valueOf(EPOCH), "--ra", "10");
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("option --dec is missing").contains("only --ra was given");
     }
 
     @Test
