@@ -165,9 +165,9 @@ public final class FitCommand implements Callable<Integer> {
         } else if (!startFrom.trim().equalsIgnoreCase("model")) {
             throw new BadInputException("option --start: expected model or auto, got '" + startFrom + "'");
         }
-        for (FitData d : data) {
-            EpochChecks.near(start.common().epochDays(), start.common().periodDays(), d.lightCurve().timesDays(),
-                    d.lightCurve().source(), model + ": key 'epoch'");
+        for (int i = 0; i < data.size(); i++) {
+            EpochChecks.near(start.common().epochDays(), start.common().periodDays(),
+                    data.get(i).lightCurve().timesDays(), files.get(i).toString(), model + ": key 'epoch'");
         }
         FitResult r = EclipseFitter.fit(start, data, settings);
 
