@@ -165,6 +165,10 @@ public final class FitCommand implements Callable<Integer> {
         } else if (!startFrom.trim().equalsIgnoreCase("model")) {
             throw new BadInputException("option --start: expected model or auto, got '" + startFrom + "'");
         }
+        for (int i = 0; i < data.size(); i++) {
+            EpochChecks.near(start.common().epochDays(), start.common().periodDays(),
+                    data.get(i).lightCurve().timesDays(), files.get(i).toString(), model + ": key 'epoch'");
+        }
         FitResult r = EclipseFitter.fit(start, data, settings);
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,

@@ -173,6 +173,7 @@ public final class MinimaCommand implements Callable<Integer> {
         OutputTargets.checkDirectory(out, List.of("minima.csv", "ephemeris.json", "o-c.png", "minima-submission.txt"),
                 List.of(file));
         LightCurve lc = oneBand(photometry.readBands(file, o));
+        EpochChecks.near(epochDays, periodDays, lc.timesDays(), file.toString(), "option --epoch");
         String bandName = band != null ? band : lc.band();
         TimeScale dataScale = lc.timeScale();
         TimeScale scale = target != null ? target : dataScale;
@@ -232,7 +233,8 @@ public final class MinimaCommand implements Callable<Integer> {
             EphemerisJson.write(set.file("ephemeris.json"), new EphemerisJson.Content(given, oc, search, chosen,
                     secondaryPhase, source, InputDigest.sha256(file), version), lc.notes());
             OcPlot.write(set.file("o-c.png"), points, oc, String.format(Locale.ROOT, "T0 = %.6f, P = %.8f d",
-                    reference.epochDays(), reference.periodDays()), scale, chosen.label());
+                    reference.epochDays(), reference.periodDays()), scale, chosen.label(), search.secondaryPhase(),
+                    reference.periodDays());
             MinimaSubmissionTable.write(set.file("minima-submission.txt"), new MinimaSubmissionTable.Content(timings,
                     scale, convert ? dataScale : null, source, reference, object, direction, observer, bandName,
                     version));
@@ -240,6 +242,7 @@ public final class MinimaCommand implements Callable<Integer> {
         }
 
         printSummary(o, lc, scale, search, chosen, oc);
+        o.println("caution: " + EphemerisJson.CAUTION);
         o.flush();
         return 0;
     }

@@ -18,9 +18,16 @@ final class SkyPositionOptions {
      * @throws BadInputException naming the option that is missing or cannot be read
      */
     static SkyDirection parse(String ra, String dec, String why) {
-        if (ra == null || dec == null) {
+        if (ra == null && dec == null) {
             throw new BadInputException(why + " needs the target's position: give --ra and --dec (J2000; degrees, "
                     + "or hh:mm:ss.s and ±dd:mm:ss)");
+        }
+        if (ra == null || dec == null) {
+            String given = ra == null ? "--dec" : "--ra";
+            String missing = ra == null ? "--ra" : "--dec";
+            throw new BadInputException("option " + missing + " is missing: " + why + " needs the target's position, "
+                    + "and only " + given + " was given; give " + missing + " too (J2000; degrees, or "
+                    + (ra == null ? "hh:mm:ss.s" : "±dd:mm:ss") + ")");
         }
         double raDeg;
         double decDeg;

@@ -46,6 +46,14 @@ public final class EphemerisJson {
             double secondaryPhase, String inputFile, String inputSha256, String softwareVersion) {
     }
 
+    /** The caution every minima result carries. */
+    public static final String CAUTION = "The times of minimum depend on the methods' assumptions: each eclipse is "
+            + "taken as symmetric about its minimum (template fit, Kwee-van Woerden), the windows and the secondary "
+            + "phase are as stated, and the errors come from the scatter of the light curve, scaled up for noise "
+            + "correlated in time. Spots, a trend across an eclipse or an eccentric orbit can move a minimum away "
+            + "from the conjunction. Check them (O-C plot, kvw-tpl differences, skipped eclipses) before "
+            + "submission.";
+
     private static final ObjectMapper MAPPER = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 
     private EphemerisJson() {
@@ -68,6 +76,7 @@ public final class EphemerisJson {
             root.set("period", quantity(c.given().periodDays(), Double.NaN));
         }
         root.put("fitted", c.oc() != null);
+        root.put("caution", CAUTION);
         root.put("timeScale", c.search().timeScale().label());
         root.put("method", c.method().label());
         // where secondaries were looked for, and where the linear ephemeris puts them (offset fitted)
@@ -82,7 +91,7 @@ public final class EphemerisJson {
                 m.put("value", 0.5 + off.value() / p); // cycles of secondaries are n + 0.5
                 number(m, "uncertainty", off.uncertainty() / p);
                 // fixed at the folded light curve's value when the timings could not fit it
-                m.put("fittedToTimings", c.oc().modelNotes().stream().noneMatch(n -> n.contains("cannot be separated")));
+                m.put("fittedToTimings", !c.oc().secondaryOffsetFixed());
             });
         }
         ObjectNode given = root.putObject("givenEphemeris");

@@ -41,6 +41,20 @@ public final class MinimaSubmissionTable {
     private MinimaSubmissionTable() {
     }
 
+    /** The text as comment lines of at most about 100 characters, broken between words. */
+    private static String wrappedComment(String text) {
+        StringBuilder out = new StringBuilder();
+        StringBuilder line = new StringBuilder("#");
+        for (String word : text.split(" ")) {
+            if (line.length() + 1 + word.length() > 100 && line.length() > 1) {
+                out.append(line).append('\n');
+                line = new StringBuilder("#");
+            }
+            line.append(' ').append(word);
+        }
+        return out.append(line).append('\n').toString();
+    }
+
     public static void write(Path target, Content c) {
         boolean withFilter = c.filter() != null && !c.filter().isBlank();
         boolean withObserver = c.observer() != null && !c.observer().isBlank();
@@ -64,6 +78,7 @@ public final class MinimaSubmissionTable {
         sb.append('\n');
         sb.append(String.format(Locale.ROOT, "# Ephemeris of CYCLE and O-C: Min I = %.8f + %.10f * E%n",
                 c.ephemeris().epochDays(), c.ephemeris().periodDays()));
+        sb.append(wrappedComment("Caution: " + EphemerisJson.CAUTION));
         sb.append("#\n# Columns (separated by spaces; lines starting with # are comments):\n");
         sb.append("#   TIME      time of minimum, days, in the time scale above\n");
         sb.append("#   ERROR     1-sigma uncertainty of TIME, days\n");

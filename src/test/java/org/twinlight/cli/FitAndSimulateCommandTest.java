@@ -185,16 +185,42 @@ class FitAndSimulateCommandTest {
         assertThat(r.err()).contains("radiusX");
     }
 
+    /** sim.csv: the model from {@code start} to {@code end} at 10-min cadence, 500 ppm. */
+    private Path simulated(Path model, String start, String end) {
+        Path csv = dir.resolve("sim.csv");
+        assertThat(run("simulate", "--model", model.toString(), "--start", start, "--end", end,
+                "--cadence", "10", "--noise-ppm", "500", "--out", csv.toString()).code()).isZero();
+        return csv;
+    }
+
     @Test
     void startingModelWithNoEclipseInTheDataIsExitOneWithAdvice() throws Exception {
         Path model = Files.writeString(dir.resolve("model.json"), MODEL);
-        Path csv = dir.resolve("sim.csv");
         // times between eclipses only
-        assertThat(run("simulate", "--model", model.toString(), "--start", "2460300.5", "--end", "2460300.9",
-                "--cadence", "10", "--noise-ppm", "500", "--out", csv.toString()).code()).isZero();
+        Path csv = simulated(model, "2460300.5", "2460300.9");
         Run r = run("fit", csv.toString(), "--model", model.toString(), "--out", dir.resolve("o").toString());
         assertThat(r.code()).isEqualTo(1);
         assertThat(r.err()).contains("no eclipse").contains("epoch");
+    }
+
+    /**
+     * A model epoch in the offset form BJD − 2457000 (3300.25 for 2460300.25) against full Julian
+     * dates: refused (exit 2) naming the model file, the key and the full date, not left to end in
+     * "no eclipse"; an epoch in MJD form likewise.
+     */
+    @Test
+    void modelEpochInAnOffsetFormIsExitTwoNamingTheOffset() throws Exception {
+        Path csv = simulated(Files.writeString(dir.resolve("model.json"), MODEL), "2460300", "2460303");
+        Path offset = Files.writeString(dir.resolve("offset.json"), MODEL.replace("2460300.25", "3300.25"));
+        Run r = run("fit", csv.toString(), "--model", offset.toString(), "--out", dir.resolve("o").toString());
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("offset.json").contains("key 'epoch'").contains("BJD − 2457000")
+                .contains("2460300.25").doesNotContain("no eclipse").doesNotContain("Exception");
+        // MJD 60299.75 = JD 2460300.25 (MJD = JD − 2400000.5)
+        Path mjd = Files.writeString(dir.resolve("mjd.json"), MODEL.replace("2460300.25", "60299.75"));
+        r = run("fit", csv.toString(), "--model", mjd.toString(), "--out", dir.resolve("o").toString());
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("mjd.json").contains("key 'epoch'").contains("MJD").contains("2460300.25");
     }
 
     @Test

@@ -111,7 +111,9 @@ class MinimaCommandTest {
         assertThat(csv).noneMatch(l -> l.startsWith("4,primary,") && l.contains(",kvw,"));
         assertThat(json.get("skipped")).isNotNull();
 
+        assertThat(json.get("caution").asText()).contains("symmetric").contains("before submission");
         String table = Files.readString(out.resolve("minima-submission.txt"));
+        assertThat(table).contains("# Caution: The times of minimum depend on").contains("before");
         assertThat(table).contains("Time scale: BJD_TDB").contains("OBSERVER").contains("A. Nonymous")
                 .contains("FILTER").contains("# Object: Synthetic Pair 1")
                 .contains("RA 12:34:56.78 = 188.736583 deg, Dec -05:06:07.8 = -5.102167 deg");
@@ -163,6 +165,69 @@ class MinimaCommandTest {
         assertThat(o.toString()).contains("warning").contains("epoch may be a secondary minimum");
     }
 
+    /**
+     * Phase of the secondary conjunction after the primary one, from the exact Kepler solution:
+     * conjunctions at ν + ω = 90° (primary) and 270° (secondary) (Kallrath &amp; Milone 2009, Eclipsing
+     * Binary Stars, 2nd ed., §3.1), ν → E by tan(E/2) = √((1−e)/(1+e)) tan(ν/2), M = E − e sin E
+     * (Kepler's equation). At i = 89° the least projected separation, hence the minimum, comes 8 s after
+     * the secondary conjunction (the (dr/dν)/r · cos²i term; independent estimate in docs/timing.md).
+     */
+    private static double secondaryConjunctionPhase(double e, double omegaDeg) {
+        double[] meanAnomaly = new double[2];
+        for (int k = 0; k < 2; k++) {
+            double nu = Math.toRadians(90 + 180 * k - omegaDeg);
+            double ecc = 2 * Math.atan(Math.sqrt((1 - e) / (1 + e)) * Math.tan(nu / 2));
+            meanAnomaly[k] = ecc - e * Math.sin(ecc);
+        }
+        double phase = (meanAnomaly[1] - meanAnomaly[0]) / (2 * Math.PI);
+        return phase - Math.floor(phase);
+    }
+
+    /**
+     * e = 0.32, ω = 35°, P = 4.6123 d, 27 d at 2-min cadence, 800 ppm: the secondary lies at phase
+     * 0.668, inside the range searched around the default phase 0.5 but far from 0.5. It is found,
+     * said to be found, and every secondary is timed at the phase Kepler's equation gives.
+     */
+    @Test
+    void eccentricSecondaryAwayFromHalfPhaseIsFoundAndTimed(@TempDir Path dir) throws IOException {
+        double period = 4.6123;
+        double epoch = 2460100.5;
+        double e = 0.32;
+        double omegaDeg = 35;
+        double expected = secondaryConjunctionPhase(e, omegaDeg);
+        // First-order form, Kallrath & Milone 2009 eq. (3.1.24): e cos ω = (π/2)(Δφ − ½) gives 0.6669;
+        // the exact phase must lie near it (the e³ terms move it by < 0.002).
+        assertThat(expected).isCloseTo(0.5 + 2 / Math.PI * e * Math.cos(Math.toRadians(omegaDeg)), within(0.002));
+        Path model = dir.resolve("eccentric.model.json");
+        Files.writeString(model, String.format(Locale.ROOT, "{\"period\":%s,\"epoch\":%s,\"radius1\":0.08,"
+                + "\"radius2\":0.06,\"inclination\":89.0,\"eccentricity\":%s,\"omega\":%s,"
+                + "\"surfaceBrightnessRatio\":0.8,\"thirdLight\":0.0,"
+                + "\"limbDarkening1\":{\"law\":\"quadratic\",\"coefficients\":[0.4,0.2]},"
+                + "\"limbDarkening2\":{\"law\":\"quadratic\",\"coefficients\":[0.45,0.2]}}", period, epoch, e,
+                omegaDeg));
+        Path curve = dir.resolve("eccentric.csv");
+        StringWriter o = new StringWriter();
+        StringWriter err = new StringWriter();
+        int code = commandLine(o, err).execute("simulate", "--model", model.toString(), "--start", "2460100",
+                "--end", "2460127", "--cadence", "2", "--noise-ppm", "800", "--seed", "3", "--time-scale", "BJD_TDB",
+                "--out", curve.toString());
+        assertThat(code).as(err.toString()).isZero();
+        Path out = dir.resolve("out");
+        code = commandLine(o, err).execute("minima", curve.toString(), "--period", String.valueOf(period),
+                "--epoch", String.valueOf(epoch), "--out", out.toString());
+        assertThat(code).as(err.toString()).isZero();
+        assertThat(o.toString()).containsPattern("one is seen at phase 0\\.66[6-9]");
+        List<String[]> secondaries = Files.readAllLines(out.resolve("minima.csv")).stream()
+                .filter(l -> l.contains(",secondary,") && l.contains(",template,")).map(l -> l.split(",")).toList();
+        assertThat(secondaries).hasSize(6);
+        for (String[] row : secondaries) {
+            double cycle = Double.parseDouble(row[0]);
+            double phase = (Double.parseDouble(row[2]) - epoch) / period - Math.floor(cycle);
+            // 0.0002 phase = 80 s: the first-order phase (5 min away) or the default 0.5 cannot pass.
+            assertThat(phase).as("cycle %s", cycle).isCloseTo(expected, within(2e-4));
+        }
+    }
+
     /** Exit code and standard error of one run. */
     private record Run(int code, String err) {
     }
@@ -174,6 +239,39 @@ class MinimaCommandTest {
         int code = commandLine(o, e).execute("minima", file.toString(), "--period", period, "--epoch", "2460000.3",
                 "--out", dir.resolve("out").toString());
         return new Run(code, e.toString());
+    }
+
+    /** Runs minima on the synthetic light curve with the given --epoch and extra options (unknown scale allowed). */
+    private static Run runWithEpoch(Path dir, String epoch, String... extra) throws IOException {
+        StringWriter o = new StringWriter();
+        StringWriter e = new StringWriter();
+        List<String> args = new java.util.ArrayList<>(List.of("minima", writeLightCurve(dir).toString(), "--period",
+                String.valueOf(PERIOD), "--epoch", epoch, "--out", dir.resolve("out").toString(),
+                "--allow-unknown-scale"));
+        args.addAll(List.of(extra));
+        int code = commandLine(o, e).execute(args.toArray(String[]::new));
+        return new Run(code, e.toString());
+    }
+
+    /** An epoch far from the data is refused naming --epoch and the cycles between, not --window. */
+    @Test
+    void epochFarFromTheDataIsExitTwoNamingTheEpoch(@TempDir Path dir) throws IOException {
+        Run r = runWithEpoch(dir, "1e15");
+        assertThat(r.code()).isEqualTo(2);
+        // (1e15 − 2460020) / 2.5 = 4.0e14 cycles
+        assertThat(r.err()).contains("--epoch").contains("4.00e+14 cycles").contains("after the data")
+                .doesNotContain("--window").doesNotContain("Exception");
+        // The epoch in the offset form JD − 2450000 (10000.3 for 2460000.3) names the full date.
+        r = runWithEpoch(dir, "10000.3");
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("JD − 2450000").contains("2460000.3");
+    }
+
+    @Test
+    void raWithoutDecNamesTheMissingOption(@TempDir Path dir) throws IOException {
+        Run r = runWithEpoch(dir, String.valueOf(EPOCH), "--ra", "10");
+        assertThat(r.code()).isEqualTo(2);
+        assertThat(r.err()).contains("option --dec is missing").contains("only --ra was given");
     }
 
     @Test

@@ -83,6 +83,11 @@ public final class MinimumFinder {
                     eph.epochDays(), p, lc.source()));
         }
         List<String> notes = new ArrayList<>();
+        if (secondary != null && Math.abs(secondary.centreShiftDays()) >= 0.5 * secondary.durationDays()) {
+            // The deepest dip of the look range lies away from the expected phase (an eccentric orbit):
+            // it is not the secondary at sp, and the search below places it.
+            secondary = null;
+        }
         if (secondary == null && primary != null) {
             // No secondary where expected: look at every other phase (an eccentric orbit can put it
             // anywhere, even right next to the primary).

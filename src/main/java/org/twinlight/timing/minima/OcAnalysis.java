@@ -33,6 +33,8 @@ import org.twinlight.WorkFailedException;
  * widens them.
  */
 public final class OcAnalysis {
+    /** Words of the note given when the secondary offset is fixed instead of fitted. */
+    static final String OFFSET_NOT_SEPARABLE = "cannot be separated";
 
     /** Fewest timings for which the light-time model is tried. */
     public static final int MIN_TIMINGS_FOR_LIGHT_TIME = 15;
@@ -114,8 +116,8 @@ public final class OcAnalysis {
                     / pooled.parameter("period").orElseThrow().uncertainty();
             if (inflation > MAX_PERIOD_ERROR_INFLATION) {
                 fixedOffset = Double.isFinite(measuredSecondaryOffsetDays) ? measuredSecondaryOffsetDays : 0;
-                secondaryNote = String.format(Locale.ROOT, "the secondary offset from phase 0.5 cannot be separated "
-                        + "from the period with these timings (fitting it would widen the period's error %.1f-fold, "
+                secondaryNote = String.format(Locale.ROOT, "the secondary offset from phase 0.5 " + OFFSET_NOT_SEPARABLE
+                        + " from the period with these timings (fitting it would widen the period's error %.1f-fold, "
                         + "e.g. primaries and secondaries from different seasons): it is fixed at %.2f min, %s",
                         inflation, fixedOffset * 1440, Double.isFinite(measuredSecondaryOffsetDays)
                                 ? "the offset measured in the folded light curve" : "i.e. the secondary at phase 0.5");

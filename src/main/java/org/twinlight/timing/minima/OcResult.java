@@ -48,6 +48,14 @@ public record OcResult(Ephemeris reference, List<OcPoint> points, EphemerisFit l
         return OcModelChoice.STRONG_DELTA_BIC;
     }
 
+    /**
+     * True when the secondary offset from phase 0.5 was fixed at the value measured in the folded
+     * light curve instead of fitted to the timings (see {@link OcAnalysis}).
+     */
+    public boolean secondaryOffsetFixed() {
+        return modelNotes.stream().anyMatch(n -> n.contains(OcAnalysis.OFFSET_NOT_SEPARABLE));
+    }
+
     /** Every fitted model, linear first. */
     public List<EphemerisFit> fits() {
         return Stream.of(linear, quadratic, lightTime).filter(Objects::nonNull).toList();
