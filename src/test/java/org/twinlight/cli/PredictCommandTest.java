@@ -10,6 +10,12 @@ import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 
+/**
+ * The predict command as a user runs it: help, the contract's output columns, target lists and bad input.
+ * The ephemerides here are demo inputs (invented numbers for a fictional target, not check values);
+ * the physics of the predictions is checked against its published sources in PlannerTest and
+ * SkyReferenceTest.
+ */
 class PredictCommandTest extends CommandTestSupport {
 
     /** The contract's columns of predictions.csv (INTERFACE.md, "predict"), then reason. */

@@ -15,7 +15,7 @@ class RadialVelocityCurveTest {
     }
 
     /*
-     * The expected velocities come from an independent Kepler solution (BisectionKepler: bisection on
+     * Source of the expected velocities: an independent Kepler solution (BisectionKepler: bisection on
      * M = E − e sin E, no shared code) and the textbook form v₁ = γ + K₁[cos(ν+ω) + e cos ω] (Hilditch
      * 2001, An Introduction to Close Binary Stars, eq. 2.45; convention of the interface contract).
      */
