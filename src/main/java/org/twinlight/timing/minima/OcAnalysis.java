@@ -111,6 +111,7 @@ public final class OcAnalysis {
         double[] ocFit = oc.clone();
         double fixedOffset = Double.NaN;
         if (withSecondary) {
+            EphemerisFit free = linear;
             EphemerisFit pooled = polynomial(EphemerisModel.LINEAR, cycle, secondary, oc, sigma, reference, false);
             double inflation = linear.parameter("period").orElseThrow().uncertainty()
                     / pooled.parameter("period").orElseThrow().uncertainty();
@@ -139,6 +140,15 @@ public final class OcAnalysis {
                             offsetError);
                     secondaryNote += String.format(Locale.ROOT, " ± %.2f min (its resolution, carried into the epoch"
                             + " and period errors)", offsetError * 1440);
+                }
+                if (linear.parameter("period").orElseThrow().uncertainty()
+                        >= free.parameter("period").orElseThrow().uncertainty()) {
+                    // the folded light curve places the secondary no better than the timings do: fit it
+                    linear = free;
+                    withSecondary = true;
+                    ocFit = oc.clone();
+                    fixedOffset = Double.NaN;
+                    secondaryNote = null;
                 }
             }
         }

@@ -222,31 +222,37 @@ class OcAnalysisTest {
 
     /**
      * Regression: a short ground run, primaries on the first nights and secondaries on the last, with
-     * the folded-curve offset off by one bin (−3.4 min where the truth is 0). The fixed offset's
-     * resolution must reach the period's error: the true period stays within 2σ (it was 5σ off when
-     * the offset was taken as exact). The expected shift of the period, offset error / cycle
-     * separation, is written out here.
+     * the folded-curve offset off by its resolution (−3.4 min where the truth is 0). Taken as exact it
+     * made the period 5σ wrong. Now the offset's resolution reaches the period's error, and when the
+     * folded curve places the secondary no better than the timings do, the offset is fitted instead
+     * of fixed. The expected shift of the period, offset error / cycle separation, is written out here.
      */
     @Test
-    void uncertainFixedOffsetWidensThePeriodError() {
+    void uncertainFixedOffsetNeverMakesAConfidentWrongPeriod() {
         double sigma = 15.0 / 86400;
-        double binError = 3.4 / 1440;
         List<MinimumTime> list = new ArrayList<>();
-        for (double c : new double[] {0, 1}) {
+        for (double c : new double[] {0, 1, 2}) {
             list.add(MinimumTime.of(c, MinimumType.PRIMARY, calculated(c), sigma, MinimumMethod.TEMPLATE));
         }
-        for (double c : new double[] {2.5, 3.5}) {
+        for (double c : new double[] {6.5, 7.5}) {
             list.add(MinimumTime.of(c, MinimumType.SECONDARY, calculated(c), sigma, MinimumMethod.TEMPLATE));
         }
-        OcResult r = OcAnalysis.analyse(list, REFERENCE, false, -binError, binError);
+        // A coarse measurement (3.4 min): fixing it would be worse than fitting the offset, so it is fitted.
+        double coarse = 3.4 / 1440;
+        OcResult r = OcAnalysis.analyse(list, REFERENCE, false, -coarse, coarse);
         EphemerisParameter period = r.linear().parameter("period").orElseThrow();
-        // a wrong offset δ moves the period by about δ / (mean secondary cycle − mean primary cycle) = δ / 2.5
-        double shift = binError / 2.5;
-        assertThat(Math.abs(period.value() - 3.2145678)).isCloseTo(shift, within(0.2 * shift));
-        assertThat(period.uncertainty()).isGreaterThan(0.8 * shift);
-        assertThat(Math.abs(period.value() - 3.2145678)).isLessThan(2 * period.uncertainty());
-        assertThat(r.linear().parameter("secondaryOffset").orElseThrow().uncertainty()).isEqualTo(binError);
-        assertThat(r.modelNotes()).anyMatch(n -> n.contains("carried into the epoch and period errors"));
+        assertThat(r.modelNotes()).noneMatch(n -> n.contains("cannot be separated"));
+        assertThat(period.value()).isCloseTo(3.2145678, within(1e-9));
+        // A fine one (0.05 min, off by that much): fixed, and its resolution widens the period's error.
+        double fine = 0.05 / 1440;
+        OcResult f = OcAnalysis.analyse(list, REFERENCE, false, -fine, fine);
+        EphemerisParameter fp = f.linear().parameter("period").orElseThrow();
+        assertThat(f.modelNotes()).anyMatch(n -> n.contains("carried into the epoch and period errors"));
+        // mean secondary cycle 7 − mean primary cycle 1 = 6 cycles
+        double shift = fine / 6;
+        assertThat(Math.abs(fp.value() - 3.2145678)).isCloseTo(shift, within(0.3 * shift));
+        assertThat(Math.abs(fp.value() - 3.2145678)).isLessThan(2 * fp.uncertainty());
+        assertThat(f.linear().parameter("secondaryOffset").orElseThrow().uncertainty()).isEqualTo(fine);
     }
 
     @Test
