@@ -229,9 +229,9 @@ public final class EclipseFitter {
             }
             double reducedChi2 = chi2 / dof;
             double[] steps = layout.steps();
-            double[][] jac = LeastSquaresSolver.jacobian(objective::evaluate, best, steps, m);
-            RealMatrix jm = new Array2DRowRealMatrix(jac, false);
-            RealMatrix normal = jm.transpose().multiply(jm);
+            // JᵀJ straight from the Jacobian's columns: no n × k row copies of millions of points
+            RealMatrix normal = new Array2DRowRealMatrix(
+                    LeastSquaresSolver.normalEquations(objective::evaluate, best, steps, m, null).jtj(), false);
 
             // Everything reported, as a function of the internal point: external parameters, then derived.
             double startEpoch = problem.start().common().epochDays();
