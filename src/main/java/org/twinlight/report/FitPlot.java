@@ -30,6 +30,12 @@ public final class FitPlot {
     /** Points left out as outliers: the blue of the Okabe &amp; Ito (2008) colour-blind-safe palette. */
     private static final Color OUTLIER = new Color(0x00, 0x72, 0xB2);
 
+    /**
+     * At most this many data points are drawn: a plot of millions of points looks the same thinned to
+     * every k-th point and takes a fraction of the time (the fit itself uses them all).
+     */
+    static final int MAX_PLOTTED_POINTS = 100_000;
+
     private FitPlot() {
     }
 
@@ -46,6 +52,17 @@ public final class FitPlot {
             for (int i = 0; i < c.size(); i++) {
                 (c.clipped()[i] ? out : pts).add(new double[] {phase(c.timesDays()[i], p), c.flux()[i], c.residual(i)});
             }
+        }
+        String dataLabel = "data";
+        if (pts.size() > MAX_PLOTTED_POINTS) {
+            int stride = (pts.size() + MAX_PLOTTED_POINTS - 1) / MAX_PLOTTED_POINTS;
+            List<double[]> thinned = new ArrayList<>();
+            for (int i = 0; i < pts.size(); i += stride) {
+                thinned.add(pts.get(i));
+            }
+            dataLabel = String.format(java.util.Locale.ROOT, "data (every %d%s point of %,d)", stride,
+                    stride == 2 ? "nd" : stride == 3 ? "rd" : "th", pts.size());
+            pts = thinned;
         }
         double[] ph = column(pts, 0, 1);
         double[] fl = column(pts, 1, 1);
@@ -67,7 +84,7 @@ public final class FitPlot {
                 "orbital phase", "normalised flux");
         full.getStyler().setLegendPosition(org.knowm.xchart.style.Styler.LegendPosition.InsideS);
         full.getStyler().setLegendLayout(org.knowm.xchart.style.Styler.LegendLayout.Horizontal);
-        addData(full, "data", ph, fl);
+        addData(full, dataLabel, ph, fl);
         addClipped(full, out, 1, 1);
         addModel(full, "model", mph, mfl);
         full.getStyler().setXAxisMin(PHASE_START).setXAxisMax(PHASE_START + 1);
