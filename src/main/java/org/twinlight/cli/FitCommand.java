@@ -14,6 +14,7 @@ import org.twinlight.fit.EclipseFitter;
 import org.twinlight.fit.FitData;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.Priors;
 import org.twinlight.fit.StartingValues;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.report.FitFiles;
@@ -94,6 +95,7 @@ public final class FitCommand implements Callable<Integer> {
         inputFiles.add(model);
         OutputTargets.checkDirectory(out, List.of("fit.json", "residuals.csv", "model.json", "fit.png"), inputFiles);
         ModelFile start = ModelFileJson.read(model);
+        Priors priors = ModelFileJson.readPriors(model);
         if (!bands.isEmpty() && bands.size() != files.size()) {
             throw new BadInputException("option --band: given " + bands.size() + " time(s) for " + files.size()
                     + " file(s); give it once per file, in order, or not at all");
@@ -169,7 +171,7 @@ public final class FitCommand implements Callable<Integer> {
             EpochChecks.near(start.common().epochDays(), start.common().periodDays(),
                     data.get(i).lightCurve().timesDays(), files.get(i).toString(), model + ": key 'epoch'");
         }
-        FitResult r = EclipseFitter.fit(start, data, settings);
+        FitResult r = EclipseFitter.fit(start, data, settings, priors);
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
                 VersionInfo.version());

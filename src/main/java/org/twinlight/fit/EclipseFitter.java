@@ -44,6 +44,11 @@ public final class EclipseFitter {
         return optimize(FitProblem.of(start, data, settings));
     }
 
+    /** The same with priors: {@code optimize(FitProblem.of(start, data, settings, priors))}. */
+    public static FitResult fit(ModelFile start, List<FitData> data, FitSettings settings, Priors priors) {
+        return optimize(FitProblem.of(start, data, settings, priors));
+    }
+
     /**
      * Solves a fit problem.
      *
@@ -52,23 +57,23 @@ public final class EclipseFitter {
      */
     public static FitResult optimize(FitProblem problem) {
         FitSettings settings = problem.settings();
-        WeightedResiduals all = problem.objective();
+        FitObjective all = problem.objective();
         ParameterLayout layout = all.layout();
-        double[] x0 = layout.validate(layout.startInternal());
-        if (all.eclipsedPoints(layout.toExternal(x0)) == 0) {
+        double[] x0 = all.validator(layout.startInternal()).apply(layout.startInternal());
+        if (all.lightCurves().eclipsedPoints(layout.toExternal(x0)) == 0) {
             throw new WorkFailedException("the starting model predicts no eclipse at any data point; check period "
                     + "and epoch (the period and minima commands find them), radii and inclination, or start "
                     + "from the data with --start auto");
         }
         Passes passes = new Passes();
         LeastSquaresSolver.Solution s = passes.solve(all, x0, settings, layout);
-        WeightedResiduals used = all;
+        FitObjective used = all;
         Map<String, Integer> clipped = new LinkedHashMap<>();
         List<String> clipNotes = new ArrayList<>();
         if (settings.clips()) {
             List<boolean[]> current = null;
             for (int pass = 0; pass < CLIP_PASSES; pass++) {
-                Outliers o = outliers(all.curves(layout.toExternal(s.internal())), settings.clipSigma());
+                Outliers o = outliers(all.lightCurves().curves(layout.toExternal(s.internal())), settings.clipSigma());
                 if (o.fraction > MAX_CLIPPED_FRACTION) {
                     clipNotes.add(String.format(Locale.ROOT, "%.1f%% of the points lie more than %.1f robust "
                             + "standard deviations from the model: too many to be outliers, so none were clipped; "
@@ -92,11 +97,11 @@ public final class EclipseFitter {
             }
             if (current != null) {
                 used = all.withLeftOut(current);
-                clipped.putAll(Outliers.byReason(current, all.curves(layout.toExternal(s.internal()))));
+                clipped.putAll(Outliers.byReason(current, all.lightCurves().curves(layout.toExternal(s.internal()))));
             }
         }
         double[] ext = layout.toExternal(s.internal());
-        if (used.eclipsedPoints(ext) == 0) {
+        if (used.lightCurves().eclipsedPoints(ext) == 0) {
             throw new WorkFailedException("the fit ended with a model that has no eclipse at any data point (inclination "
                     + String.format(Locale.ROOT, "%.1f°", ext[ParameterLayout.INCLINATION])
                     + "): the data show no eclipse the model can follow. Check that the file holds eclipses "
@@ -118,7 +123,7 @@ public final class EclipseFitter {
         int iterations;
         int evaluations;
 
-        LeastSquaresSolver.Solution solve(WeightedResiduals objective, double[] start, FitSettings settings,
+        LeastSquaresSolver.Solution solve(FitObjective objective, double[] start, FitSettings settings,
                 ParameterLayout layout) {
             try {
                 LeastSquaresSolver.Solution s = LeastSquaresSolver.optimize(objective, start, settings.maxIterations());
@@ -213,14 +218,15 @@ public final class EclipseFitter {
     /** Statistics, uncertainties, limits and checks at the optimum. */
     private static final class Summary {
 
-        static FitResult of(FitProblem problem, WeightedResiduals objective, LeastSquaresSolver.Solution s,
+        static FitResult of(FitProblem problem, FitObjective objective, LeastSquaresSolver.Solution s,
                 int iterations, int evaluations, Map<String, Integer> clipped) {
             ParameterLayout layout = objective.layout();
             double[] best = s.internal();
             int m = objective.size();
-            double chi2 = objective.chi2(best);
+            double minimised = objective.chi2(best);
+            double chi2 = objective.dataChi2(best);
             int k = layout.internalSize();
-            int freeCount = k + objective.baselineCoefficientCount();
+            int freeCount = k + objective.nuisanceCount();
             int nUsed = objective.usedCount();
             int dof = nUsed - freeCount;
             if (dof <= 0) {
@@ -237,7 +243,7 @@ public final class EclipseFitter {
             double startEpoch = problem.start().common().epochDays();
             double[] extBest = layout.toExternal(best);
             long epochShift = Math.round((extBest[ParameterLayout.EPOCH] - startEpoch) / extBest[ParameterLayout.PERIOD]);
-            long midCycle = Math.round((objective.midTime() - extBest[ParameterLayout.EPOCH])
+            long midCycle = Math.round((objective.lightCurves().midTime() - extBest[ParameterLayout.EPOCH])
                     / extBest[ParameterLayout.PERIOD]);
             Reported named = Reported.at(layout, extBest, epochShift, midCycle);
             double[] values = named.values();
@@ -252,7 +258,7 @@ public final class EclipseFitter {
             boolean conditioned = fullSv.length > 0 && fullSv[fullSv.length - 1] > fullSv[0] * 1e-10;
             RealMatrix linear = gm.multiply(fullSvd.getSolver().getInverse()).multiply(gm.transpose())
                     .scalarMultiply(reducedChi2);
-            BoundLimits limits = new BoundLimits(objective, best, chi2);
+            BoundLimits limits = new BoundLimits(objective, best, minimised);
             Map<Integer, BoundLimits.Profile> profiles = new HashMap<>();
             Map<String, BoundLimits.Profile> nearBound = new HashMap<>();
             List<Integer> excluded = new ArrayList<>();
@@ -344,7 +350,7 @@ public final class EclipseFitter {
             }
 
             ModelFile bestModel = layout.modelFile(Arrays.copyOf(values, nExt));
-            List<FittedCurve> curves = objective.curves(extBest);
+            List<FittedCurve> curves = objective.lightCurves().curves(extBest);
             double sumSq = 0;
             for (FittedCurve c : curves) {
                 for (int i = 0; i < c.size(); i++) {
@@ -356,14 +362,14 @@ public final class EclipseFitter {
             double rms = Math.sqrt(sumSq / nUsed);
             double bic = chi2 + freeCount * Math.log(nUsed);
             ModelAdequacy.Result adequacy = ModelAdequacy.check(curves,
-                    c -> bestModel.forBand(curves.get(c).band()), freeCount, objective.errorsEstimated());
+                    c -> bestModel.forBand(curves.get(c).band()), freeCount, objective.lightCurves().errorsEstimated());
             FitResult draft = new FitResult(bestModel, params, derived, freeNames, corr, nUsed, freeCount, chi2,
-                    reducedChi2, rms, bic, iterations, evaluations + profileFits, objective.errorsEstimated(),
+                    reducedChi2, rms, bic, iterations, evaluations + profileFits, objective.lightCurves().errorsEstimated(),
                     adequacy, Map.copyOf(clipped.isEmpty() ? Map.of() : clipped), List.of(), curves);
             List<String> notes = FitNotes.of(draft, layout.bands(), profiles.values().stream()
                     .filter(p -> !p.reachedLimit()).map(p -> layout.parameter(p.index()).name()).toList());
             return new FitResult(bestModel, params, derived, freeNames, corr, nUsed, freeCount, chi2, reducedChi2,
-                    rms, bic, iterations, evaluations + profileFits, objective.errorsEstimated(), adequacy,
+                    rms, bic, iterations, evaluations + profileFits, objective.lightCurves().errorsEstimated(), adequacy,
                     new LinkedHashMap<>(clipped), notes, curves);
         }
 
@@ -426,22 +432,16 @@ public final class EclipseFitter {
             List<String> names = new ArrayList<>();
             List<String> bands = new ArrayList<>();
             BinaryParameters p0 = layout.parameters(ext, 0);
-            double w = Math.toRadians(p0.omegaDeg());
-            Object[][] common = {
-                {"sumOfRadii", p0.sumOfRadii()},
-                {"radiusRatio", p0.radiusRatio()},
-                {"impactParameterPrimary", p0.impactParameterPrimary()},
-                {"impactParameterSecondary", p0.impactParameterSecondary()},
-                {"eCosOmega", p0.eccentricity() * Math.cos(w)},
-                {"eSinOmega", p0.eccentricity() * Math.sin(w)},
-                {"secondaryPhase", p0.orbit().secondaryPhase()},
-                {"epochMidData", ext[ParameterLayout.EPOCH] + midCycle * ext[ParameterLayout.PERIOD]},
-            };
-            for (Object[] c : common) {
-                names.add((String) c[0]);
-                bands.add(null);
-                out.add((Double) c[1]);
+            for (String name : Priors.DERIVED_NAMES) {
+                if (!Derived.perBand(name)) {
+                    names.add(name);
+                    bands.add(null);
+                    out.add(Derived.value(name, p0));
+                }
             }
+            names.add("epochMidData");
+            bands.add(null);
+            out.add(ext[ParameterLayout.EPOCH] + midCycle * ext[ParameterLayout.PERIOD]);
             boolean multiBand = layout.bands().size() > 1;
             for (int b = 0; b < layout.bands().size(); b++) {
                 names.add("lightRatio");
