@@ -48,6 +48,18 @@ public final class FitObjective {
         return new FitObjective(other, lightCurves, priors, priorValues);
     }
 
+    /**
+     * The same objective started from {@code ext} with one more prior (a global search holds k on
+     * one side of 1 so).
+     *
+     * @throws org.twinlight.BadInputException when the prior excludes {@code ext}
+     */
+    FitObjective startingAt(double[] ext, String name, Prior extra) {
+        java.util.Map<String, Prior> all = new java.util.LinkedHashMap<>(priorValues.byName());
+        all.put(name, extra);
+        return new FitObjective(layout.startingAt(ext), lightCurves, new Priors(all, priorValues.source()));
+    }
+
     /** The same objective with the light-curve points flagged in {@code leftOut} unused. */
     FitObjective withLeftOut(List<boolean[]> leftOut) {
         return new FitObjective(layout, lightCurves.withLeftOut(leftOut), priors, priorValues);

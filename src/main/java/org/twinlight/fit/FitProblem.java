@@ -15,11 +15,13 @@ public final class FitProblem {
     private final List<FitData> data;
     private final FitSettings settings;
     private final FitObjective objective;
+    private final Priors priors;
 
     private FitProblem(ModelFile start, List<FitData> data, FitSettings settings, Priors priors) {
         this.start = start;
         this.data = List.copyOf(data);
         this.settings = settings;
+        this.priors = priors;
         List<String> bands = data.stream().map(FitData::band).distinct().toList();
         ParameterLayout layout = new ParameterLayout(start, bands, settings.free());
         this.objective = new FitObjective(layout, new WeightedResiduals(layout, data, settings), priors);
@@ -58,6 +60,11 @@ public final class FitProblem {
             }
         }
         return new FitProblem(start, data, settings, priors);
+    }
+
+    /** The same data, settings and priors started from another model (a global search's best minimum). */
+    public FitProblem startingFrom(ModelFile other) {
+        return new FitProblem(other, data, settings, priors);
     }
 
     public ModelFile start() {

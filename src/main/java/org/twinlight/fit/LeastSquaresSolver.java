@@ -45,6 +45,14 @@ final class LeastSquaresSolver {
 
     /** Minimises χ² from {@code start}. */
     static Solution optimize(FitObjective objective, double[] start, int maxIterations) {
+        return optimize(objective, start, maxIterations, 1e-10);
+    }
+
+    /**
+     * Minimises χ² from {@code start}, stopping when an iteration lowers it by less than
+     * {@code tolerance} relatively (a global search's starts need less than the final fit).
+     */
+    static Solution optimize(FitObjective objective, double[] start, int maxIterations, double tolerance) {
         ParameterLayout layout = objective.layout();
         if (layout.internalSize() == 0) {
             return new Solution(start.clone(), objective.chi2(start), 0, 1);
@@ -68,8 +76,8 @@ final class LeastSquaresSolver {
                 .build();
         try {
             LeastSquaresOptimizer.Optimum o = new LevenbergMarquardtOptimizer()
-                    .withCostRelativeTolerance(1e-10)
-                    .withParameterRelativeTolerance(1e-10)
+                    .withCostRelativeTolerance(tolerance)
+                    .withParameterRelativeTolerance(tolerance)
                     .withOrthoTolerance(1e-12)
                     .optimize(problem);
             double[] best = o.getPoint().toArray();

@@ -246,6 +246,11 @@ final class ParameterLayout {
         return new ParameterLayout(modelFile(ext), bands, names, index);
     }
 
+    /** The same parameters, free and fixed alike, started from the external vector {@code ext}. */
+    ParameterLayout startingAt(double[] ext) {
+        return fixing(-1, ext);
+    }
+
     /** The starting model as an external vector. */
     double[] startExternal() {
         return parameters.stream().mapToDouble(FitParameter::value).toArray();
