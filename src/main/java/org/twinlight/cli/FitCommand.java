@@ -12,6 +12,8 @@ import org.twinlight.eclipse.ModelFile;
 import org.twinlight.fit.Baseline;
 import org.twinlight.fit.EclipseFitter;
 import org.twinlight.fit.FitData;
+import org.twinlight.fit.FitProblem;
+import org.twinlight.fit.GlobalSearch;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
 import org.twinlight.fit.Priors;
@@ -82,6 +84,11 @@ public final class FitCommand implements Callable<Integer> {
                     + "refitting until none change (at least 3; default: ${DEFAULT-VALUE}); none keeps every point. "
                     + "The input is never changed; fit.json counts what was left out.")
     String clip;
+
+    @Option(names = "--global", description = "Search the whole range of the free parameters first (a Latin-hypercube "
+            + "multistart, each start finished by least squares, on all cores): every distinct minimum goes to fit.json "
+            + "under \"minima\", a note names any that fits almost as well (Δχ² < 9), and the best is fitted as usual.")
+    boolean global;
 
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
@@ -171,12 +178,25 @@ public final class FitCommand implements Callable<Integer> {
             EpochChecks.near(start.common().epochDays(), start.common().periodDays(),
                     data.get(i).lightCurve().timesDays(), files.get(i).toString(), model + ": key 'epoch'");
         }
-        FitResult r = EclipseFitter.fit(start, data, settings, priors);
+        FitProblem problem = FitProblem.of(start, data, settings, priors);
+        GlobalSearch.Result search = null;
+        if (global) {
+            search = GlobalSearch.run(problem);
+            console().printf(Locale.ROOT, "global search: %d starts, %d distinct minim%s%n", search.starts(),
+                    search.minima().size(), search.minima().size() == 1 ? "um" : "a");
+            problem = search.best();
+        }
+        FitResult r = EclipseFitter.optimize(problem);
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
                 VersionInfo.version());
         com.fasterxml.jackson.databind.node.ArrayNode notes = (com.fasterxml.jackson.databind.node.ArrayNode) doc.get("notes");
         startNotes.forEach(notes::add);
+        FitFiles.putPriors(doc, priors);
+        if (search != null) {
+            FitFiles.putMinima(doc, search);
+            search.notes().forEach(n -> console().println("note: " + n));
+        }
         for (FitData d : data) {
             d.lightCurve().notes().forEach(n -> notes.add(d.lightCurve().source() + ": " + n));
         }
