@@ -13,9 +13,10 @@ import org.twinlight.eclipse.BinaryParameters;
 
 /**
  * Global search for the minima of a fit's objective: a Latin-hypercube multistart (McKay, Beckman
- * &amp; Conover 1979, Technometrics 21, 239) over a box of the free parameters, each start finished
- * by Levenberg–Marquardt on the same {@link FitObjective} the ordinary fit uses, the starts run in
- * parallel (the result does not depend on the number of threads: each start has its own random
+ * &amp; Conover 1979, Technometrics 21, 239) over a box of the free parameters. χ² is computed at
+ * {@link #SCREEN_FACTOR} points of the hypercube per start; the best of them (and the starting
+ * model) are each finished by Levenberg–Marquardt on the same {@link FitObjective} the ordinary
+ * fit uses, the screen and the starts run in parallel (the result does not depend on the number of threads: each start has its own random
  * stream split from the seed and the minima are merged in start order). Solutions that agree in
  * every free parameter to within {@link #SAME_SCALES} of its scale are one minimum. With both
  * radii free, one more fit starts from the best minimum's radii swapped and keeps k = r₂/r₁ on
@@ -30,11 +31,13 @@ import org.twinlight.eclipse.BinaryParameters;
  * them; they are found by the period and minima commands, not here).
  */
 public final class GlobalSearch {
-    /** Starts at least, and per free parameter. */
-    static final int MIN_STARTS = 16;
-    static final int STARTS_PER_PARAMETER = 3;
+    /** Least-squares starts at least, and per free parameter. */
+    static final int MIN_STARTS = 8;
+    static final int STARTS_PER_PARAMETER = 1;
+    /** Points of the hypercube screened by their χ² per least-squares start. */
+    static final int SCREEN_FACTOR = 16;
     /** Iterations of each start's least-squares finish. */
-    static final int ITERATIONS_PER_START = 60;
+    static final int ITERATIONS_PER_START = 40;
     /** Relative change of χ² at which a start is finished (the ordinary fit then polishes the best). */
     static final double START_TOLERANCE = 1e-7;
     /** Two solutions within this many scales in every free parameter are the same minimum. */
@@ -65,7 +68,7 @@ public final class GlobalSearch {
      *
      * @param minima the distinct minima, best first
      * @param notes one per minimum that competes with the best (Δχ² &lt; 9), in words
-     * @param starts starts run
+     * @param starts least-squares starts run
      * @param best the problem started from the best minimum, for the ordinary fit
      */
     public record Result(List<Minimum> minima, List<String> notes, int starts, FitProblem best) {
@@ -80,7 +83,7 @@ public final class GlobalSearch {
      * Runs the search.
      *
      * @param seed seed of the Latin hypercube
-     * @param starts number of starts; 0 for max(16, 3 × free parameters)
+     * @param starts number of least-squares starts; 0 for max(8, number of solver coordinates)
      * @throws WorkFailedException when no start reaches a model with eclipses
      */
     public static Result run(FitProblem problem, long seed, int starts) {
@@ -88,11 +91,25 @@ public final class GlobalSearch {
         ParameterLayout layout = objective.layout();
         Box box = new Box(layout);
         int n = starts > 0 ? starts : Math.max(MIN_STARTS, STARTS_PER_PARAMETER * layout.internalSize());
-        double[][] unit = latinHypercube(n, box.dimensions(), seed);
+        int screened = SCREEN_FACTOR * n;
+        double[][] unit = latinHypercube(screened, box.dimensions(), seed);
+        // screen: χ² at every point of the hypercube (one model evaluation each), then finish the
+        // n best, and the starting model, by least squares
+        double[] screenChi2 = IntStream.range(0, screened).parallel().mapToDouble(s -> {
+            double[] x = layout.validate(layout.toInternal(box.point(unit[s])));
+            try {
+                double c = objective.chi2(x);
+                return Double.isNaN(c) ? Double.POSITIVE_INFINITY : c;
+            } catch (IllegalArgumentException e) {
+                return Double.POSITIVE_INFINITY;
+            }
+        }).toArray();
+        Integer[] order = IntStream.range(0, screened).boxed().toArray(Integer[]::new);
+        java.util.Arrays.sort(order, Comparator.comparingDouble(s -> screenChi2[s]));
         double[][] startPoints = new double[n][];
         startPoints[0] = layout.startExternal();
         for (int s = 1; s < n; s++) {
-            startPoints[s] = box.point(unit[s]);
+            startPoints[s] = box.point(unit[order[s - 1]]);
         }
         List<double[]> ends = IntStream.range(0, n).parallel().mapToObj(s -> finish(objective, startPoints[s]))
                 .toList();
