@@ -86,7 +86,7 @@ public final class ModelFileJson {
             throw BadInputException.at(file, where, null, "unknown kind of prior '" + kind + "'; " + expected);
         }
         if (!pair.isArray() || pair.size() != 2 || !pair.get(0).isNumber() || !pair.get(1).isNumber()) {
-            throw BadInputException.at(file, where + "." + kind, null, "expected two numbers "
+            throw BadInputException.at(file, "key '" + key + "." + kind + "'", null, "expected two numbers "
                     + (kind.equals("uniform") ? "[lo, hi]" : "[mean, sigma]") + ", got " + pair);
         }
         double a = pair.get(0).doubleValue();
@@ -94,7 +94,7 @@ public final class ModelFileJson {
         try {
             return kind.equals("uniform") ? new Prior.Uniform(a, b) : new Prior.Normal(a, b);
         } catch (IllegalArgumentException e) {
-            throw BadInputException.at(file, where + "." + kind, null, e.getMessage());
+            throw BadInputException.at(file, "key '" + key + "." + kind + "'", null, e.getMessage());
         }
     }
 
