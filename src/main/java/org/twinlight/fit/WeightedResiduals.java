@@ -138,6 +138,43 @@ final class WeightedResiduals {
         return s;
     }
 
+    /**
+     * χ² of the used points for an external vector, computed in the work arrays {@code work}
+     * (one per thread, from {@link #workspace()}): no allocation per point.
+     */
+    double chi2External(double[] ext, Workspace work) {
+        double s = 0;
+        for (int b = 0; b < layout.bands().size(); b++) {
+            work.models[b] = new BinaryModel(layout.parameters(ext, b));
+        }
+        for (int k = 0; k < sets.size(); k++) {
+            Prepared p = sets.get(k);
+            double[] m = work.flux[k];
+            work.models[p.band].flux(p.t, m);
+            double[] r = work.residuals[k];
+            p.weightedResiduals(m, r, 0, null);
+            for (double v : r) {
+                s += v * v;
+            }
+        }
+        return s;
+    }
+
+    /** Work arrays for {@link #chi2External(double[], Workspace)}; one thread at a time. */
+    Workspace workspace() {
+        double[][] flux = new double[sets.size()][];
+        double[][] residuals = new double[sets.size()][];
+        for (int k = 0; k < sets.size(); k++) {
+            flux[k] = new double[sets.get(k).t.length];
+            residuals[k] = new double[sets.get(k).t.length];
+        }
+        return new Workspace(flux, residuals, new BinaryModel[layout.bands().size()]);
+    }
+
+    /** Per-thread model and residual arrays, one per light curve. */
+    record Workspace(double[][] flux, double[][] residuals, BinaryModel[] models) {
+    }
+
     /** The fitted curves, baselines divided out, for an external vector. */
     List<FittedCurve> curves(double[] ext) {
         List<FittedCurve> out = new ArrayList<>();
