@@ -83,6 +83,9 @@ final class PosteriorOptions {
             try {
                 // let the sampler notice and return, so no thread is cut off mid-step
                 finished.await(STOP_WAIT_SECONDS, TimeUnit.SECONDS);
+                err.println();
+                err.println("interrupted: sampling stopped; no result file was written");
+                err.flush();
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
             }

@@ -32,7 +32,7 @@ public final class PosteriorFiles {
             o.put("upper68", m.upper68());
             o.put("lower95", m.lower95());
             o.put("upper95", m.upper95());
-            putNumber(o, "autocorrelationTime", m.autocorrelationTime());
+            VelocityFiles.putNumber(o, "autocorrelationTime", m.autocorrelationTime());
             if (m.limit() != null) {
                 ObjectNode limit = o.putObject("limit");
                 limit.put("side", m.limit().side());
@@ -47,9 +47,9 @@ public final class PosteriorFiles {
         conv.put("walkers", p.walkers());
         conv.put("steps", cv.steps());
         conv.put("burnIn", cv.burnIn());
-        putNumber(conv, "acceptanceFraction", cv.acceptanceFraction());
-        putNumber(conv, "maxAutocorrelationTime", cv.maxAutocorrelationTime());
-        putNumber(conv, "chainLengthInTau", cv.chainLengthInTau());
+        VelocityFiles.putNumber(conv, "acceptanceFraction", cv.acceptanceFraction());
+        VelocityFiles.putNumber(conv, "maxAutocorrelationTime", cv.maxAutocorrelationTime());
+        VelocityFiles.putNumber(conv, "chainLengthInTau", cv.chainLengthInTau());
         conv.put("chainFile", CHAIN_FILE);
         conv.put("seed", p.seed());
         conv.put("evaluations", cv.evaluations());
@@ -87,14 +87,6 @@ public final class PosteriorFiles {
     private static String format(double v) {
         return Math.abs(v) >= 1e5 ? String.format(java.util.Locale.ROOT, "%.6f", v)
                 : String.format(java.util.Locale.ROOT, "%.7g", v);
-    }
-
-    private static void putNumber(ObjectNode o, String key, double v) {
-        if (Double.isFinite(v)) {
-            o.put(key, v);
-        } else {
-            o.putNull(key);
-        }
     }
 
     /**

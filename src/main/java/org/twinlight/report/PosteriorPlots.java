@@ -3,14 +3,11 @@ package org.twinlight.report;
 import java.awt.Color;
 import java.awt.Graphics2D;
 import java.awt.image.BufferedImage;
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.UncheckedIOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
-import javax.imageio.ImageIO;
 import org.knowm.xchart.BitmapEncoder;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
@@ -39,6 +36,29 @@ public final class PosteriorPlots {
     private PosteriorPlots() {
     }
 
+    /**
+     * How a column is drawn: values far from zero compared with their spread (an epoch) are drawn
+     * as offsets from a whole number named in the axis title, with enough decimals to tell the
+     * ticks apart.
+     */
+    private record Axis(double shift, String title, String pattern) {
+        static Axis of(Posterior p, int c) {
+            Marginal m = p.marginals().get(c);
+            double spread = m.upper95() - m.lower95();
+            String name = p.names().get(c);
+            if (!(spread > 0)) {
+                return new Axis(0, name, "0.####");
+            }
+            int decimals = Math.max(1, (int) Math.ceil(-Math.log10(spread)) + 2);
+            String pattern = "0." + "#".repeat(Math.min(decimals, 12));
+            if (Math.abs(m.median()) > 1000 * spread && Math.abs(m.median()) >= 10) {
+                double shift = Math.floor(m.median());
+                return new Axis(shift, String.format(java.util.Locale.ROOT, "%s − %.0f", name, shift), pattern);
+            }
+            return new Axis(0, name, pattern);
+        }
+    }
+
     /** Writes the trace plot of the free parameters. */
     public static void writeTrace(Path target, Posterior p, String title) {
         int k = p.parameterCount();
@@ -47,13 +67,14 @@ public final class PosteriorPlots {
         for (int c = 0; c < k; c++) {
             String chartTitle = c == 0 ? title + String.format(java.util.Locale.ROOT, ": %d walkers, %d steps, "
                     + "burn-in %d (dashed)", p.walkers(), p.steps(), p.burnIn()) : null;
+            Axis axis = Axis.of(p, c);
             XYChart ch = new XYChartBuilder().width(TRACE_WIDTH).height(TRACE_PANEL + (c == 0 ? 30 : 0))
                     .title(chartTitle == null ? "" : chartTitle).xAxisTitle(c == k - 1 ? "step" : "")
-                    .yAxisTitle(p.names().get(c)).build();
+                    .yAxisTitle(axis.title()).build();
             PlotFiles.style(ch);
             ch.getStyler().setChartTitleVisible(chartTitle != null);
             ch.getStyler().setLegendVisible(false);
-            ch.getStyler().setYAxisDecimalPattern("0.######");
+            ch.getStyler().setYAxisDecimalPattern(axis.pattern());
             int n = (p.steps() + stride - 1) / stride;
             double[] x = new double[n];
             for (int i = 0; i < n; i++) {
@@ -64,7 +85,7 @@ public final class PosteriorPlots {
             for (int w = 0; w < p.walkers(); w++) {
                 double[] y = new double[n];
                 for (int i = 0; i < n; i++) {
-                    y[i] = p.value(i * stride, w, c);
+                    y[i] = p.value(i * stride, w, c) - axis.shift();
                     lo = Math.min(lo, y[i]);
                     hi = Math.max(hi, y[i]);
                 }
@@ -90,8 +111,13 @@ public final class PosteriorPlots {
         int k = p.parameterCount();
         double[][] data = new double[k][];
         double[][] range = new double[k][];
+        Axis[] axes = new Axis[k];
         for (int c = 0; c < k; c++) {
+            axes[c] = Axis.of(p, c);
             data[c] = p.retained(c);
+            for (int i = 0; i < data[c].length; i++) {
+                data[c][i] -= axes[c].shift();
+            }
             double[] s = data[c].clone();
             Arrays.sort(s);
             double lo = Marginal.quantile(s, 0.001);
@@ -110,19 +136,23 @@ public final class PosteriorPlots {
                 10, 25);
         for (int row = 0; row < k; row++) {
             for (int col = 0; col <= row; col++) {
-                XYChart ch = row == col ? histogram(p, data[col], range[col], col, row == k - 1)
-                        : pair(p, data[col], data[row], range[col], range[row], col, row, row == k - 1, col == 0);
+                XYChart ch = row == col ? histogram(p, data[col], range[col], col, axes[col], row == k - 1)
+                        : pair(data[col], data[row], range[col], range[row], axes[col], axes[row], row == k - 1,
+                                col == 0);
                 g.drawImage(BitmapEncoder.getBufferedImage(ch), col * CORNER_PANEL, head + row * CORNER_PANEL, null);
             }
         }
         g.dispose();
-        try {
-            ByteArrayOutputStream buf = new ByteArrayOutputStream();
-            ImageIO.write(img, "png", buf);
-            AtomicFiles.writeBytes(target, buf.toByteArray());
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot render " + target + ": " + e.getMessage(), e);
+        PlotFiles.writeImage(img, target);
+    }
+
+    private static XYChart panel(Axis x, Axis y, boolean bottom, boolean left) {
+        XYChart ch = panel(bottom ? x.title() : "", left && y != null ? y.title() : "");
+        ch.getStyler().setXAxisDecimalPattern(x.pattern());
+        if (y != null) {
+            ch.getStyler().setYAxisDecimalPattern(y.pattern());
         }
+        return ch;
     }
 
     private static XYChart panel(String xTitle, String yTitle) {
@@ -139,7 +169,7 @@ public final class PosteriorPlots {
         return ch;
     }
 
-    private static XYChart histogram(Posterior p, double[] v, double[] range, int c, boolean bottom) {
+    private static XYChart histogram(Posterior p, double[] v, double[] range, int c, Axis axis, boolean bottom) {
         int bins = 40;
         double w = (range[1] - range[0]) / bins;
         double[] counts = new double[bins];
@@ -160,21 +190,22 @@ public final class PosteriorPlots {
         }
         xs[2 * bins + 1] = range[1];
         double top = Arrays.stream(counts).max().orElse(1) * 1.1;
-        XYChart ch = panel(bottom ? p.names().get(c) : "", "");
+        XYChart ch = panel(axis, null, bottom, false);
         ch.getStyler().setYAxisTicksVisible(false);
         line(ch, "histogram", xs, ys, PlotFiles.SECOND, 1.2f);
         Marginal m = p.marginals().get(c);
-        line(ch, "median", new double[] {m.median(), m.median()}, new double[] {0, top}, PlotFiles.MODEL, 1.2f);
-        for (double q : new double[] {m.lower68(), m.upper68()}) {
+        double median = m.median() - axis.shift();
+        line(ch, "median", new double[] {median, median}, new double[] {0, top}, PlotFiles.MODEL, 1.2f);
+        for (double q : new double[] {m.lower68() - axis.shift(), m.upper68() - axis.shift()}) {
             dashed(line(ch, "68% " + q, new double[] {q, q}, new double[] {0, top}, PlotFiles.MODEL, 1f));
         }
         ch.getStyler().setXAxisMin(range[0]).setXAxisMax(range[1]).setYAxisMin(0.0).setYAxisMax(top);
         return ch;
     }
 
-    private static XYChart pair(Posterior p, double[] x, double[] y, double[] rx, double[] ry, int cx, int cy,
-            boolean bottom, boolean left) {
-        XYChart ch = panel(bottom ? p.names().get(cx) : "", left ? p.names().get(cy) : "");
+    private static XYChart pair(double[] x, double[] y, double[] rx, double[] ry, Axis ax, Axis ay, boolean bottom,
+            boolean left) {
+        XYChart ch = panel(ax, ay, bottom, left);
         int stride = Math.max(1, x.length / SCATTER_POINTS);
         int n = x.length / stride;
         double[] sx = new double[n];

@@ -123,7 +123,9 @@ public final class EnsembleSampler {
                 }
                 previousTau = last.tau;
                 maxTau = last.maxTau();
-                needed = Math.min(settings.maxSteps(), last.stepsNeeded(settings));
+                // τ still growing means more than 55 τ: never promise less than the next check
+                needed = Math.min(settings.maxSteps(), Math.max(last.stepsNeeded(settings),
+                        chain.steps() + Math.max(FIRST_CHECK / 2, chain.steps() / 10)));
                 nextCheck = Math.min(settings.maxSteps(), chain.steps() + Math.max(FIRST_CHECK / 2, chain.steps() / 10));
             }
             progress.update(chain.steps(), settings.maxSteps(), maxTau, needed);
