@@ -25,7 +25,7 @@ final class PosteriorOptions {
     private static final long STOP_WAIT_SECONDS = 5;
 
     @Option(names = "--posterior", description = "After the least-squares fit, sample the posterior with the "
-            + "affine-invariant ensemble sampler: medians, 68% and 95% intervals in fit.json, chain.csv.gz, "
+            + "affine-invariant ensemble sampler: medians, 68%% and 95%% intervals in fit.json, chain.csv.gz, "
             + "trace.png and corner.png. Priors come from the model file's \"priors\".")
     boolean posterior;
 

@@ -27,7 +27,7 @@ import org.twinlight.time.TimeScale;
  * inclination, surface-brightness ratio, the primary's quadratic limb darkening), 32 walkers;
  * the time to a converged chain with 1 and with 2 threads, and whether each truth lies inside its
  * 95 % interval. Run with
- * {@code java -cp target/classes:target/test-classes:$(deps) org.twinlight.bench.PosteriorBench [THREADS,..] [SEED]}.
+ * {@code java -cp target/classes:target/test-classes:$(deps) org.twinlight.bench.PosteriorBench [THREADS,..] [SEED] [MAX_STEPS]}.
  */
 public final class PosteriorBench {
     static final BinaryParameters TRUTH = new BinaryParameters(2.3456789, 2460000.3, 0.19, 0.14, 81.0, 0, 90, 0.72, 0,
@@ -39,6 +39,7 @@ public final class PosteriorBench {
     public static void main(String[] args) {
         String threadList = args.length > 0 ? args[0] : "1,2";
         long seed = args.length > 1 ? Long.parseLong(args[1]) : 1;
+        int maxSteps = args.length > 2 ? Integer.parseInt(args[2]) : 20_000;
         double[] t = SyntheticLightCurve.regularTimes(2460000.0, 2460000.0 + 20_000 * 2 / 1440.0 - 1e-9, 2, List.of(),
                 null);
         LightCurve lc = SyntheticLightCurve.observe(new BinaryModel(TRUTH), t, 1000, 100 + seed, "T", "T",
@@ -55,7 +56,7 @@ public final class PosteriorBench {
             int threads = Integer.parseInt(ts.trim());
             long t0 = System.nanoTime();
             Posterior p = PosteriorSampler.sample(problem, best, Priors.none(),
-                    SamplerSettings.of(32, 20_000, seed, threads), SamplingProgress.NONE, () -> false);
+                    SamplerSettings.of(32, maxSteps, seed, threads), SamplingProgress.NONE, () -> false);
             double secs = (System.nanoTime() - t0) / 1e9;
             first = Double.isNaN(first) ? secs : first;
             System.out.printf(Locale.ROOT, "threads %d: %.1f s, %s, %d steps (burn-in %d), max tau %.1f, %.0f tau, "
