@@ -29,15 +29,15 @@ final class PosteriorOptions {
             + "trace.png and corner.png. Priors come from the model file's \"priors\".")
     boolean posterior;
 
-    @Option(names = "--seed", paramLabel = "S", defaultValue = "1",
+    @Option(names = "--seed", paramLabel = "S",
             description = "Seed of the sampler; the same seed gives the same chain with any --threads "
-                    + "(default: ${DEFAULT-VALUE}).")
-    long seed;
+                    + "(default: 1).")
+    Long seed;
 
-    @Option(names = "--max-steps", paramLabel = "N", defaultValue = "20000",
+    @Option(names = "--max-steps", paramLabel = "N",
             description = "Steps per walker at most; a chain not converged by then is reported as such "
-                    + "(default: ${DEFAULT-VALUE}).")
-    int maxSteps;
+                    + "(default: 20000).")
+    Integer maxSteps;
 
     @Option(names = "--walkers", paramLabel = "N",
             description = "Number of walkers, even (default: max(32, 4 × the number of free parameters)).")
@@ -50,9 +50,13 @@ final class PosteriorOptions {
     /** Checks the option values given without --posterior or with impossible values. */
     void check(int freeCount) {
         if (!posterior) {
+            if (seed != null || maxSteps != null || walkers != null || threads != null) {
+                throw new BadInputException("options --seed, --max-steps, --walkers and --threads set the sampler; "
+                        + "add --posterior to sample, or leave them out");
+            }
             return;
         }
-        if (maxSteps < 1) {
+        if (maxSteps != null && maxSteps < 1) {
             throw new BadInputException("option --max-steps: expected a positive integer, got " + maxSteps);
         }
         if (walkers != null && (walkers < 2 * freeCount + 2 || walkers % 2 != 0)) {
@@ -67,7 +71,7 @@ final class PosteriorOptions {
     SamplerSettings settings(int freeCount) {
         int w = walkers != null ? walkers : SamplerSettings.defaultWalkers(freeCount);
         int t = threads != null ? threads : Runtime.getRuntime().availableProcessors();
-        return SamplerSettings.of(w, maxSteps, seed, t);
+        return SamplerSettings.of(w, maxSteps != null ? maxSteps : 20_000, seed != null ? seed : 1, t);
     }
 
     /**

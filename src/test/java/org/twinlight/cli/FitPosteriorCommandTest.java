@@ -96,6 +96,10 @@ class FitPosteriorCommandTest {
                 "--walkers", "7", "--out", out.toString());
         assertThat(walkers.code()).isEqualTo(2);
         assertThat(walkers.err()).contains("--walkers").contains("even");
+        Run noPosterior = run("fit", csv.toString(), "--model", write("m2.json", MODEL).toString(), "--seed", "3",
+                "--out", out.toString());
+        assertThat(noPosterior.code()).isEqualTo(2);
+        assertThat(noPosterior.err()).contains("--posterior");
         String withPrior = MODEL.replace("\"period\"", "\"priors\": {\"radius2\": {\"uniform\": [0.3, 0.4]}},\n  \"period\"");
         Path p = write("prior.json", withPrior);
         Run prior = run("fit", csv.toString(), "--model", p.toString(), "--posterior", "--out", out.toString());
