@@ -105,7 +105,7 @@ final class WeightedResiduals {
         for (Prepared p : sets) {
             BinaryModel model = new BinaryModel(layout.parameters(ext, p.band));
             for (int i = 0; i < p.t.length; i++) {
-                if (p.used[i] && model.flux(p.t[i]) < 1 - 1e-9) {
+                if (p.used[i] && model.inEclipse(p.t[i])) {
                     count++;
                 }
             }
