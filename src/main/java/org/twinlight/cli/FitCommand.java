@@ -192,7 +192,7 @@ public final class FitCommand implements Callable<Integer> {
             set.commit();
         }
         console().print(FitFiles.summary(r, scale));
-        console().println("caution: " + FitFiles.CAUTION);
+        console().println("caution: " + FitFiles.caution(r.model()));
         console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
         return 0;
     }
