@@ -124,8 +124,12 @@ public final class BinaryModel {
             }
             return 1.0 - (weight1 * hidden1 + weight2 * hidden2) * (1 - thirdLight);
         }
-        double[] extra = terms.extraLight(timeDays);
-        double stars = (weight1 + extra[0]) * (1 - hidden1) + (weight2 + extra[1]) * (1 - hidden2);
+        double x = (timeDays - terms.epochDays) / terms.periodDays;
+        x = (x - Math.floor(x)) * Terms.TABLE_SIZE;
+        int i = (int) x;
+        double u = x - i;
+        double stars = (weight1 + Terms.interpolate(terms.table1, i, u)) * (1 - hidden1)
+                + (weight2 + Terms.interpolate(terms.table2, i, u)) * (1 - hidden2);
         return stars * (1 - thirdLight) + thirdLight;
     }
 
@@ -153,6 +157,7 @@ public final class BinaryModel {
     /**
      * The extra light of each star out of eclipse, units of the system's light (third light
      * excluded): {E₁, E₂} at this instant (see {@link ProximityEffects}); {0, 0} for two spheres.
+     * Computed from the formulas directly; {@link #flux} interpolates them in a table over phase.
      */
     public double[] extraLight(double timeDays) {
         return terms == null ? new double[2] : terms.extraLight(timeDays);
@@ -194,6 +199,8 @@ public final class BinaryModel {
      * velocity do, to first order.
      */
     private static final class Terms {
+        /** Nodes of the tables over one orbital period. */
+        static final int TABLE_SIZE = 256;
         private final double periodDays;
         private final double epochDays;
         private final double e;
@@ -209,6 +216,9 @@ public final class BinaryModel {
         /** Beaming of each star, +bⱼ sin θ, system light. */
         private final double beam1;
         private final double beam2;
+        /** E₁ and E₂ at the phases (k − 1)/N, k = 0..N+2. */
+        final double[] table1;
+        final double[] table2;
 
         Terms(BinaryParameters p, double w1, double w2) {
             periodDays = p.periodDays();
@@ -256,20 +266,58 @@ public final class BinaryModel {
                 beam1 = w1 * ProximityFormulas.beamingAmplitude(x.beaming().factor1(), x.k1KmS());
                 beam2 = -w2 * ProximityFormulas.beamingAmplitude(x.beaming().factor2(), x.k2KmS());
             }
+            double[][] t = tables();
+            table1 = t[0];
+            table2 = t[1];
+        }
+
+        /**
+         * The terms at the table's phases (k − 1)/N, with one node of margin on each side for the
+         * cubic interpolation: {E₁ nodes, E₂ nodes}.
+         */
+        private double[][] tables() {
+            double[][] t = new double[2][TABLE_SIZE + 3];
+            for (int k = 0; k < t[0].length; k++) {
+                double[] v = atPhase((k - 1) / (double) TABLE_SIZE);
+                t[0][k] = v[0];
+                t[1][k] = v[1];
+            }
+            return t;
+        }
+
+        /**
+         * The value at phase (i + u)/N, 0 ≤ u &lt; 1, by Catmull–Rom cubic interpolation between
+         * the table's nodes (continuous with its first derivative; exact at the nodes). The terms
+         * are smooth in phase (the Lambert phase function's third derivative jumps only at full
+         * phase when i = 90°), so 256 nodes leave an error below 1e-7 of the system's light even
+         * edge-on with albedos of 1 and r = 0.2 (checked by test), far below the noise of any
+         * photometry.
+         */
+        static double interpolate(double[] table, int i, double u) {
+            double p0 = table[i];
+            double p1 = table[i + 1];
+            double p2 = table[i + 2];
+            double p3 = table[i + 3];
+            return p1 + 0.5 * u * (p2 - p0 + u * (2 * p0 - 5 * p1 + 4 * p2 - p3 + u * (3 * (p1 - p2) + p3 - p0)));
         }
 
         double[] extraLight(double timeDays) {
+            double phase = (timeDays - epochDays) / periodDays;
+            return atPhase(phase - Math.floor(phase));
+        }
+
+        /** {E₁, E₂} at an orbital phase (fraction of the period after primary conjunction). */
+        private double[] atPhase(double phase) {
             double cosT;
             double sinT;
             double inv;
             if (e == 0) {
-                double f = (timeDays - epochDays) / periodDays;
-                double theta = 2 * Math.PI * (f - Math.floor(f));
+                double theta = 2 * Math.PI * phase;
                 cosT = Math.cos(theta);
                 sinT = Math.sin(theta);
                 inv = 1;
             } else {
-                double mean = meanAnomalyAtEpoch + 2 * Math.PI * ((timeDays - epochDays) / periodDays);
+                double mean = meanAnomalyAtEpoch + 2 * Math.PI * phase;
                 double nu = KeplerEquation.trueAnomaly(KeplerEquation.eccentricAnomaly(mean, e), e);
                 double arg = nu + omegaRad;
                 cosT = Math.sin(arg);

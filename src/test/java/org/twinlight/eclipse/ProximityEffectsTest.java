@@ -205,6 +205,26 @@ class ProximityEffectsTest {
     }
 
     @Test
+    void theTabulatedTermsFollowTheFormulas() {
+        // the model interpolates the terms over phase; edge-on (the reflection's least smooth case) and eccentric,
+        // out of eclipse the flux must equal 1 + E₁ + E₂ from the formulas to far below any photometric noise
+        ProximityEffects x = new ProximityEffects(0.6, null, 100.0, 160.0, ProximityEffects.Ellipsoidal.fromPhysics(0.3,
+                0.4), new ProximityEffects.Reflection(1, 1), ProximityEffects.Beaming.fromVelocities(1, 1));
+        for (BinaryParameters p : new BinaryParameters[] {
+            BinaryParameters.circular(PERIOD, EPOCH, 0.2, 0.15, 90, 0.5).withProximity(x),
+            uneclipsed(x).withEccentricityOmega(0.15, 40)}) {
+            BinaryModel m = new BinaryModel(p);
+            for (int k = 0; k < 2000; k++) {
+                double t = EPOCH + (k + 0.37) / 2000 * PERIOD;
+                if (!m.inEclipse(t)) {
+                    // common practice, no source: 1e-7 of the light is below the noise of any photometry
+                    assertThat(m.flux(t)).isCloseTo(1 + extra(m, (t - EPOCH) / PERIOD), within(1e-7));
+                }
+            }
+        }
+    }
+
+    @Test
     void badValuesNameTheirKey() {
         assertThatThrownBy(() -> new ProximityEffects.Reflection(1.2, 0.5)).hasMessageContaining("reflection.albedo1");
         assertThatThrownBy(() -> new ProximityEffects.Reflection(0.5, -0.1)).hasMessageContaining("reflection.albedo2");
