@@ -23,6 +23,12 @@ import org.twinlight.report.InputDigest;
 import org.twinlight.report.ResultSet;
 import org.twinlight.time.TimeScale;
 import picocli.CommandLine.Command;
+import org.twinlight.sky.Airmass;
+import org.twinlight.sky.Equatorial;
+import org.twinlight.sky.Site;
+import org.twinlight.time.JulianDate;
+import org.twinlight.time.SkyDirection;
+import org.twinlight.time.TimeConverter;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -81,6 +87,23 @@ public final class FitCommand implements Callable<Integer> {
                     + "refitting until none change (at least 3; default: ${DEFAULT-VALUE}); none keeps every point. "
                     + "The input is never changed; fit.json counts what was left out.")
     String clip;
+
+    @Option(names = "--airmass", paramLabel = "column|computed",
+            description = "Fit an extinction term per segment, linear in the airmass, with the baseline: from the "
+                    + "file's airmass column, or computed from --ra, --dec and --site (default: none).")
+    String airmass;
+
+    @Option(names = "--ra", paramLabel = "RA", description = "Right ascension, J2000, for --airmass computed: degrees "
+            + "or hh:mm:ss.s.")
+    String ra;
+
+    @Option(names = "--dec", paramLabel = "DEC", description = "Declination, J2000, for --airmass computed: degrees or "
+            + "±dd:mm:ss.")
+    String dec;
+
+    @Option(names = "--site", paramLabel = "LAT,LON[,H]|FILE", description = "Observing site for --airmass computed: "
+            + "latitude, longitude (degrees, east positive), height (m); or a site file.")
+    String site;
 
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
@@ -141,6 +164,7 @@ public final class FitCommand implements Callable<Integer> {
                         + String.join(", ", start.bands().keySet()) + ") and " + f + " is band '" + band
                         + "' (" + bandSource + "); name its band with --band or add the band to the model file");
             }
+            lc = withAirmass(lc, f, base);
             data.add(new FitData(lc, band));
             String digest = InputDigest.sha256(f);
             for (FitFiles.InputRecord earlier : inputs) {
@@ -240,5 +264,58 @@ public final class FitCommand implements Callable<Integer> {
 
     private java.io.PrintWriter console() {
         return spec.commandLine().getOut();
+    }
+
+    /**
+     * The light curve with the airmass the fit is to use: the file's column ({@code --airmass
+     * column}), one computed for each time ({@code computed}), or none (the default, which also
+     * drops a column the file has).
+     */
+    private LightCurve withAirmass(LightCurve lc, Path f, Baseline base) {
+        if (airmass == null) {
+            if (lc.hasAirmass()) {
+                console().println("note: " + f + " has an airmass column; --airmass column fits an extinction term "
+                        + "per segment with it");
+            }
+            return lc.hasAirmass() ? lc.withAirmass(null) : lc;
+        }
+        String mode = airmass.trim().toLowerCase(Locale.ROOT);
+        if (!mode.equals("column") && !mode.equals("computed")) {
+            throw new BadInputException("option --airmass: expected column or computed, got '" + airmass + "'");
+        }
+        if (base == Baseline.NONE) {
+            throw new BadInputException("option --airmass: the extinction term is solved with the baseline, so it "
+                    + "needs --baseline offset, linear or quadratic, not none");
+        }
+        if (mode.equals("column")) {
+            if (!lc.hasAirmass()) {
+                throw new BadInputException("option --airmass column: " + f + " has no airmass column (a column "
+                        + "named 'airmass'); add one, or use --airmass computed with --ra, --dec and --site");
+            }
+            return lc;
+        }
+        SkyDirection direction = SkyPositionOptions.parse(ra, dec, "--airmass computed");
+        if (site == null) {
+            throw new BadInputException("option --site is missing: --airmass computed needs the observing site "
+                    + "(LAT,LON[,HEIGHT_M] or a site file)");
+        }
+        if (lc.timeScale() == TimeScale.UNKNOWN) {
+            throw new BadInputException(f + ": the time scale is unknown, so the airmass cannot be computed; declare "
+                    + "it with --time-scale");
+        }
+        Site where = SkyPositionOptions.site(site);
+        Equatorial j2000 = new Equatorial(direction.raDeg(), direction.decDeg());
+        double[] t = lc.timesDays();
+        double[] x = new double[t.length];
+        for (int i = 0; i < t.length; i++) {
+            JulianDate utc = TimeConverter.convert(JulianDate.of(t[i], lc.timeScale()), TimeScale.JD_UTC, direction);
+            try {
+                x[i] = Airmass.at(j2000, where, utc);
+            } catch (IllegalArgumentException e) {
+                throw new BadInputException(f + ": at time " + t[i] + " " + e.getMessage() + " from the site given; "
+                        + "check --ra, --dec, --site (longitude east positive) and the time scale");
+            }
+        }
+        return lc.withAirmass(x);
     }
 }
