@@ -45,6 +45,10 @@ final class ParameterLayout {
     static final int ECCENTRICITY = 5;
     static final int OMEGA = 6;
     private static final int COMMON_COUNT = 7;
+    /** Every name a proximity effect can bring into the layout. */
+    private static final Set<String> PROXIMITY_NAMES = Set.of("massRatio", "ellipsoidal.amplitude",
+            "ellipsoidal.gravityDarkening1", "ellipsoidal.gravityDarkening2", "reflection.albedo1", "reflection.albedo2",
+            "beaming.amplitude", "beaming.factor1", "beaming.factor2");
     /** Finite-difference step as a fraction of a parameter's scale (common practice, no source). */
     static final double STEP_FRACTION = 0.01;
     /** The largest eccentricity and third light a trial point may take. */
@@ -177,6 +181,10 @@ final class ParameterLayout {
                     out.set(i, out.get(i).withFree(true));
                     matched = true;
                 }
+            }
+            if (!matched && PROXIMITY_NAMES.contains(f)) {
+                throw new BadInputException("option --free: '" + f + "' is not a parameter of this model: switch its "
+                        + "effect on in the model file (massRatio, ellipsoidal, reflection, beaming; docs/model.md)");
             }
             if (!matched) {
                 boolean ldName = f.startsWith("limbDarkening1.") || f.startsWith("limbDarkening2.");
