@@ -36,21 +36,9 @@ public record ProximityEffects(Double massRatio, Double semiMajorAxisSolarRadii,
      */
     public record Ellipsoidal(Double gravityDarkening1, Double gravityDarkening2, Double amplitude) {
         public Ellipsoidal {
-            if (amplitude != null) {
-                requireFinite(amplitude, "ellipsoidal.amplitude");
-                if (gravityDarkening1 != null || gravityDarkening2 != null) {
-                    throw new IllegalArgumentException("ellipsoidal: give either 'amplitude' or "
-                            + "'gravityDarkening1' and 'gravityDarkening2', not both");
-                }
-            } else {
-                requirePresent(gravityDarkening1, "ellipsoidal.gravityDarkening1",
-                        "the gravity-darkening coefficient τ of star 1 in the band (about 0.3–0.5 for a convective "
-                                + "envelope, 1 bolometric for a radiative one), or 'amplitude' instead");
-                requirePresent(gravityDarkening2, "ellipsoidal.gravityDarkening2",
-                        "the gravity-darkening coefficient τ of star 2 in the band, or 'amplitude' instead");
-                requireFinite(gravityDarkening1, "ellipsoidal.gravityDarkening1");
-                requireFinite(gravityDarkening2, "ellipsoidal.gravityDarkening2");
-            }
+            requireOneForm("ellipsoidal", amplitude, "gravityDarkening", gravityDarkening1, gravityDarkening2,
+                    "the gravity-darkening coefficient τ of star %d in the band (about 0.3–0.5 for a convective "
+                            + "envelope, 1 bolometric for a radiative one)");
         }
 
         /** The variation from physics. */
@@ -100,21 +88,8 @@ public record ProximityEffects(Double massRatio, Double semiMajorAxisSolarRadii,
      */
     public record Beaming(Double factor1, Double factor2, Double amplitude) {
         public Beaming {
-            if (amplitude != null) {
-                requireFinite(amplitude, "beaming.amplitude");
-                if (factor1 != null || factor2 != null) {
-                    throw new IllegalArgumentException("beaming: give either 'amplitude' or 'factor1' and "
-                            + "'factor2', not both");
-                }
-            } else {
-                requirePresent(factor1, "beaming.factor1", "the beaming factor of star 1 in the band (about 1 "
-                        + "for a Sun-like star in V; x eˣ/(4(eˣ−1)) for a black body, x = hc/λkT), or "
-                        + "'amplitude' instead");
-                requirePresent(factor2, "beaming.factor2", "the beaming factor of star 2 in the band, or "
-                        + "'amplitude' instead");
-                requireFinite(factor1, "beaming.factor1");
-                requireFinite(factor2, "beaming.factor2");
-            }
+            requireOneForm("beaming", amplitude, "factor", factor1, factor2, "the beaming factor of star %d in the "
+                    + "band (about 1 for a Sun-like star in V; x eˣ/(4(eˣ−1)) for a black body, x = hc/λkT)");
         }
 
         /** The beaming from k1, k2 with these factors. */
@@ -153,6 +128,28 @@ public record ProximityEffects(Double massRatio, Double semiMajorAxisSolarRadii,
         if (beaming != null && !beaming.freeAmplitude() && (k1KmS == null || k2KmS == null)) {
             throw new IllegalArgumentException((k1KmS == null ? "k1" : "k2") + " is missing; the beaming from "
                     + "the velocities needs k1 and k2 in km/s (or give beaming.amplitude instead)");
+        }
+    }
+
+    /**
+     * An effect is given either by a free amplitude or by one value per star (KEY1, KEY2), never
+     * both; each number finite.
+     */
+    private static void requireOneForm(String effect, Double amplitude, String key, Double star1, Double star2,
+            String what) {
+        if (amplitude != null) {
+            requireFinite(amplitude, effect + ".amplitude");
+            if (star1 != null || star2 != null) {
+                throw new IllegalArgumentException(effect + ": give either 'amplitude' or '" + key + "1' and '" + key
+                        + "2', not both");
+            }
+            return;
+        }
+        Double[] values = {star1, star2};
+        for (int star = 1; star <= 2; star++) {
+            String name = effect + "." + key + star;
+            requirePresent(values[star - 1], name, String.format(what, star) + ", or 'amplitude' instead");
+            requireFinite(values[star - 1], name);
         }
     }
 
