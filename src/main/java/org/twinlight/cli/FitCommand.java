@@ -197,6 +197,8 @@ public final class FitCommand implements Callable<Integer> {
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
                 VersionInfo.version());
+        ((com.fasterxml.jackson.databind.node.ObjectNode) doc.get("settings")).put("airmass",
+                airmass == null ? "none" : airmass.trim().toLowerCase(Locale.ROOT));
         com.fasterxml.jackson.databind.node.ArrayNode notes = (com.fasterxml.jackson.databind.node.ArrayNode) doc.get("notes");
         startNotes.forEach(notes::add);
         for (FitData d : data) {
