@@ -77,6 +77,27 @@ class ProximityFitTest {
     }
 
     @Test
+    void freeAmplitudesAreRecovered() {
+        // an ellipsoidal variation and a beaming given as free amplitudes (demo values), fitted from other starts
+        BinaryParameters truth = TRUTH.withProximity(new ProximityEffects(null, null, null, null,
+                ProximityEffects.Ellipsoidal.free(0.008), null, ProximityEffects.Beaming.free(6e-4)));
+        LinkedHashSet<String> free = new LinkedHashSet<>(GEOMETRY);
+        free.addAll(List.of("ellipsoidal.amplitude", "beaming.amplitude"));
+        for (long seed = 11; seed <= 12; seed++) {
+            double[] t = SyntheticLightCurve.regularTimes(2460000.0, 2460004.0, 3.0, List.of(), null);
+            LightCurve lc = SyntheticLightCurve.observe(new BinaryModel(truth), t, 500, seed, "free-" + seed, "V",
+                    TimeScale.BJD_TDB);
+            BinaryParameters start = offStart(truth).withProximity(new ProximityEffects(null, null, null, null,
+                    ProximityEffects.Ellipsoidal.free(0.004), null, ProximityEffects.Beaming.free(0)));
+            FitResult r = EclipseFitter.fit(ModelFile.of(start), List.of(new FitData(lc, "V")),
+                    FitSettings.defaults().withFree(free));
+            assertThat(Math.abs(pull(r, "ellipsoidal.amplitude", 0.008))).as("ellipsoidal, seed " + seed).isLessThan(3);
+            assertThat(Math.abs(pull(r, "beaming.amplitude", 6e-4))).as("beaming, seed " + seed).isLessThan(3);
+            assertThat(Math.abs(pull(r, "radius1", TRUTH.radius1()))).as("radius1, seed " + seed).isLessThan(3);
+        }
+    }
+
+    @Test
     void starsTooLargeForSpheresAreNamed() {
         // Roche lobes from Eggleton 1983, ApJ 268, 368 eq. 2 (REFERENCE-VALUES §14: q = 2 → 0.440004,
         // q = 0.5 → 0.320788); the r ≈ 0.25 limit is common practice, no source
