@@ -27,6 +27,19 @@ class AirmassColumnTest {
     }
 
     @Test
+    void fitsTablesCarryTheirAirmassColumnToo() throws Exception {
+        FitsFixture.Table t = new FitsFixture.Table()
+                .column("TIME", new double[] {2460000.1, 2460000.2, 2460000.3})
+                .column("FLUX", new double[] {1, 0.99, 0.98})
+                .column("AIRMASS", new double[] {1.4, Double.NaN, 1.2});
+        Path f = dir.resolve("night.fits");
+        new FitsFixture().table(t).write(f);
+        LightCurve lc = LightCurveReader.read(f, ReadOptions.defaults());
+        assertThat(lc.airmass()).containsExactly(1.4, 1.2);
+        assertThat(lc.rejectedCount()).isEqualTo(1);
+    }
+
+    @Test
     void noAirmassColumnMeansNoAirmass() throws Exception {
         Path f = Files.writeString(dir.resolve("plain.csv"), "time,flux\n1.0,1.0\n1.1,0.99\n");
         assertThat(LightCurveReader.read(f, ReadOptions.defaults()).hasAirmass()).isFalse();
