@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.twinlight.eclipse.BinaryModel;
+import org.twinlight.eclipse.ProximityEffects;
 import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.LimbDarkening;
 import org.twinlight.eclipse.ModelFile;
@@ -46,6 +47,11 @@ public final class BenchCommand implements Callable<Integer> {
     static final BinaryParameters SYSTEM = new BinaryParameters(2.4683, 2460200.3121, 0.075, 0.051, 89.1, 0, 90,
             0.71, 0, LimbDarkening.quadratic(0.42, 0.23), LimbDarkening.quadratic(0.48, 0.21), 0, 1);
 
+    /** All three proximity terms and the light-travel time on (demo values). */
+    static final ProximityEffects PROXIMITY = new ProximityEffects(0.8, null, 95.0, 118.75,
+            ProximityEffects.Ellipsoidal.fromPhysics(0.32, 0.32), new ProximityEffects.Reflection(0.5, 0.5),
+            ProximityEffects.Beaming.fromVelocities(1.0, 1.1));
+
     @Override
     public Integer call() {
         if (repeats < 1 || fits < 1) {
@@ -83,6 +89,17 @@ public final class BenchCommand implements Callable<Integer> {
         double eccMs = medianMillis(() -> eccentric.flux(t, out), repeats);
         console().printf(Locale.ROOT, "full model, e = 0.2:    %.3f ms per evaluation (median of %d), Kepler's equation solved "
                 + "near the conjunctions only%n", eccMs, repeats);
+
+        BinaryParameters closePair = SYSTEM.withProximity(PROXIMITY);
+        BinaryModel close = new BinaryModel(closePair);
+        double closeMs = medianMillis(() -> close.flux(t, out), repeats);
+        // as the fit uses it: a new model (with its tables) for every trial point
+        double builtMs = medianMillis(() -> new BinaryModel(SYSTEM).flux(t, out), repeats);
+        double closeBuiltMs = medianMillis(() -> new BinaryModel(closePair).flux(t, out), repeats);
+        console().printf(Locale.ROOT, "full model with ellipsoidal variation, reflection, beaming and light-travel time: "
+                + "%.3f ms per evaluation (median of %d), %.2f x the spherical model; built anew for each "
+                + "evaluation, as in a fit: %.3f ms, %.2f x%n", closeMs, repeats, closeMs / modelMs, closeBuiltMs,
+                closeBuiltMs / builtMs);
 
         LightCurve lc = SyntheticLightCurve.observe(model, t, 300, 7, "bench", "bench", TimeScale.BJD_TDB);
         ModelFile start = ModelFile.of(SYSTEM.withRadii(SYSTEM.radius1() * 1.05, SYSTEM.radius2() * 0.95)

@@ -31,6 +31,12 @@ import org.twinlight.report.PosteriorPlots;
 import org.twinlight.report.ResultSet;
 import org.twinlight.time.TimeScale;
 import picocli.CommandLine.Command;
+import org.twinlight.sky.Airmass;
+import org.twinlight.sky.Equatorial;
+import org.twinlight.sky.Site;
+import org.twinlight.time.JulianDate;
+import org.twinlight.time.SkyDirection;
+import org.twinlight.time.TimeConverter;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -97,6 +103,23 @@ public final class FitCommand implements Callable<Integer> {
             + "under \"minima\", a note names any that fits almost as well (Δχ² < 9), and the best is fitted as usual.")
     boolean global;
 
+    @Option(names = "--airmass", paramLabel = "column|computed",
+            description = "Fit an extinction term per segment, linear in the airmass, with the baseline: from the "
+                    + "file's airmass column, or computed from --ra, --dec and --site (default: none).")
+    String airmass;
+
+    @Option(names = "--ra", paramLabel = "RA", description = "Right ascension, J2000, for --airmass computed: degrees "
+            + "or hh:mm:ss.s.")
+    String ra;
+
+    @Option(names = "--dec", paramLabel = "DEC", description = "Declination, J2000, for --airmass computed: degrees or "
+            + "±dd:mm:ss.")
+    String dec;
+
+    @Option(names = "--site", paramLabel = "LAT,LON[,H]|FILE", description = "Observing site for --airmass computed: "
+            + "latitude, longitude (degrees, east positive), height (m); or a site file.")
+    String site;
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
 
@@ -162,6 +185,7 @@ public final class FitCommand implements Callable<Integer> {
                         + String.join(", ", start.bands().keySet()) + ") and " + f + " is band '" + band
                         + "' (" + bandSource + "); name its band with --band or add the band to the model file");
             }
+            lc = withAirmass(lc, f, base);
             data.add(new FitData(lc, band));
             String digest = InputDigest.sha256(f);
             for (FitFiles.InputRecord earlier : inputs) {
@@ -206,6 +230,8 @@ public final class FitCommand implements Callable<Integer> {
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
                 VersionInfo.version());
+        ((com.fasterxml.jackson.databind.node.ObjectNode) doc.get("settings")).put("airmass",
+                airmass == null ? "none" : airmass.trim().toLowerCase(Locale.ROOT));
         com.fasterxml.jackson.databind.node.ArrayNode notes = (com.fasterxml.jackson.databind.node.ArrayNode) doc.get("notes");
         startNotes.forEach(notes::add);
         FitFiles.putPriors(doc, priors);
@@ -238,7 +264,7 @@ public final class FitCommand implements Callable<Integer> {
             set.commit();
         }
         console().print(FitFiles.summary(r, scale));
-        console().println("caution: " + FitFiles.CAUTION);
+        console().println("caution: " + FitFiles.caution(r.model()));
         if (posterior == null) {
             console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
             return 0;
@@ -298,5 +324,58 @@ public final class FitCommand implements Callable<Integer> {
 
     private java.io.PrintWriter console() {
         return spec.commandLine().getOut();
+    }
+
+    /**
+     * The light curve with the airmass the fit is to use: the file's column ({@code --airmass
+     * column}), one computed for each time ({@code computed}), or none (the default, which also
+     * drops a column the file has).
+     */
+    private LightCurve withAirmass(LightCurve lc, Path f, Baseline base) {
+        if (airmass == null) {
+            if (lc.hasAirmass()) {
+                console().println("note: " + f + " has an airmass column; --airmass column fits an extinction term "
+                        + "per segment with it");
+            }
+            return lc.hasAirmass() ? lc.withAirmass(null) : lc;
+        }
+        String mode = airmass.trim().toLowerCase(Locale.ROOT);
+        if (!mode.equals("column") && !mode.equals("computed")) {
+            throw new BadInputException("option --airmass: expected column or computed, got '" + airmass + "'");
+        }
+        if (base == Baseline.NONE) {
+            throw new BadInputException("option --airmass: the extinction term is solved with the baseline, so it "
+                    + "needs --baseline offset, linear or quadratic, not none");
+        }
+        if (mode.equals("column")) {
+            if (!lc.hasAirmass()) {
+                throw new BadInputException("option --airmass column: " + f + " has no airmass column (a column "
+                        + "named 'airmass'); add one, or use --airmass computed with --ra, --dec and --site");
+            }
+            return lc;
+        }
+        SkyDirection direction = SkyPositionOptions.parse(ra, dec, "--airmass computed");
+        if (site == null) {
+            throw new BadInputException("option --site is missing: --airmass computed needs the observing site "
+                    + "(LAT,LON[,HEIGHT_M] or a site file)");
+        }
+        if (lc.timeScale() == TimeScale.UNKNOWN) {
+            throw new BadInputException(f + ": the time scale is unknown, so the airmass cannot be computed; declare "
+                    + "it with --time-scale");
+        }
+        Site where = SkyPositionOptions.site(site);
+        Equatorial j2000 = new Equatorial(direction.raDeg(), direction.decDeg());
+        double[] t = lc.timesDays();
+        double[] x = new double[t.length];
+        for (int i = 0; i < t.length; i++) {
+            JulianDate utc = TimeConverter.convert(JulianDate.of(t[i], lc.timeScale()), TimeScale.JD_UTC, direction);
+            try {
+                x[i] = Airmass.at(j2000, where, utc);
+            } catch (IllegalArgumentException e) {
+                throw new BadInputException(f + ": at time " + t[i] + " " + e.getMessage() + " from the site given; "
+                        + "check --ra, --dec, --site (longitude east positive) and the time scale");
+            }
+        }
+        return lc.withAirmass(x);
     }
 }

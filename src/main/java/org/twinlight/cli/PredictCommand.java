@@ -198,15 +198,7 @@ public final class PredictCommand implements Callable<Integer> {
     }
 
     private Site readSite() {
-        Path p = Path.of(site);
-        if (!site.contains(",") && Files.isRegularFile(p)) {
-            return PlanningInputs.readSiteFile(p);
-        }
-        if (!site.contains(",")) {
-            throw new BadInputException("option --site: '" + site + "' is neither LAT,LON[,HEIGHT_M] nor an existing"
-                    + " site file");
-        }
-        return Site.parse(site, "option --site");
+        return SkyPositionOptions.site(site);
     }
 
     private static LocalDate date(String option, String text) {

@@ -1,5 +1,10 @@
 package org.twinlight.cli;
 
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.twinlight.report.PlanningInputs;
+import org.twinlight.sky.Site;
+
 import org.twinlight.BadInputException;
 import org.twinlight.time.SkyDirection;
 
@@ -42,5 +47,21 @@ final class SkyPositionOptions {
             throw new BadInputException("option --dec: " + e.getMessage());
         }
         return new SkyDirection(raDeg, decDeg);
+    }
+
+    /**
+     * A site from {@code --site}: {@code LAT,LON[,HEIGHT_M]} (degrees, east positive; metres) or a
+     * site file.
+     */
+    static Site site(String text) {
+        Path p = Path.of(text);
+        if (!text.contains(",") && Files.isRegularFile(p)) {
+            return PlanningInputs.readSiteFile(p);
+        }
+        if (!text.contains(",")) {
+            throw new BadInputException("option --site: '" + text + "' is neither LAT,LON[,HEIGHT_M] nor an existing"
+                    + " site file");
+        }
+        return Site.parse(text, "option --site");
     }
 }

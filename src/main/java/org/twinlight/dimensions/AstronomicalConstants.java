@@ -24,6 +24,8 @@ public final class AstronomicalConstants {
     public static final double CODATA_2018_STEFAN_BOLTZMANN_W_M2_K4 = 5.670374419e-8;
     /** Newtonian constant of gravitation, m³ kg⁻¹ s⁻² (CODATA 2018; relative uncertainty 2.2e-5). */
     public static final double CODATA_2018_GRAVITATIONAL_CONSTANT_M3_KG_S2 = 6.67430e-11;
+    /** Speed of light in vacuum, m/s (exact; defining constant of the SI, CODATA 2018). */
+    public static final double SPEED_OF_LIGHT_M_S = 299792458.0;
     /** Astronomical unit, m (exact; IAU 2012 Resolution B2). */
     public static final double IAU_2012_ASTRONOMICAL_UNIT_M = 1.49597870700e11;
     /** The day of 86400 SI seconds, the unit of time of twinlight's periods. */

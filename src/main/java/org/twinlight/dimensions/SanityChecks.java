@@ -3,6 +3,7 @@ package org.twinlight.dimensions;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.twinlight.orbit.RocheLobe;
 
 /**
  * Warnings about dimensions that cannot be right for two ordinary stars, or that make the

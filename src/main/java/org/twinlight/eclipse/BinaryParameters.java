@@ -20,11 +20,13 @@ import org.twinlight.orbit.Orbit;
  * @param limbDarkening2 intensity profile of star 2
  * @param exposureTimeDays exposure time for smearing, days (0 = instantaneous)
  * @param supersample number of sub-exposures averaged when exposureTimeDays &gt; 0
+ * @param proximity ellipsoidal variation, reflection, beaming and light-travel time
+ *     ({@link ProximityEffects#NONE}: two spheres)
  */
 public record BinaryParameters(double periodDays, double epochDays, double radius1, double radius2,
         double inclinationDeg, double eccentricity, double omegaDeg, double surfaceBrightnessRatio,
         double thirdLight, LimbDarkening limbDarkening1, LimbDarkening limbDarkening2,
-        double exposureTimeDays, int supersample) {
+        double exposureTimeDays, int supersample, ProximityEffects proximity) {
 
     /**
      * Shortest period accepted, days (86.4 s: below the shortest orbital periods of detached stars
@@ -40,6 +42,7 @@ public record BinaryParameters(double periodDays, double epochDays, double radiu
     public static final int MAX_SUPERSAMPLE = 200;
 
     public BinaryParameters {
+        Objects.requireNonNull(proximity, "proximity");
         Objects.requireNonNull(limbDarkening1, "limbDarkening1");
         Objects.requireNonNull(limbDarkening2, "limbDarkening2");
         require(periodDays >= MIN_PERIOD_DAYS && periodDays <= MAX_PERIOD_DAYS, "period", periodDays,
@@ -62,6 +65,15 @@ public record BinaryParameters(double periodDays, double epochDays, double radiu
                     + "less than 1 − eccentricity = %.4g: the two spheres would touch or overlap%s", radius1 + radius2,
                     1 - eccentricity, eccentricity > 0 ? " at periastron" : ""));
         }
+    }
+
+    /** Two spheres without proximity effects. */
+    public BinaryParameters(double periodDays, double epochDays, double radius1, double radius2,
+            double inclinationDeg, double eccentricity, double omegaDeg, double surfaceBrightnessRatio,
+            double thirdLight, LimbDarkening limbDarkening1, LimbDarkening limbDarkening2, double exposureTimeDays,
+            int supersample) {
+        this(periodDays, epochDays, radius1, radius2, inclinationDeg, eccentricity, omegaDeg, surfaceBrightnessRatio,
+                thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample, ProximityEffects.NONE);
     }
 
     private static void require(boolean ok, String name, double value, String expected) {
@@ -114,46 +126,51 @@ public record BinaryParameters(double periodDays, double epochDays, double radiu
 
     public BinaryParameters withEpochDays(double v) {
         return new BinaryParameters(periodDays, v, radius1, radius2, inclinationDeg, eccentricity, omegaDeg,
-                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample);
+                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample, proximity);
     }
 
     public BinaryParameters withPeriodDays(double v) {
         return new BinaryParameters(v, epochDays, radius1, radius2, inclinationDeg, eccentricity, omegaDeg,
-                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample);
+                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample, proximity);
     }
 
     public BinaryParameters withRadii(double r1, double r2) {
         return new BinaryParameters(periodDays, epochDays, r1, r2, inclinationDeg, eccentricity, omegaDeg,
-                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample);
+                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample, proximity);
     }
 
     public BinaryParameters withInclinationDeg(double v) {
         return new BinaryParameters(periodDays, epochDays, radius1, radius2, v, eccentricity, omegaDeg,
-                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample);
+                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample, proximity);
     }
 
     public BinaryParameters withEccentricityOmega(double e, double wDeg) {
         return new BinaryParameters(periodDays, epochDays, radius1, radius2, inclinationDeg, e, wDeg,
-                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample);
+                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample, proximity);
     }
 
     public BinaryParameters withSurfaceBrightnessRatio(double v) {
         return new BinaryParameters(periodDays, epochDays, radius1, radius2, inclinationDeg, eccentricity, omegaDeg,
-                v, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample);
+                v, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample, proximity);
     }
 
     public BinaryParameters withThirdLight(double v) {
         return new BinaryParameters(periodDays, epochDays, radius1, radius2, inclinationDeg, eccentricity, omegaDeg,
-                surfaceBrightnessRatio, v, limbDarkening1, limbDarkening2, exposureTimeDays, supersample);
+                surfaceBrightnessRatio, v, limbDarkening1, limbDarkening2, exposureTimeDays, supersample, proximity);
     }
 
     public BinaryParameters withLimbDarkening(LimbDarkening ld1, LimbDarkening ld2) {
         return new BinaryParameters(periodDays, epochDays, radius1, radius2, inclinationDeg, eccentricity, omegaDeg,
-                surfaceBrightnessRatio, thirdLight, ld1, ld2, exposureTimeDays, supersample);
+                surfaceBrightnessRatio, thirdLight, ld1, ld2, exposureTimeDays, supersample, proximity);
     }
 
     public BinaryParameters withExposure(double exposureDays, int subExposures) {
         return new BinaryParameters(periodDays, epochDays, radius1, radius2, inclinationDeg, eccentricity, omegaDeg,
-                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureDays, subExposures);
+                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureDays, subExposures, proximity);
+    }
+
+    public BinaryParameters withProximity(ProximityEffects v) {
+        return new BinaryParameters(periodDays, epochDays, radius1, radius2, inclinationDeg, eccentricity, omegaDeg,
+                surfaceBrightnessRatio, thirdLight, limbDarkening1, limbDarkening2, exposureTimeDays, supersample, v);
     }
 }

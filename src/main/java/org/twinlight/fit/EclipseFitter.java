@@ -12,6 +12,7 @@ import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.RealMatrix;
 import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.twinlight.WorkFailedException;
+import org.twinlight.eclipse.BinaryModel;
 import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.ModelFile;
 import org.twinlight.photometry.RobustStatistics;
@@ -444,6 +445,12 @@ public final class EclipseFitter {
                 names.add("lightRatio");
                 bands.add(multiBand ? layout.bands().get(b) : null);
                 out.add(layout.parameters(ext, b).lightRatio());
+                for (Map.Entry<String, Double> a : new BinaryModel(layout.parameters(ext, b)).proximityAmplitudes()
+                        .entrySet()) {
+                    names.add(a.getKey());
+                    bands.add(multiBand ? layout.bands().get(b) : null);
+                    out.add(a.getValue());
+                }
             }
             return new Reported(out.stream().mapToDouble(Double::doubleValue).toArray(), names, bands);
         }

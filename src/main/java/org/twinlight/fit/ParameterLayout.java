@@ -12,6 +12,7 @@ import org.twinlight.eclipse.BandValues;
 import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.LimbDarkening;
 import org.twinlight.eclipse.ModelFile;
+import org.twinlight.eclipse.ProximityEffects;
 
 /**
  * The model's parameters, one {@link FitParameter} each (the common ones, then each band's), and
@@ -27,6 +28,9 @@ import org.twinlight.eclipse.ModelFile;
  * third light: folded, value = |x|</li>
  * <li>surface-brightness ratio: ln J</li>
  * <li>period, epoch, ω alone and limb-darkening coefficients: (value − start) / scale</li>
+ * <li>proximity effects (present only when the starting model switches them on, after the
+ * bands' parameters): mass ratio ln q; albedos folded at 0 and held at most 1; gravity-darkening
+ * and beaming factors and the free amplitudes (value − start) / scale</li>
  * </ul>
  * Finite-difference steps are one hundredth of each parameter's scale, carried into the internal
  * coordinate. Points the solver proposes outside the model's domain are moved back inside by
@@ -41,6 +45,10 @@ final class ParameterLayout {
     static final int ECCENTRICITY = 5;
     static final int OMEGA = 6;
     private static final int COMMON_COUNT = 7;
+    /** Every name a proximity effect can bring into the layout. */
+    private static final Set<String> PROXIMITY_NAMES = Set.of("massRatio", "ellipsoidal.amplitude",
+            "ellipsoidal.gravityDarkening1", "ellipsoidal.gravityDarkening2", "reflection.albedo1", "reflection.albedo2",
+            "beaming.amplitude", "beaming.factor1", "beaming.factor2");
     /** Finite-difference step as a fraction of a parameter's scale (common practice, no source). */
     static final double STEP_FRACTION = 0.01;
     /** The largest eccentricity and third light a trial point may take. */
@@ -55,6 +63,9 @@ final class ParameterLayout {
     private final BinaryParameters[] bandStart;
     private final List<FitParameter> parameters;
     private final List<Block> blocks = new ArrayList<>();
+    /** Index of the first proximity parameter; the names of those parameters in order. */
+    private final int proximityOffset;
+    private final List<String> proximityNames;
     private final int internalSize;
 
     ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames) {
@@ -94,6 +105,9 @@ final class ParameterLayout {
             addCoefficients(list, "limbDarkening1", band, bp.limbDarkening1());
             addCoefficients(list, "limbDarkening2", band, bp.limbDarkening2());
         }
+        this.proximityOffset = list.size();
+        addProximity(list, c.proximity());
+        this.proximityNames = list.subList(proximityOffset, list.size()).stream().map(FitParameter::name).toList();
         List<FitParameter> marked = new ArrayList<>(markFree(list, freeNames));
         if (fixedIndex >= 0) {
             marked.set(fixedIndex, marked.get(fixedIndex).withFree(false));
@@ -117,12 +131,47 @@ final class ParameterLayout {
         }
     }
 
+    /**
+     * The parameters of the proximity effects the model switches on: the mass ratio when given,
+     * the ellipsoidal variation's gravity-darkening coefficients or free amplitude, the albedos,
+     * the beaming factors or free amplitude. Scales: about what a good light curve determines
+     * (common practice, no source).
+     */
+    private static void addProximity(List<FitParameter> list, ProximityEffects x) {
+        double inf = Double.POSITIVE_INFINITY;
+        if (x.massRatio() != null) {
+            list.add(param("massRatio", null, x.massRatio(), 0.01, 0, inf, FitParameter.Edge.NONE));
+        }
+        ProximityEffects.Ellipsoidal e = x.ellipsoidal();
+        if (e != null && e.freeAmplitude()) {
+            list.add(param("ellipsoidal.amplitude", null, e.amplitude(), 1e-4, -inf, inf, FitParameter.Edge.NONE));
+        } else if (e != null) {
+            list.add(param("ellipsoidal.gravityDarkening1", null, e.gravityDarkening1(), 0.05, -inf, inf,
+                    FitParameter.Edge.NONE));
+            list.add(param("ellipsoidal.gravityDarkening2", null, e.gravityDarkening2(), 0.05, -inf, inf,
+                    FitParameter.Edge.NONE));
+        }
+        if (x.reflection() != null) {
+            list.add(param("reflection.albedo1", null, x.reflection().albedo1(), 0.02, 0, 1, FitParameter.Edge.LOWER));
+            list.add(param("reflection.albedo2", null, x.reflection().albedo2(), 0.02, 0, 1, FitParameter.Edge.LOWER));
+        }
+        ProximityEffects.Beaming b = x.beaming();
+        if (b != null && b.freeAmplitude()) {
+            list.add(param("beaming.amplitude", null, b.amplitude(), 1e-5, -inf, inf, FitParameter.Edge.NONE));
+        } else if (b != null) {
+            list.add(param("beaming.factor1", null, b.factor1(), 0.05, -inf, inf, FitParameter.Edge.NONE));
+            list.add(param("beaming.factor2", null, b.factor2(), 0.05, -inf, inf, FitParameter.Edge.NONE));
+        }
+    }
+
     private static List<FitParameter> markFree(List<FitParameter> list, Set<String> freeNames) {
         Set<String> known = new LinkedHashSet<>();
         for (int i = 0; i < COMMON_COUNT; i++) {
             known.add(list.get(i).name());
         }
         known.addAll(List.of("surfaceBrightnessRatio", "thirdLight", "limbDarkening1", "limbDarkening2"));
+        list.stream().map(FitParameter::name).filter(n -> n.equals("massRatio") || n.startsWith("ellipsoidal.")
+                || n.startsWith("reflection.") || n.startsWith("beaming.")).forEach(known::add);
         List<FitParameter> out = new ArrayList<>(list);
         for (String f : freeNames) {
             boolean matched = false;
@@ -132,6 +181,10 @@ final class ParameterLayout {
                     out.set(i, out.get(i).withFree(true));
                     matched = true;
                 }
+            }
+            if (!matched && PROXIMITY_NAMES.contains(f)) {
+                throw new BadInputException("option --free: '" + f + "' is not a parameter of this model: switch its "
+                        + "effect on in the model file (massRatio, ellipsoidal, reflection, beaming; docs/model.md)");
             }
             if (!matched) {
                 boolean ldName = f.startsWith("limbDarkening1.") || f.startsWith("limbDarkening2.");
@@ -186,6 +239,19 @@ final class ParameterLayout {
             int nLd = bandStart[b].limbDarkening1().coefficientCount() + bandStart[b].limbDarkening2().coefficientCount();
             for (int k = 0; k < nLd; k++) {
                 addScaled(off + 2 + k);
+            }
+        }
+        for (int i = proximityOffset; i < parameters.size(); i++) {
+            String name = parameters.get(i).name();
+            if (!isFree(i)) {
+                continue;
+            }
+            if (name.equals("massRatio")) {
+                blocks.add(new Logarithm(i));
+            } else if (name.startsWith("reflection.")) {
+                blocks.add(new Folded(i));
+            } else {
+                blocks.add(new Scaled(i));
             }
         }
     }
@@ -319,6 +385,12 @@ final class ParameterLayout {
                 changed = true;
             }
         }
+        for (int i = proximityOffset; i < ext.length; i++) {
+            if (parameters.get(i).name().startsWith("reflection.") && ext[i] > 1) {
+                ext[i] = 1;
+                changed = true;
+            }
+        }
         return changed ? toInternal(ext) : internal;
     }
 
@@ -399,8 +471,35 @@ final class ParameterLayout {
         BinaryParameters c = start.common();
         BinaryParameters p = new BinaryParameters(ext[PERIOD], ext[EPOCH], ext[RADIUS1], ext[RADIUS2],
                 ext[INCLINATION], ext[ECCENTRICITY], ext[OMEGA], c.surfaceBrightnessRatio(), c.thirdLight(),
-                c.limbDarkening1(), c.limbDarkening2(), c.exposureTimeDays(), c.supersample());
+                c.limbDarkening1(), c.limbDarkening2(), c.exposureTimeDays(), c.supersample(), proximity(ext));
         return bandValues(ext, b).applyTo(p);
+    }
+
+    /** The proximity effects of the starting model with the values of an external vector put in. */
+    ProximityEffects proximity(double[] ext) {
+        ProximityEffects x = start.common().proximity();
+        if (proximityNames.isEmpty()) {
+            return x;
+        }
+        ProximityEffects.Ellipsoidal e = x.ellipsoidal();
+        if (e != null) {
+            e = e.freeAmplitude() ? ProximityEffects.Ellipsoidal.free(value(ext, "ellipsoidal.amplitude"))
+                    : ProximityEffects.Ellipsoidal.fromPhysics(value(ext, "ellipsoidal.gravityDarkening1"),
+                            value(ext, "ellipsoidal.gravityDarkening2"));
+        }
+        ProximityEffects.Reflection r = x.reflection() == null ? null : new ProximityEffects.Reflection(
+                value(ext, "reflection.albedo1"), value(ext, "reflection.albedo2"));
+        ProximityEffects.Beaming b = x.beaming();
+        if (b != null) {
+            b = b.freeAmplitude() ? ProximityEffects.Beaming.free(value(ext, "beaming.amplitude"))
+                    : ProximityEffects.Beaming.fromVelocities(value(ext, "beaming.factor1"),
+                            value(ext, "beaming.factor2"));
+        }
+        return x.withMassRatio(x.massRatio() == null ? null : value(ext, "massRatio")).withTerms(e, r, b);
+    }
+
+    private double value(double[] ext, String proximityName) {
+        return ext[proximityOffset + proximityNames.indexOf(proximityName)];
     }
 
     BandValues bandValues(double[] ext, int b) {
@@ -426,7 +525,7 @@ final class ParameterLayout {
         BinaryParameters geometry = new BinaryParameters(common.periodDays(), common.epochDays(), common.radius1(),
                 common.radius2(), common.inclinationDeg(), common.eccentricity(), common.omegaDeg(),
                 c.surfaceBrightnessRatio(), c.thirdLight(), c.limbDarkening1(), c.limbDarkening2(),
-                common.exposureTimeDays(), common.supersample());
+                common.exposureTimeDays(), common.supersample(), common.proximity());
         return new ModelFile(geometry, out, start.commonComplete());
     }
 

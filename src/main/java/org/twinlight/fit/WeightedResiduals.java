@@ -79,7 +79,7 @@ final class WeightedResiduals implements FitDataSet {
     public int nuisanceCount() {
         int c = 0;
         for (Prepared p : sets) {
-            c += p.segmentCount() * (degree + 1);
+            c += p.segmentCount() * (degree + 1 + (p.airmassDeviation != null ? 1 : 0));
         }
         return c;
     }
@@ -100,7 +100,7 @@ final class WeightedResiduals implements FitDataSet {
         for (Prepared p : sets) {
             BinaryModel model = new BinaryModel(layout.parameters(ext, p.band));
             for (int i = 0; i < p.t.length; i++) {
-                if (p.used[i] && model.flux(p.t[i]) < 1 - 1e-9) {
+                if (p.used[i] && model.inEclipse(p.t[i])) {
                     count++;
                 }
             }
@@ -208,6 +208,8 @@ final class WeightedResiduals implements FitDataSet {
         final boolean[] used;
         final double[] weight;
         final int usedCount;
+        /** Airmass minus its mean over the point's segment, one more baseline column; null without. */
+        final double[] airmassDeviation;
 
         Prepared(FitData d, int band, double gapDays, int degree) {
             LightCurve lc = d.lightCurve();
@@ -248,6 +250,33 @@ final class WeightedResiduals implements FitDataSet {
             Arrays.fill(used, true);
             usedCount = n;
             weight = weights(sigma, used);
+            airmassDeviation = airmassDeviation(lc.airmass(), segmentStart, degree);
+        }
+
+        /**
+         * X − mean X per segment, so that the baseline's constant stays the segment's level at its
+         * mean airmass; null without airmass.
+         */
+        private static double[] airmassDeviation(double[] x, int[] segmentStart, int degree) {
+            if (x == null) {
+                return null;
+            }
+            if (degree < 0) {
+                throw new IllegalArgumentException("an airmass term needs a fitted baseline (offset or higher), "
+                        + "not none");
+            }
+            double[] dev = new double[x.length];
+            for (int s = 0; s + 1 < segmentStart.length; s++) {
+                double mean = 0;
+                for (int i = segmentStart[s]; i < segmentStart[s + 1]; i++) {
+                    mean += x[i];
+                }
+                mean /= segmentStart[s + 1] - segmentStart[s];
+                for (int i = segmentStart[s]; i < segmentStart[s + 1]; i++) {
+                    dev[i] = x[i] - mean;
+                }
+            }
+            return dev;
         }
 
         private Prepared(Prepared base, boolean[] leftOut) {
@@ -260,6 +289,7 @@ final class WeightedResiduals implements FitDataSet {
             segmentStart = base.segmentStart;
             degree = base.degree;
             errorsEstimated = base.errorsEstimated;
+            airmassDeviation = base.airmassDeviation;
             used = new boolean[t.length];
             int c = 0;
             for (int i = 0; i < used.length; i++) {
@@ -278,7 +308,7 @@ final class WeightedResiduals implements FitDataSet {
          */
         double chi2(double[] model, double[] scratch) {
             double s = 0;
-            if (degree > 0) {
+            if (degree > 0 || airmassDeviation != null) {
                 weightedResiduals(model, scratch, 0, null);
                 for (double v : scratch) {
                     s += v * v;
@@ -332,16 +362,18 @@ final class WeightedResiduals implements FitDataSet {
          */
         void weightedResiduals(double[] model, double[] out, int off, Baselines keep) {
             int nc = degree + 1;
+            // the columns: 1, τ, τ², ... up to the degree, then the airmass deviation when there is one
+            int nb = nc + (airmassDeviation != null ? 1 : 0);
+            double[] basis = new double[Math.max(nb, 1)];
             for (int s = 0; s + 1 < segmentStart.length; s++) {
                 int a = segmentStart[s];
                 int b = segmentStart[s + 1];
-                double[] c = new double[Math.max(nc, 1)];
+                double[] c = new double[Math.max(nb, 1)];
                 if (degree < 0) {
                     c[0] = 1;
                 } else {
-                    double[][] ata = new double[nc][nc];
-                    double[] atb = new double[nc];
-                    double[] pw = new double[2 * nc - 1];
+                    double[][] ata = new double[nb][nb];
+                    double[] atb = new double[nb];
                     for (int i = a; i < b; i++) {
                         if (!used[i]) {
                             continue;
@@ -349,30 +381,42 @@ final class WeightedResiduals implements FitDataSet {
                         double w = 1 / (sigma[i] * sigma[i]);
                         double mm = model[i] * model[i] * w;
                         double my = model[i] * y[i] * w;
-                        double p = 1;
-                        for (int q = 0; q < pw.length; q++) {
-                            pw[q] = p;
-                            p *= tau[i];
-                        }
-                        for (int r = 0; r < nc; r++) {
-                            atb[r] += my * pw[r];
-                            for (int q = 0; q < nc; q++) {
-                                ata[r][q] += mm * pw[r + q];
+                        basis(i, nc, basis);
+                        for (int r = 0; r < nb; r++) {
+                            atb[r] += my * basis[r];
+                            for (int q = 0; q < nb; q++) {
+                                ata[r][q] += mm * basis[r] * basis[q];
                             }
                         }
                     }
                     c = solveSmall(ata, atb);
                 }
+                double[] poly = nb > nc && degree >= 0 ? Arrays.copyOf(c, nc) : c;
                 for (int i = a; i < b; i++) {
-                    double base = polynomial(c, tau[i]);
+                    double base = polynomial(poly, tau[i]);
+                    if (poly != c) {
+                        base += c[nc] * airmassDeviation[i];
+                    }
                     out[off + i] = used[i] ? (y[i] - model[i] * base) / sigma[i] : 0.0;
                     if (keep != null) {
                         keep.values[i] = base;
                     }
                 }
                 if (keep != null) {
-                    keep.coefficients[s] = c;
+                    keep.coefficients[s] = poly;
                 }
+            }
+        }
+
+        /** The baseline's columns at point i: τ⁰..τ^(nc−1), then the airmass deviation if any. */
+        private void basis(int i, int nc, double[] out) {
+            double p = 1;
+            for (int q = 0; q < nc; q++) {
+                out[q] = p;
+                p *= tau[i];
+            }
+            if (airmassDeviation != null) {
+                out[nc] = airmassDeviation[i];
             }
         }
 
@@ -384,7 +428,7 @@ final class WeightedResiduals implements FitDataSet {
             return v;
         }
 
-        /** Gaussian elimination with partial pivoting for the tiny normal equations (≤ 3×3). */
+        /** Gaussian elimination with partial pivoting for the tiny normal equations (≤ 5×5). */
         private static double[] solveSmall(double[][] a, double[] b) {
             int n = b.length;
             for (int col = 0; col < n; col++) {

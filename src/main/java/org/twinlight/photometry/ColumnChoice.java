@@ -111,6 +111,22 @@ public record ColumnChoice(int time, int value, int error, int band, int quality
         return find(norm, TIME_NAMES, -1);
     }
 
+    /**
+     * The index of the optional airmass column, found by its header name {@code airmass}
+     * (case and separators ignored), or −1.
+     */
+    public static int airmassColumn(List<String> header) {
+        if (header == null) {
+            return -1;
+        }
+        for (int i = 0; i < header.size(); i++) {
+            if (normalise(header.get(i)).equals("airmass")) {
+                return i;
+            }
+        }
+        return -1;
+    }
+
     /** Lower-case, separators folded into single underscores, no leading or trailing ones. */
     public static String normalise(String name) {
         if (name == null) {

@@ -146,19 +146,26 @@ public final class FitsTableReader {
                         || (valueUnit != null && valueUnit.trim().toLowerCase(Locale.ROOT).startsWith("mag"))
                                 ? ValueKind.MAGNITUDE : ValueKind.FLUX;
         String bandName = c.band() >= 0 ? names.get(c.band()) : null;
+        int airmassCol = ColumnChoice.airmassColumn(names);
+        if (airmassCol >= 0 && !isNumericScalar(table, airmassCol)) {
+            throw BadInputException.at(file, where, names.get(airmassCol), "expected a column of single numbers, "
+                    + "found format " + hdu.getHeader().getStringValue("TFORM" + (airmassCol + 1)));
+        }
         RowCollector rows = new RowCollector(file, RowPlace.fitsRow(index), names.get(c.time()), bandName, kind,
-                c.error() >= 0);
+                c.error() >= 0, airmassCol >= 0 ? names.get(airmassCol) : null);
         int nrows = table.getNRows();
         double[] times;
         double[] values;
         double[] errors;
         double[] flags;
+        double[] airmass;
         Object[] bands;
         try {
             times = column(table, c.time());
             values = column(table, c.value());
             errors = c.error() >= 0 ? column(table, c.error()) : null;
             flags = c.quality() >= 0 ? column(table, c.quality()) : null;
+            airmass = airmassCol >= 0 ? column(table, airmassCol) : null;
             bands = c.band() >= 0 ? bandColumn(table, c.band(), nrows) : null;
         } catch (RuntimeException e) {
             throw BadInputException.at(file, where, null, "cannot read the table rows; the file may be truncated ("
@@ -175,7 +182,7 @@ public final class FitsTableReader {
                 continue;
             }
             rows.add(r + 1, band, times[r], values[r], errors == null ? Double.NaN : errors[r],
-                    flags == null ? 0.0 : flags[r]);
+                    flags == null ? 0.0 : flags[r], airmass == null ? Double.NaN : airmass[r]);
         }
         FitsTime time = FitsTime.of(file, index, hdu.getHeader(), primary, hdu.getColumnMeta(c.time(), "TUNIT"),
                 typicalTime);

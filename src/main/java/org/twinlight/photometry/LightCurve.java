@@ -23,6 +23,8 @@ public final class LightCurve {
     private final double[] fluxErrors;
     private final Map<String, Integer> rejectedRows;
     private final java.util.List<String> notes;
+    /** Airmass of each point, or null when the data carry none. */
+    private final double[] airmass;
 
     /**
      * @param source where the data came from (file name), for messages and reports
@@ -46,6 +48,12 @@ public final class LightCurve {
     public LightCurve(String source, String band, TimeScale timeScale, ValueKind originalKind,
             double[] timesDays, double[] flux, double[] fluxErrors, Map<String, Integer> rejectedRows,
             java.util.List<String> notes) {
+        this(source, band, timeScale, originalKind, timesDays, flux, fluxErrors, rejectedRows, notes, null);
+    }
+
+    private LightCurve(String source, String band, TimeScale timeScale, ValueKind originalKind,
+            double[] timesDays, double[] flux, double[] fluxErrors, Map<String, Integer> rejectedRows,
+            java.util.List<String> notes, double[] airmass) {
         this.source = Objects.requireNonNull(source, "source");
         this.band = band;
         this.timeScale = Objects.requireNonNull(timeScale, "timeScale");
@@ -66,6 +74,28 @@ public final class LightCurve {
         this.rejectedRows = Collections.unmodifiableMap(new LinkedHashMap<>(
                 rejectedRows == null ? Map.of() : rejectedRows));
         this.notes = java.util.List.copyOf(notes == null ? java.util.List.of() : notes);
+        if (airmass != null && airmass.length != timesDays.length) {
+            throw new IllegalArgumentException("times and airmass must have the same length");
+        }
+        this.airmass = airmass == null ? null : airmass.clone();
+    }
+
+    /** A copy of the airmass of each point, or null when the data carry none. */
+    public double[] airmass() {
+        return airmass == null ? null : airmass.clone();
+    }
+
+    public boolean hasAirmass() {
+        return airmass != null;
+    }
+
+    /**
+     * The same light curve with this airmass at each point (null: none); the fit takes it as one
+     * more baseline term per segment.
+     */
+    public LightCurve withAirmass(double[] x) {
+        return new LightCurve(source, band, timeScale, originalKind, timesDays, flux, fluxErrors, rejectedRows, notes,
+                x);
     }
 
     public String source() {
@@ -133,7 +163,8 @@ public final class LightCurve {
     public LightCurve withNotes(java.util.List<String> more) {
         java.util.List<String> all = new java.util.ArrayList<>(notes);
         all.addAll(more);
-        return new LightCurve(source, band, timeScale, originalKind, timesDays, flux, fluxErrors, rejectedRows, all);
+        return new LightCurve(source, band, timeScale, originalKind, timesDays, flux, fluxErrors, rejectedRows, all,
+                airmass);
     }
 
     /** Total number of rows read but not used. */
@@ -154,14 +185,15 @@ public final class LightCurve {
     /** The same light curve with another band label. */
     public LightCurve withBand(String newBand) {
         return new LightCurve(source, newBand, timeScale, originalKind, timesDays, flux, fluxErrors, rejectedRows,
-                notes);
+                notes, airmass);
     }
 
     /** The points whose index is in [from, to). */
     public LightCurve slice(int from, int to) {
         return new LightCurve(source, band, timeScale, originalKind,
                 Arrays.copyOfRange(timesDays, from, to), Arrays.copyOfRange(flux, from, to),
-                fluxErrors == null ? null : Arrays.copyOfRange(fluxErrors, from, to), rejectedRows, notes);
+                fluxErrors == null ? null : Arrays.copyOfRange(fluxErrors, from, to), rejectedRows, notes,
+                airmass == null ? null : Arrays.copyOfRange(airmass, from, to));
     }
 
     @Override

@@ -29,6 +29,8 @@ final class RowCollector {
     private final String bandColumn;
     private final ValueKind kind;
     private final boolean hasErrors;
+    /** Name of the airmass column, or null when there is none. */
+    private final String airmassColumn;
     private final Map<String, BandRows> bands = new LinkedHashMap<>();
     private final Map<String, Integer> bandless = new LinkedHashMap<>();
 
@@ -41,6 +43,13 @@ final class RowCollector {
      * @param hasErrors whether rows carry an error
      */
     RowCollector(Path file, RowPlace place, String timeColumn, String bandColumn, ValueKind kind, boolean hasErrors) {
+        this(file, place, timeColumn, bandColumn, kind, hasErrors, null);
+    }
+
+    /** As above, with an airmass column of this name (null: none). */
+    RowCollector(Path file, RowPlace place, String timeColumn, String bandColumn, ValueKind kind, boolean hasErrors,
+            String airmassColumn) {
+        this.airmassColumn = airmassColumn;
         this.file = file;
         this.place = place;
         this.timeColumn = timeColumn;
@@ -66,12 +75,28 @@ final class RowCollector {
      * @param quality quality flag, 0 (or NaN) when good
      */
     void add(int rowNumber, String band, double time, double value, double error, double quality) {
+        add(rowNumber, band, time, value, error, quality, Double.NaN);
+    }
+
+    /**
+     * As above, with the row's airmass (ignored without an airmass column): a row whose airmass is
+     * not finite is rejected like one with a non-finite value; an airmass below 1 is an error.
+     */
+    void add(int rowNumber, String band, double time, double value, double error, double quality, double airmass) {
         BandRows r = rows(band == null ? "" : band);
         RowRejection reason = check(time, value, error, quality);
+        if (reason == null && airmassColumn != null && !Double.isFinite(airmass)) {
+            reason = RowRejection.NOT_FINITE;
+        }
         if (reason != null) {
             r.rejected.merge(reason.label(), 1, Integer::sum);
             return;
         }
+        if (airmassColumn != null && airmass < 1) {
+            throw BadInputException.at(file, place.one(rowNumber), airmassColumn, "expected an airmass ≥ 1 (sec z "
+                    + "of the zenith distance), got " + airmass);
+        }
+        r.airmass(airmass);
         double flux = value;
         double fluxError = error;
         if (kind == ValueKind.MAGNITUDE) {
@@ -138,8 +163,10 @@ final class RowCollector {
             checkOrderAfterConversion(r, t, band);
             Map<String, Integer> rejected = new LinkedHashMap<>(bandless);
             r.rejected.forEach((k, v) -> rejected.merge(k, v, Integer::sum));
-            out.put(band == null ? "" : band, new LightCurve(source, band, scale, kind, t,
-                    Arrays.copyOf(r.flux, r.size), hasErrors ? Arrays.copyOf(r.errors, r.size) : null, rejected));
+            LightCurve lc = new LightCurve(source, band, scale, kind, t,
+                    Arrays.copyOf(r.flux, r.size), hasErrors ? Arrays.copyOf(r.errors, r.size) : null, rejected);
+            out.put(band == null ? "" : band, airmassColumn == null ? lc : lc.withAirmass(Arrays.copyOf(r.airmass,
+                    r.size)));
         }
         if (out.isEmpty()) {
             int total = allRejected.values().stream().mapToInt(Integer::intValue).sum();
@@ -203,7 +230,16 @@ final class RowCollector {
         double[] times = new double[64];
         double[] flux = new double[64];
         double[] errors = new double[64];
+        double[] airmass = new double[64];
         final Map<String, Integer> rejected = new LinkedHashMap<>();
+
+        /** Sets the airmass of the row about to be added. */
+        void airmass(double x) {
+            if (size == airmass.length) {
+                airmass = Arrays.copyOf(airmass, size * 2);
+            }
+            airmass[size] = x;
+        }
 
         void add(int rowNumber, double time, double f, double e) {
             if (size == times.length) {

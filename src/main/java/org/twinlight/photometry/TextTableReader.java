@@ -174,17 +174,19 @@ public final class TextTableReader {
             notes.add("the file is UTF-16 text and was read as such");
         }
         String bandName = ColumnChoice.label(header, columns.band());
-        RowCollector rows = new RowCollector(file, RowPlace.TEXT_LINE, timeName, bandName, kind, columns.error() >= 0);
-        int need = columns.widest();
+        int airmass = ColumnChoice.airmassColumn(header);
+        RowCollector rows = new RowCollector(file, RowPlace.TEXT_LINE, timeName, bandName, kind, columns.error() >= 0,
+                airmass >= 0 ? header.get(airmass) : null);
+        int need = Math.max(columns.widest(), airmass);
         for (int k = layout.firstData(); k < p.data().size(); k++) {
             int index = p.data().get(k);
-            readRow(file, layout, rows, index + 1, layout.fields(lines.get(index)), need, columns);
+            readRow(file, layout, rows, index + 1, layout.fields(lines.get(index)), need, columns, airmass);
         }
         String line;
         while ((line = src.next()) != null) {
             String t = stripComment(line);
             if (!t.isBlank()) {
-                readRow(file, layout, rows, src.lineNumber(), split(t, layout.delimiter()), need, columns);
+                readRow(file, layout, rows, src.lineNumber(), split(t, layout.delimiter()), need, columns, airmass);
             }
         }
         double offset = options.timeOffsetDays() == null ? 0.0 : options.timeOffsetDays();
@@ -294,7 +296,7 @@ public final class TextTableReader {
     }
 
     private static void readRow(Path file, Layout layout, RowCollector rows, int lineNumber, List<String> f, int need,
-            ColumnChoice c) {
+            ColumnChoice c, int airmass) {
         boolean decimalComma = layout.decimalComma();
         checkFieldCount(file, layout, lineNumber, f);
         String band = null;
@@ -309,7 +311,7 @@ public final class TextTableReader {
             rows.reject(band, RowRejection.MISSING_FIELD);
             return;
         }
-        int[] idx = {c.time(), c.value(), c.error(), c.quality()};
+        int[] idx = {c.time(), c.value(), c.error(), c.quality(), airmass};
         double[] v = new double[idx.length];
         for (int k = 0; k < idx.length; k++) {
             if (idx[k] < 0) {
@@ -327,7 +329,7 @@ public final class TextTableReader {
                 return;
             }
         }
-        rows.add(lineNumber, band, v[0], v[1], v[2], v[3]);
+        rows.add(lineNumber, band, v[0], v[1], v[2], v[3], v[4]);
     }
 
     /**

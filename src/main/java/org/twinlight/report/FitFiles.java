@@ -20,6 +20,7 @@ import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
 import org.twinlight.fit.FittedCurve;
 import org.twinlight.fit.ModelAdequacy;
+import org.twinlight.eclipse.ModelFile;
 import org.twinlight.time.TimeScale;
 
 /** Writes the results of a fit: {@code fit.json}, {@code residuals.csv} and the best model file. */
@@ -29,6 +30,17 @@ public final class FitFiles {
             + "stars without reflection, ellipsoidal or beaming effects, the chosen limb-darkening law, and the "
             + "stated third light. Check them (residuals, correlations, other limb-darkening choices) before "
             + "publication.";
+    /** The caution of a fit whose model has proximity effects. */
+    public static final String CAUTION_CLOSE_PAIR = "The fitted parameters depend on the model's assumptions: two "
+            + "spheres with first-order proximity terms (ellipsoidal variation, Lambert-sphere reflection, beaming; "
+            + "valid for radii well inside the Roche lobes), the chosen limb-darkening and gravity-darkening "
+            + "coefficients, and the stated third light. Check them (residuals, correlations, other "
+            + "limb-darkening choices) before publication.";
+
+    /** The caution for a fitted model. */
+    public static String caution(ModelFile model) {
+        return model.common().proximity().changesLight() ? CAUTION_CLOSE_PAIR : CAUTION;
+    }
 
     private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 
@@ -107,7 +119,7 @@ public final class FitFiles {
                         : "chi-square when above 1 (errors as stated)"));
         ArrayNode notes = root.putArray("notes");
         r.notes().forEach(notes::add);
-        root.put("caution", CAUTION);
+        root.put("caution", caution(r.model()));
         return root;
     }
 

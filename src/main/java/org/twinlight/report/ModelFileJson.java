@@ -22,6 +22,7 @@ import org.twinlight.eclipse.LimbDarkeningLaw;
 import org.twinlight.eclipse.ModelFile;
 import org.twinlight.fit.Prior;
 import org.twinlight.fit.Priors;
+import org.twinlight.eclipse.ProximityEffects;
 
 /**
  * Reads and writes the JSON model file of the interface contract: the common parameters and
@@ -37,7 +38,11 @@ public final class ModelFileJson {
             .enable(com.fasterxml.jackson.core.StreamReadFeature.STRICT_DUPLICATE_DETECTION).build());
     private static final Set<String> TOP_KEYS = Set.of("period", "epoch", "radius1", "radius2", "inclination",
             "eccentricity", "omega", "surfaceBrightnessRatio", "thirdLight", "limbDarkening1", "limbDarkening2",
-            "exposureTime", "supersample", "bands", "priors");
+            "exposureTime", "supersample", "bands", "priors", "massRatio", "semiMajorAxis", "k1", "k2", "ellipsoidal",
+            "reflection", "beaming");
+    private static final Set<String> ELLIPSOIDAL_KEYS = Set.of("gravityDarkening1", "gravityDarkening2", "amplitude");
+    private static final Set<String> REFLECTION_KEYS = Set.of("albedo1", "albedo2");
+    private static final Set<String> BEAMING_KEYS = Set.of("factor1", "factor2", "amplitude");
     private static final Set<String> BAND_KEYS = Set.of("surfaceBrightnessRatio", "thirdLight", "limbDarkening1",
             "limbDarkening2");
 
@@ -145,7 +150,8 @@ public final class ModelFileJson {
                     number(root, "inclination", null, file), number(root, "eccentricity", 0.0, file),
                     number(root, "omega", 90.0, file), number(root, "surfaceBrightnessRatio", firstBandJ, file),
                     number(root, "thirdLight", 0.0, file), ld1, ld2,
-                    number(root, "exposureTime", 0.0, file), (int) integer(root, "supersample", 1, file));
+                    number(root, "exposureTime", 0.0, file), (int) integer(root, "supersample", 1, file),
+                    proximity(root, file));
         } catch (IllegalArgumentException e) {
             throw BadInputException.at(file, null, null, e.getMessage());
         }
@@ -161,6 +167,57 @@ public final class ModelFileJson {
             }
         }
         return new ModelFile(common, bands, commonJ);
+    }
+
+    /**
+     * The proximity effects: {@code massRatio}, {@code semiMajorAxis}, {@code k1}, {@code k2} and the
+     * objects {@code ellipsoidal}, {@code reflection}, {@code beaming}, each effect on when its key is
+     * present (see docs/model.md).
+     */
+    private static ProximityEffects proximity(JsonNode root, Path file) {
+        ProximityEffects.Ellipsoidal ell = null;
+        ProximityEffects.Reflection refl = null;
+        ProximityEffects.Beaming beam = null;
+        try {
+            JsonNode e = effect(root, "ellipsoidal", ELLIPSOIDAL_KEYS, file);
+            if (e != null) {
+                ell = new ProximityEffects.Ellipsoidal(optional(e, "gravityDarkening1", file, "ellipsoidal."),
+                        optional(e, "gravityDarkening2", file, "ellipsoidal."), optional(e, "amplitude", file,
+                        "ellipsoidal."));
+            }
+            JsonNode r = effect(root, "reflection", REFLECTION_KEYS, file);
+            if (r != null) {
+                refl = new ProximityEffects.Reflection(number(r, "albedo1", null, file, "reflection."),
+                        number(r, "albedo2", null, file, "reflection."));
+            }
+            JsonNode b = effect(root, "beaming", BEAMING_KEYS, file);
+            if (b != null) {
+                beam = new ProximityEffects.Beaming(optional(b, "factor1", file, "beaming."),
+                        optional(b, "factor2", file, "beaming."), optional(b, "amplitude", file, "beaming."));
+            }
+            return new ProximityEffects(optional(root, "massRatio", file, ""), optional(root, "semiMajorAxis", file, ""),
+                    optional(root, "k1", file, ""), optional(root, "k2", file, ""), ell, refl, beam);
+        } catch (IllegalArgumentException ex) {
+            throw BadInputException.at(file, null, null, ex.getMessage());
+        }
+    }
+
+    private static JsonNode effect(JsonNode root, String key, Set<String> allowed, Path file) {
+        JsonNode n = root.get(key);
+        if (n == null || n.isNull()) {
+            return null;
+        }
+        if (!n.isObject()) {
+            throw BadInputException.at(file, "key '" + key + "'", null, "expected an object with keys from "
+                    + String.join(", ", allowed.stream().sorted().toList()));
+        }
+        checkKeys(n, allowed, file, key + ".");
+        return n;
+    }
+
+    private static Double optional(JsonNode node, String key, Path file, String prefix) {
+        JsonNode v = node.get(key);
+        return v == null || v.isNull() ? null : number(node, key, null, file, prefix);
     }
 
     /**
@@ -313,6 +370,7 @@ public final class ModelFileJson {
             o.put("exposureTime", p.exposureTimeDays());
             o.put("supersample", p.supersample());
         }
+        putProximity(o, p.proximity());
         if (!bands.isEmpty()) {
             ObjectNode b = o.putObject("bands");
             bands.forEach((name, v) -> {
@@ -332,6 +390,36 @@ public final class ModelFileJson {
             });
         }
         return o;
+    }
+
+    private static void putProximity(ObjectNode o, ProximityEffects x) {
+        putIfGiven(o, "massRatio", x.massRatio());
+        putIfGiven(o, "semiMajorAxis", x.semiMajorAxisSolarRadii());
+        putIfGiven(o, "k1", x.k1KmS());
+        putIfGiven(o, "k2", x.k2KmS());
+        if (x.ellipsoidal() != null) {
+            ObjectNode e = o.putObject("ellipsoidal");
+            putIfGiven(e, "gravityDarkening1", x.ellipsoidal().gravityDarkening1());
+            putIfGiven(e, "gravityDarkening2", x.ellipsoidal().gravityDarkening2());
+            putIfGiven(e, "amplitude", x.ellipsoidal().amplitude());
+        }
+        if (x.reflection() != null) {
+            ObjectNode r = o.putObject("reflection");
+            r.put("albedo1", x.reflection().albedo1());
+            r.put("albedo2", x.reflection().albedo2());
+        }
+        if (x.beaming() != null) {
+            ObjectNode b = o.putObject("beaming");
+            putIfGiven(b, "factor1", x.beaming().factor1());
+            putIfGiven(b, "factor2", x.beaming().factor2());
+            putIfGiven(b, "amplitude", x.beaming().amplitude());
+        }
+    }
+
+    private static void putIfGiven(ObjectNode o, String key, Double v) {
+        if (v != null) {
+            o.put(key, v);
+        }
     }
 
     /** {@code {"law": .., "coefficients": [..]}}. */

@@ -6,6 +6,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -37,6 +38,32 @@ class BundledSampleTest {
             assertThat(Math.abs(value - truth.get(name).asDouble())).as(name).isLessThanOrEqualTo(4 * sigma);
         }
         assertThat(json.readTree(dir.resolve("fit.json").toFile()).get("timeScale").asText()).isEqualTo("BJD_TDB");
+    }
+
+    @Test
+    void closePairSampleFitRecoversTheSimulatedSystem() throws Exception {
+        // the README's close-pair line, on sample-curves/quillon-pair-continuous.csv (simulated from
+        // quillon-pair.model.json): radii, inclination and mass ratio within 4σ, each amplitude reported
+        String free = "epoch,radius1,radius2,inclination,surfaceBrightnessRatio,massRatio,reflection.albedo1,"
+                + "reflection.albedo2";
+        assertThat(Files.readString(Path.of("README.md")).replace("\\\n       ", "")).contains(
+                "fit sample-curves/quillon-pair-continuous.csv --model sample-curves/quillon-pair.start.json --free "
+                        + free);
+        ConsoleCapture c = new ConsoleCapture();
+        int code = c.run("fit", "sample-curves/quillon-pair-continuous.csv", "--model",
+                "sample-curves/quillon-pair.start.json", "--free", free, "--out", dir.toString());
+        assertThat(code).as(c.err.toString()).isZero();
+        ObjectMapper json = new ObjectMapper();
+        JsonNode truth = json.readTree(Path.of("sample-curves", "quillon-pair.model.json").toFile());
+        JsonNode result = json.readTree(dir.resolve("fit.json").toFile());
+        for (String name : List.of("radius1", "radius2", "inclination", "massRatio")) {
+            double value = result.at("/parameters/" + name + "/value").asDouble();
+            double sigma = result.at("/parameters/" + name + "/uncertainty").asDouble();
+            assertThat(Math.abs(value - truth.get(name).asDouble())).as(name).isLessThanOrEqualTo(4 * sigma);
+        }
+        for (String name : List.of("ellipsoidalAmplitude", "reflectionAmplitude1", "reflectionAmplitude2")) {
+            assertThat(result.at("/derived/" + name + "/value").asDouble()).as(name).isPositive();
+        }
     }
 
     @Test

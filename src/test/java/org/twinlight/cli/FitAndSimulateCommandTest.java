@@ -91,6 +91,35 @@ class FitAndSimulateCommandTest {
     }
 
     @Test
+    void badProximityValuesAreExitTwoNamingTheKey() throws Exception {
+        String at = "\"surfaceBrightnessRatio\": 0.6,";
+        for (String[] bad : new String[][] {
+            {"\"reflection\": {\"albedo1\": 1.5, \"albedo2\": 0.3},", "reflection.albedo1"},
+            {"\"massRatio\": -0.4,", "massRatio"},
+            {"\"ellipsoidal\": {\"gravityDarkening1\": 0.3, \"gravityDarkening2\": 0.3},", "massRatio"},
+            {"\"beaming\": {\"factor1\": 1.0, \"factor2\": 1.0},", "k1"}}) {
+            Path model = Files.writeString(dir.resolve("close.json"), MODEL.replace(at, at + " " + bad[0]));
+            Run sim = run("simulate", "--model", model.toString(), "--start", "2460300", "--end", "2460301",
+                    "--cadence", "5", "--out", dir.resolve("s.csv").toString());
+            assertThat(sim.code()).as(bad[0]).isEqualTo(2);
+            assertThat(sim.err()).as(bad[0]).contains("close.json").contains(bad[1]).doesNotContain("Exception");
+        }
+        // and the fit's airmass option: a file without the column, or a missing site
+        Path model = Files.writeString(dir.resolve("m.json"), MODEL);
+        Path csv = dir.resolve("s.csv");
+        assertThat(run("simulate", "--model", model.toString(), "--start", "2460300", "--end", "2460301",
+                "--cadence", "5", "--time-scale", "BJD_TDB", "--out", csv.toString()).code()).isZero();
+        Run column = run("fit", csv.toString(), "--model", model.toString(), "--airmass", "column", "--out",
+                dir.resolve("o1").toString());
+        assertThat(column.code()).isEqualTo(2);
+        assertThat(column.err()).contains("--airmass column").contains("no airmass column");
+        Run noSite = run("fit", csv.toString(), "--model", model.toString(), "--airmass", "computed", "--ra", "10",
+                "--dec", "20", "--out", dir.resolve("o2").toString());
+        assertThat(noSite.code()).isEqualTo(2);
+        assertThat(noSite.err()).contains("--site");
+    }
+
+    @Test
     void absurdPeriodOrSupersampleIsExitTwoNamingTheKeyAndRange() throws Exception {
         for (String[] bad : new String[][] {{"\"period\": 2.61", "\"period\": 1e-12", "period"},
             {"\"period\": 2.61", "\"period\": 1e308", "period"},

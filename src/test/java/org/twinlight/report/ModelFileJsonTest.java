@@ -91,4 +91,42 @@ class ModelFileJsonTest {
                     .hasMessageContaining(c[1]);
         }
     }
+
+    @Test
+    void proximityEffectsReadAndWriteBack() throws Exception {
+        Path f = Files.writeString(dir.resolve("m.json"), "{" + GEOMETRY + "\"surfaceBrightnessRatio\": 0.5, "
+                + "\"massRatio\": 0.8, \"semiMajorAxis\": 4.1, \"k1\": 110, \"k2\": 137.5, "
+                + "\"ellipsoidal\": {\"gravityDarkening1\": 0.32, \"gravityDarkening2\": 0.4}, "
+                + "\"reflection\": {\"albedo1\": 0.5, \"albedo2\": 0.6}, \"beaming\": {\"amplitude\": 2e-4}}");
+        ModelFile m = ModelFileJson.read(f);
+        assertThat(m.common().proximity().massRatio()).isEqualTo(0.8);
+        assertThat(m.common().proximity().reflection().albedo2()).isEqualTo(0.6);
+        assertThat(m.common().proximity().beaming().amplitude()).isEqualTo(2e-4);
+        Path back = Files.writeString(dir.resolve("back.json"), ModelFileJson.toJson(m).toString());
+        assertThat(ModelFileJson.read(back)).isEqualTo(m);
+        // without any of them the model is two spheres and writes none of the keys
+        Path plain = Files.writeString(dir.resolve("p.json"), "{" + GEOMETRY + "\"surfaceBrightnessRatio\": 0.5}");
+        assertThat(ModelFileJson.toJson(ModelFileJson.read(plain)).has("reflection")).isFalse();
+    }
+
+    @Test
+    void badProximityValuesNameTheKey() throws Exception {
+        String[][] cases = {
+            {"\"reflection\": {\"albedo1\": 1.4, \"albedo2\": 0.5}", "reflection.albedo1"},
+            {"\"reflection\": {\"albedo1\": 0.4}", "reflection.albedo2"},
+            {"\"massRatio\": -0.3", "massRatio"},
+            {"\"massRatio\": 0", "massRatio"},
+            {"\"ellipsoidal\": {\"gravityDarkening1\": 0.3, \"gravityDarkening2\": 0.3}", "massRatio"},
+            {"\"massRatio\": 0.5, \"ellipsoidal\": {}", "ellipsoidal.gravityDarkening1"},
+            {"\"beaming\": {\"factor1\": 1, \"factor2\": 1}", "k1"},
+            {"\"reflection\": {\"albedo\": 0.4}", "reflection.albedo"},
+            {"\"ellipsoidal\": true", "ellipsoidal"},
+        };
+        for (String[] c : cases) {
+            Path f = Files.writeString(dir.resolve("bad.json"), "{" + GEOMETRY + "\"surfaceBrightnessRatio\": 0.5, "
+                    + c[0] + "}");
+            assertThatThrownBy(() -> ModelFileJson.read(f)).as(c[0]).isInstanceOf(BadInputException.class)
+                    .hasMessageContaining(c[1]).hasMessageContaining("bad.json");
+        }
+    }
 }

@@ -1,4 +1,4 @@
-package org.twinlight.dimensions;
+package org.twinlight.orbit;
 
 /**
  * The volume-equivalent radius of a Roche lobe, Eggleton 1983 (ApJ 268, 368, eq. 2):
