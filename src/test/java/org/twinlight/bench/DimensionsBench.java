@@ -27,8 +27,13 @@ public final class DimensionsBench {
 
     public static void main(String[] args) {
         int seeds = args.length > 0 ? Integer.parseInt(args[0]) : 500;
+        if (args.length > 1 && args[1].equals("eccentric")) {
+            eccentricPulls(seeds);
+            return;
+        }
         timePropagation();
         timeCommand();
+        eccentricPulls(seeds);
         VelocityParameters circular = new VelocityParameters(3.2145, 2460100.3812, 0.0, 90.0, 78.0, 96.5, -14.2,
                 new double[] {0.0, 2.3}, 0.0, 0.0);
         pulls("circular, 2 instruments, 30 epochs", circular, Set.of(), false, 1.0, seeds);
@@ -43,6 +48,32 @@ public final class DimensionsBench {
         for (int epochs : new int[] {4, 6}) {
             pulls("small set, " + epochs + " epochs (" + 2 * epochs + " velocities), sigma 5 km/s", single, Set.of(),
                     false, 1.0, 5.0, epochs, 4 * seeds);
+        }
+    }
+
+    /**
+     * The eccentric system of {@code OrbitErrorsInDimensionsTest} over many seeds: dimensions'
+     * pulls with K refitted per draw of (P, e, ω) and weighted by the velocities, and the former
+     * way (K fitted once at the light curve's orbit, independent of the drawn orbit).
+     */
+    private static void eccentricPulls(int seeds) {
+        for (boolean refit : new boolean[] {true, false}) {
+            long t0 = System.nanoTime();
+            double[][] pulls = org.twinlight.dimensions.EccentricSystemInjection.pulls(seeds, 30, 4000, refit);
+            System.out.printf(Locale.ROOT, "eccentric system (e = 0.30 +- 0.04, omega = 140 +- 6 deg), %d seeds, %s "
+                    + "(%.0f ms per seed, mean effective draws %.0f of 4000):%n", seeds,
+                    refit ? "K refitted per draw, weighted by the velocities" : "K fixed at the light curve's orbit",
+                    (System.nanoTime() - t0) / 1e6 / seeds,
+                    refit ? org.twinlight.dimensions.EccentricSystemInjection.lastEffectiveDraws() : 4000.0);
+            for (int q = 0; q < pulls.length; q++) {
+                double[] p = pulls[q];
+                double mean = java.util.Arrays.stream(p).average().orElseThrow();
+                System.out.printf(Locale.ROOT, "  %-16s pull mean %+.3f, spread %.3f, within 1 sigma %.1f%%, within "
+                        + "1.96 sigma %.1f%%%n", org.twinlight.dimensions.EccentricSystemInjection.CHECKED[q].name(),
+                        mean, org.twinlight.dimensions.EccentricSystemInjection.spread(p),
+                        100 * org.twinlight.dimensions.EccentricSystemInjection.within(p, 1),
+                        100 * org.twinlight.dimensions.EccentricSystemInjection.within(p, 1.959964));
+            }
         }
     }
 
