@@ -53,6 +53,10 @@ public final class DimensionsPropagation {
             int rejected, List<String> notes, double[] elementValues, double[] elementErrors, double effectiveDraws) {
     }
 
+    /** The normal distribution's 1σ percentiles, Φ(−1) and Φ(1). */
+    private static final double ONE_SIGMA_BELOW = 0.15865525;
+    private static final double ONE_SIGMA_ABOVE = 0.84134475;
+
     /** Below this effective number of weighted draws a note asks for more draws. */
     public static final double FEW_EFFECTIVE_DRAWS = 500;
 
@@ -268,8 +272,10 @@ public final class DimensionsPropagation {
                 continue;
             }
             double[] s = Arrays.copyOf(samples[q.ordinal()], kept);
-            estimates.put(q, new DimensionEstimate(q, value, Math.sqrt(weightedVariance(s, w)),
-                    weightedPercentile(s, w, 0.15865525), weightedPercentile(s, w, 0.84134475), firstOrder[q.ordinal()]));
+            double sd = Math.sqrt(weightedVariance(s, w));
+            double[] band = refit ? weightedPercentiles(s, w, ONE_SIGMA_BELOW, ONE_SIGMA_ABOVE)
+                    : percentiles(s, ONE_SIGMA_BELOW, ONE_SIGMA_ABOVE);
+            estimates.put(q, new DimensionEstimate(q, value, sd, band[0], band[1], firstOrder[q.ordinal()]));
         }
         List<String> notes = new ArrayList<>();
         if (rejected > 0) {
@@ -656,12 +662,25 @@ public final class DimensionsPropagation {
         return ss * total / (total * total - totalSq);
     }
 
+    /** Linear interpolation between order statistics; sorts {@code s}. */
+    private static double[] percentiles(double[] s, double... p) {
+        Arrays.sort(s);
+        double[] out = new double[p.length];
+        for (int k = 0; k < p.length; k++) {
+            double pos = p[k] * (s.length - 1);
+            int lo = (int) Math.floor(pos);
+            int hi = Math.min(lo + 1, s.length - 1);
+            out[k] = s[lo] + (pos - lo) * (s[hi] - s[lo]);
+        }
+        return out;
+    }
+
     /**
-     * The weighted percentile: the value where the cumulative weight, with each sample's weight
-     * centred on it, reaches {@code p}; linear between neighbours (equal weights: the usual
-     * interpolation between order statistics).
+     * Weighted percentiles: the values where the cumulative weight, with each sample's weight
+     * centred on it, reaches {@code p}; linear between neighbours (equal weights give
+     * {@link #percentiles}).
      */
-    private static double weightedPercentile(double[] s, double[] w, double p) {
+    private static double[] weightedPercentiles(double[] s, double[] w, double... p) {
         Integer[] order = new Integer[s.length];
         for (int i = 0; i < order.length; i++) {
             order[i] = i;
@@ -675,23 +694,26 @@ public final class DimensionsPropagation {
         double last = w[order[order.length - 1]];
         // positions (c_i − w_i/2 − w_1/2)/(Σw − w_1/2 − w_n/2) in [0, 1]; for equal weights i/(n−1)
         double span = total - 0.5 * first - 0.5 * last;
-        double cumulative = 0;
-        double previousPos = 0;
-        double previousValue = s[order[0]];
-        for (int i = 0; i < order.length; i++) {
-            double wi = w[order[i]];
-            double pos = span > 0 ? (cumulative + 0.5 * wi - 0.5 * first) / span : 0;
-            cumulative += wi;
-            double value = s[order[i]];
-            if (pos >= p) {
-                if (i == 0 || pos == previousPos) {
-                    return value;
+        double[] out = new double[p.length];
+        for (int k = 0; k < p.length; k++) {
+            out[k] = s[order[order.length - 1]];
+            double cumulative = 0;
+            double previousPos = 0;
+            double previousValue = s[order[0]];
+            for (int i = 0; i < order.length; i++) {
+                double wi = w[order[i]];
+                double pos = span > 0 ? (cumulative + 0.5 * wi - 0.5 * first) / span : 0;
+                cumulative += wi;
+                double value = s[order[i]];
+                if (pos >= p[k]) {
+                    out[k] = i == 0 || pos == previousPos ? value
+                            : previousValue + (p[k] - previousPos) / (pos - previousPos) * (value - previousValue);
+                    break;
                 }
-                return previousValue + (p - previousPos) / (pos - previousPos) * (value - previousValue);
+                previousPos = pos;
+                previousValue = value;
             }
-            previousPos = pos;
-            previousValue = value;
         }
-        return s[order[order.length - 1]];
+        return out;
     }
 }
