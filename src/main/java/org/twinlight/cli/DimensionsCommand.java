@@ -17,10 +17,12 @@ import org.twinlight.report.DimensionsPlots;
 import org.twinlight.report.FitFiles;
 import org.twinlight.report.FitJsonInput;
 import org.twinlight.report.InputDigest;
+import org.twinlight.report.PosteriorChain;
 import org.twinlight.velocity.VelocityData;
 import org.twinlight.velocity.VelocityFitResult;
 import org.twinlight.velocity.VelocityFitter;
 import org.twinlight.velocity.VelocityParameters;
+import org.twinlight.velocity.SemiAmplitudeRefit;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -32,7 +34,8 @@ import picocli.CommandLine.Option;
                 + "fractional radii, with their correlations) and K1, K2 (fitted from --velocities, or given): "
                 + "a, M1, M2, q, R1, R2, log g, mean densities, synchronous rotation; with --teff1 (and --teff2): "
                 + "luminosities and bolometric magnitudes (IAU 2015 nominal solar values, Resolutions B2 and B3). "
-                + "Errors by sampling the inputs' covariance.",
+                + "Errors by sampling: the posterior chain of fit.json when the fit made one, else normal draws "
+                + "with fit.json's covariance.",
             "Writes dimensions.json, dimensions.txt, mass-radius.png and (with temperatures) mass-luminosity.png."})
 public final class DimensionsCommand implements Callable<Integer> {
 
@@ -44,7 +47,8 @@ public final class DimensionsCommand implements Callable<Integer> {
 
     @Option(names = "--velocities", paramLabel = "RV.csv",
             description = "Velocity file of both stars: K1 and K2 are fitted with the orbit of fit.json "
-                    + "(as the velocities command does, with e and omega fixed).")
+                    + "(as the velocities command does, with e and omega fixed), and refitted for each draw of the "
+                    + "period, e and omega, so their errors carry the orbit's.")
     Path velocities;
 
     @Option(names = "--k1", paramLabel = "KMS", description = "K1 in km/s, instead of --velocities.")
@@ -79,6 +83,10 @@ public final class DimensionsCommand implements Callable<Integer> {
             description = "Number of draws for the error propagation (default: ${DEFAULT-VALUE}).")
     int draws;
 
+    @Option(names = "--allow-unconverged", description = "Use the posterior chain of fit.json even when the "
+            + "sampler judged it unconverged (its errors may then be too small; the outputs say so).")
+    boolean allowUnconverged;
+
     @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Seed of the draws (default: ${DEFAULT-VALUE}).")
     long seed;
 
@@ -106,19 +114,26 @@ public final class DimensionsCommand implements Callable<Integer> {
         }
         FitJsonInput lc = FitJsonInput.read(fit);
         List<String> notes = new ArrayList<>();
-        if (lc.posterior()) {
-            notes.add("fit.json holds a posterior, but its chain is not read yet: the errors come from normal draws "
-                    + "with fit.json's uncertainties and correlations");
+        PosteriorChain chain = posteriorChain(lc);
+        if (chain == null && lc.posterior()) {
+            notes.add(fit + " holds a posterior but names no chain file (key 'convergence.chainFile'): the errors "
+                    + "come from normal draws with its uncertainties and correlations");
         }
-        double[] mean = new double[BinaryElements.NAMES.size()];
+        List<String> drawn = DimensionsPropagation.DRAWN;
+        double[] mean = new double[drawn.size()];
         double[][] cov = new double[mean.length][mean.length];
         String[] fromFit = {"period", "eccentricity", "inclination", null, null, "radius1", "radius2", null, null,
-            "surfaceBrightnessRatio"};
+            "surfaceBrightnessRatio", "omega"};
         for (int i = 0; i < fromFit.length; i++) {
             if (fromFit[i] == null) {
                 continue;
             }
-            mean[i] = lc.values().getOrDefault(fromFit[i], i == 1 ? lc.model().common().eccentricity() : Double.NaN);
+            double fallback = switch (fromFit[i]) {
+                case "eccentricity" -> lc.model().common().eccentricity();
+                case "omega" -> lc.model().common().omegaDeg();
+                default -> Double.NaN;
+            };
+            mean[i] = lc.values().getOrDefault(fromFit[i], fallback);
             for (int j = 0; j < fromFit.length; j++) {
                 if (fromFit[j] != null) {
                     cov[i][j] = lc.covariance(fromFit[i], fromFit[j]);
@@ -130,13 +145,35 @@ public final class DimensionsCommand implements Callable<Integer> {
         }
         String kSource;
         String kSha = null;
+        DimensionsPropagation.SemiAmplitudesForOrbit kForOrbit = null;
+        DimensionsPropagation.VelocityOrbit velocityOrbit = null;
+        List<String> orbitWarnings = new ArrayList<>();
         if (velocities != null) {
-            VelocityFitResult v = fitVelocities(lc, notes);
+            VelocityData data = velocityOptions.read(velocities, console());
+            VelocityFileOptions.checkTimeScale(data, velocities, lc.timeScale(), fit, console());
+            VelocityFitResult v = fitVelocities(data, lc, notes);
             mean[3] = v.best().k1Kms();
             mean[4] = v.best().k2Kms();
             cov[3][3] = v.covariance("k1", "k1");
             cov[4][4] = v.covariance("k2", "k2");
             cov[3][4] = cov[4][3] = v.covariance("k1", "k2");
+            VelocityFitResult weights = v;
+            if (cov[1][1] > 0 || cov[10][10] > 0) {
+                VelocityFitResult free = fitFreeOrbit(data, v, notes);
+                if (free != null) {
+                    weights = free;
+                    double[][] eo = SemiAmplitudeRefit.eccentricityOmegaCovariance(free);
+                    if (eo != null) {
+                        velocityOrbit = new DimensionsPropagation.VelocityOrbit(free.best().eccentricity(),
+                                free.best().omegaDeg(), eo);
+                    }
+                    String disagreement = orbitDisagreement(free, mean, cov);
+                    if (disagreement != null) {
+                        orbitWarnings.add(disagreement);
+                    }
+                }
+            }
+            kForOrbit = SemiAmplitudeRefit.of(data, weights)::drawInto;
             kSource = "velocities " + velocities;
             kSha = InputDigest.sha256(velocities);
         } else {
@@ -147,6 +184,10 @@ public final class DimensionsCommand implements Callable<Integer> {
             kSource = String.format(Locale.ROOT, "given: K1 = %s +- %s, K2 = %s +- %s km/s", k1, k1Error, k2, k2Error);
             if (k1Error == 0 || k2Error == 0) {
                 notes.add("K1 or K2 was given without an error: the errors of masses and radii leave it out");
+            }
+            if (cov[0][0] > 0 || cov[1][1] > 0 || cov[10][10] > 0) {
+                notes.add("K1 and K2 were given, so they do not follow the period, e and omega drawn from "
+                        + fit + "; give --velocities to refit them per draw, or K errors that include the orbit's");
             }
         }
         mean[7] = teff1 == null ? Double.NaN : teff1;
@@ -165,7 +206,8 @@ public final class DimensionsCommand implements Callable<Integer> {
         if (teff2 == null) {
             cov[8][8] = 0;
         }
-        if (teff1 == null || teff2 != null) {
+        boolean surfaceBrightnessUsed = teff1 != null && teff2 == null;
+        if (!surfaceBrightnessUsed) {
             // J is used only to derive Teff2
             java.util.Arrays.fill(cov[9], 0);
             for (double[] row : cov) {
@@ -173,19 +215,24 @@ public final class DimensionsCommand implements Callable<Integer> {
             }
             mean[9] = Double.NaN;
         }
-        String missingCorrelations = missingCorrelations(lc, fromFit, cov);
+        String missingCorrelations = chain != null ? null : missingCorrelations(lc, fromFit, cov);
         BinaryElements central = BinaryElements.fromVector(mean);
         String problem = central.problem();
         if (problem != null) {
             throw new BadInputException(fit + (velocities != null ? " and " + velocities : "") + ": " + problem);
         }
+        double[][] samples = chain == null ? null : chainSamples(chain, lc, fromFit, surfaceBrightnessUsed);
+        if (kForOrbit != null && samples == null && cov[0][0] == 0 && cov[1][1] == 0 && cov[10][10] == 0) {
+            kForOrbit = null; // the orbit is exact: K need not be refitted per draw
+        }
         DimensionsPropagation.Result r;
         try {
-            r = DimensionsPropagation.propagate(central, cov, draws, seed);
+            r = DimensionsPropagation.propagate(new DimensionsPropagation.Inputs(central, mean[10], cov, kForOrbit,
+                    samples, velocityOrbit), draws, seed);
         } catch (IllegalArgumentException e) {
             throw new BadInputException(fit + ": " + e.getMessage());
         }
-        List<String> warnings = new ArrayList<>();
+        List<String> warnings = new ArrayList<>(orbitWarnings);
         if (missingCorrelations != null) {
             warnings.add(missingCorrelations);
         }
@@ -195,14 +242,27 @@ public final class DimensionsCommand implements Callable<Integer> {
         }
         warnings.addAll(SanityChecks.warnings(r.central(), central));
         Map<String, double[]> used = new LinkedHashMap<>();
-        for (int i = 0; i < mean.length; i++) {
-            used.put(BinaryElements.NAMES.get(i), new double[] {mean[i], Math.sqrt(cov[i][i])});
+        boolean combined = kForOrbit != null;
+        if (combined) {
+            notes.add(String.format(Locale.ROOT, "the orbit combines the light curve and the velocities (draws of the "
+                    + "light curve's orbit weighted by the velocities' likelihood, K1 and K2 refitted per draw; "
+                    + "%.0f effective draws): e = %.4f +- %.4f, omega = %.2f +- %.2f deg, K1 = %.3f +- %.3f, "
+                    + "K2 = %.3f +- %.3f km/s; the values and errors under 'elements' are these",
+                    r.effectiveDraws(), r.elementValues()[1], r.elementErrors()[1], r.elementValues()[10],
+                    r.elementErrors()[10], r.elementValues()[3], r.elementErrors()[3], r.elementValues()[4],
+                    r.elementErrors()[4]));
         }
+        for (int i = 0; i < mean.length; i++) {
+            used.put(drawn.get(i), combined ? new double[] {r.elementValues()[i], r.elementErrors()[i]}
+                    : new double[] {mean[i], Math.sqrt(cov[i][i])});
+        }
+        String errorSource = errorSource(chain, lc, kForOrbit != null);
         DimensionsFiles.Inputs in = new DimensionsFiles.Inputs(fit.toString(), InputDigest.sha256(fit), kSource, kSha,
-                teff2Source, lc.timeScale().label(), seed, used);
+                teff2Source, lc.timeScale().label(), seed, used, chain == null ? "covariance" : "posteriorChain",
+                errorSource);
         FitFiles.writeJson(out.resolve("dimensions.json"), DimensionsFiles.json(r, in, warnings, notes,
                 VersionInfo.version()));
-        String table = DimensionsFiles.table(r, warnings);
+        String table = DimensionsFiles.table(r, warnings, errorSource);
         org.twinlight.report.AtomicFiles.writeString(out.resolve("dimensions.txt"), table);
         String title = "Absolute dimensions of " + objectName(lc);
         DimensionsPlots.massRadius(r, out.resolve("mass-radius.png"), title);
@@ -292,16 +352,133 @@ public final class DimensionsCommand implements Callable<Integer> {
         }
     }
 
-    private VelocityFitResult fitVelocities(FitJsonInput lc, List<String> notes) {
-        VelocityData data = velocityOptions.read(velocities, console());
-        VelocityFileOptions.checkTimeScale(data, velocities, lc.timeScale(), fit, console());
+    private VelocityFitResult fitVelocities(VelocityData data, FitJsonInput lc, List<String> notes) {
         VelocityParameters start = VelocitiesCommand.start(lc.model().common(), data);
         VelocityFitResult v = VelocityFitter.fit(data, start, VelocitiesCommand.settings(List.of(), jitter, 200));
         notes.add(String.format(Locale.ROOT, "K1 = %.3f +- %.3f, K2 = %.3f +- %.3f km/s fitted to %d velocities of "
-                + "%s with the orbit of %s (reduced chi2 %.2f)", v.estimate("k1").value(), v.estimate("k1").uncertainty(),
-                v.estimate("k2").value(), v.estimate("k2").uncertainty(), v.n(), velocities, fit, v.reducedChi2()));
+                + "%s with the orbit of %s (reduced chi2 %.2f); these errors hold at that orbit, the dimensions' "
+                + "errors also carry the orbit's (K refitted for each draw of period, e and omega)",
+                v.estimate("k1").value(), v.estimate("k1").uncertainty(), v.estimate("k2").value(),
+                v.estimate("k2").uncertainty(), v.n(), velocities, fit, v.reducedChi2()));
         v.notes().forEach(n -> notes.add("velocities: " + n));
         return v;
+    }
+
+    /**
+     * The velocities fitted with e and ω free as well (from the fit at the light curve's orbit):
+     * their own best orbit, whose scatter sets the error scale and jitter of the refits (at the
+     * light curve's orbit a misfit would inflate them) and whose e, ω say where the velocities
+     * place the orbit. Null, with a note, when the velocities cannot fit e and ω.
+     */
+    private VelocityFitResult fitFreeOrbit(VelocityData data, VelocityFitResult fixed, List<String> notes) {
+        try {
+            return VelocityFitter.fit(data, fixed.best(), VelocitiesCommand.settings(List.of("eccentricity", "omega"),
+                    jitter, 200));
+        } catch (BadInputException | org.twinlight.WorkFailedException e) {
+            notes.add("the velocities alone cannot fit e and omega (" + e.getMessage() + "); K is refitted per draw "
+                    + "of the light curve's orbit with the weights and error scale of the fit at its central orbit");
+            return null;
+        }
+    }
+
+    /**
+     * A warning when the velocities' e cos ω and e sin ω differ from the light curve's by more than
+     * the 99.73 % (3σ) limit of χ² with 2 degrees of freedom, 11.83: the two fits then describe
+     * different orbits and combining them is not meaningful.
+     */
+    private String orbitDisagreement(VelocityFitResult free, double[] mean, double[][] cov) {
+        double[][] v = SemiAmplitudeRefit.eccentricityOmegaCovariance(free);
+        if (v == null) {
+            return null;
+        }
+        double de = free.best().eccentricity() - mean[1];
+        double dw = free.best().omegaDeg() - mean[10];
+        dw -= 360 * Math.rint(dw / 360);
+        double a = v[0][0] + cov[1][1];
+        double b = v[0][1] + cov[1][10];
+        double d = v[1][1] + cov[10][10];
+        double det = a * d - b * b;
+        if (!(det > 0)) {
+            return null;
+        }
+        double chi2 = (d * de * de - 2 * b * de * dw + a * dw * dw) / det;
+        if (chi2 <= 11.83) {
+            return null;
+        }
+        return String.format(Locale.ROOT, "the velocities alone give e = %.4f +- %.4f, omega = %.1f +- %.1f deg; "
+                + "%s gives e = %.4f +- %.4f, omega = %.1f +- %.1f deg: they disagree (chi2 = %.1f for 2 degrees of "
+                + "freedom, beyond 3 sigma), so the combined errors are not to be trusted. Check the epoch and "
+                + "the star order of the velocities, or fit the light curve and velocities jointly",
+                free.best().eccentricity(), free.estimate("eccentricity").uncertainty(), free.best().omegaDeg(),
+                free.estimate("omega").uncertainty(), fit, mean[1], Math.sqrt(cov[1][1]), mean[10],
+                Math.sqrt(cov[10][10]), chi2);
+    }
+
+    /**
+     * The posterior chain named by fit.json, or null when there is none. An unconverged chain is
+     * refused unless {@code --allow-unconverged}: its spread is not the posterior's.
+     */
+    private PosteriorChain posteriorChain(FitJsonInput lc) {
+        FitJsonInput.Convergence c = lc.convergence();
+        if (c == null || c.chainFile() == null) {
+            return null;
+        }
+        if (!c.converged()) {
+            if (!allowUnconverged) {
+                throw BadInputException.at(fit, "key 'convergence.converged'", null, "false: the posterior chain "
+                        + c.chainFile().getFileName() + " did not converge" + (c.reason().isBlank() ? "" : " ("
+                        + c.reason() + ")") + ", so its spread is not the posterior's and errors from it could be "
+                        + "much too small. Run the fit with more steps, or give --allow-unconverged to use it anyway "
+                        + "(the outputs then say so)");
+            }
+        }
+        return PosteriorChain.read(c.chainFile());
+    }
+
+    /**
+     * The chain's rows as {@link DimensionsPropagation#DRAWN} vectors: the light-curve elements
+     * fit.json gives with an error, taken from the chain's column of the same name (or NAME@BAND
+     * of fit.json's first band); NaN in the columns the chain does not hold.
+     */
+    private double[][] chainSamples(PosteriorChain chain, FitJsonInput lc, String[] fromFit,
+            boolean surfaceBrightnessUsed) {
+        double[][] out = new double[chain.size()][fromFit.length];
+        for (double[] row : out) {
+            java.util.Arrays.fill(row, Double.NaN);
+        }
+        List<String> missing = new ArrayList<>();
+        for (int i = 0; i < fromFit.length; i++) {
+            String name = fromFit[i];
+            if (name == null || (name.equals("surfaceBrightnessRatio") && !surfaceBrightnessUsed)
+                    || !(lc.uncertainties().getOrDefault(name, 0.0) > 0)) {
+                continue;
+            }
+            double[] column = chain.column(name);
+            if (column == null && lc.firstBand() != null) {
+                column = chain.column(name + "@" + lc.firstBand());
+            }
+            if (column == null) {
+                missing.add(name);
+                continue;
+            }
+            for (int row = 0; row < column.length; row++) {
+                out[row][i] = column[row];
+            }
+        }
+        if (!missing.isEmpty()) {
+            throw BadInputException.at(chain.file(), "header", null, "no column for " + String.join(", ", missing)
+                    + ", which " + fit + " gives as fitted; expected the chain written with that fit.json");
+        }
+        return out;
+    }
+
+    /** How the errors were propagated, for dimensions.json and dimensions.txt. */
+    private static String errorSource(PosteriorChain chain, FitJsonInput fitInput, boolean refit) {
+        String lc = chain == null ? "fit.json's covariance (normal draws of the light-curve elements with its "
+                + "uncertainties and correlations)" : "the posterior chain " + chain.file() + " (" + chain.size() + " rows"
+                + (fitInput.convergence().converged() ? "" : "; NOT CONVERGED, used because --allow-unconverged was "
+                        + "given: the errors may be much too small") + ")";
+        return lc + (refit ? "; K1 and K2 refitted to the velocities for each draw's period, e and omega" : "");
     }
 
     private java.io.PrintWriter console() {

@@ -33,9 +33,13 @@ public final class DimensionsFiles {
      * @param timeScale the fit's time scale label
      * @param seed seed of the draws
      * @param elements the elements used: name → {value, uncertainty}
+     * @param errorSource {@code "posteriorChain"} or {@code "covariance"}: where the light-curve
+     *     elements' draws came from
+     * @param errorMethod how the errors were propagated, in words
      */
     public record Inputs(String fitFile, String fitSha256, String velocities, String velocitiesSha256,
-            String teff2Source, String timeScale, long seed, Map<String, double[]> elements) {
+            String teff2Source, String timeScale, long seed, Map<String, double[]> elements, String errorSource,
+            String errorMethod) {
     }
 
     private DimensionsFiles() {
@@ -58,8 +62,8 @@ public final class DimensionsFiles {
             putEstimate(target, q.key(), e);
             units.put(q.key(), q.unit());
         }
-        String[][] orbit = {{"period", "d"}, {"eccentricity", ""}, {"inclination", "deg"}, {"k1", "km/s"},
-            {"k2", "km/s"}, {"radius1", "R1/a"}, {"radius2", "R2/a"}};
+        String[][] orbit = {{"period", "d"}, {"eccentricity", ""}, {"omega", "deg"}, {"inclination", "deg"},
+            {"k1", "km/s"}, {"k2", "km/s"}, {"radius1", "R1/a"}, {"radius2", "R2/a"}};
         ObjectNode used = root.putObject("elements");
         for (String[] o : orbit) {
             double[] v = in.elements().get(o[0]);
@@ -82,10 +86,11 @@ public final class DimensionsFiles {
         }
         root.put("timeScale", in.timeScale());
         ObjectNode method = root.putObject("method");
-        method.put("uncertainties", "standard deviation of " + (r.draws() - r.rejected()) + " multivariate normal "
-                + "draws of the elements (values, uncertainties and correlations of fit.json and the velocity fit); "
-                + "lower68/upper68 are the 16th and 84th percentiles; uncertaintyFirstOrder (linear propagation) is "
-                + "given where it differs from the sampled one by more than 10%");
+        method.put("errorSource", in.errorSource());
+        method.put("uncertainties", "standard deviation of " + (r.draws() - r.rejected()) + " draws from "
+                + in.errorMethod() + "; K1, K2 and the temperatures drawn normal with their errors; "
+                + "lower68/upper68 are the 16th and 84th percentiles; uncertaintyFirstOrder (linear propagation of "
+                + "fit.json's covariance) is given where it differs from the sampled one by more than 10%");
         method.put("draws", r.draws());
         method.put("rejectedDraws", r.rejected());
         method.put("seed", in.seed());
@@ -123,9 +128,11 @@ public final class DimensionsFiles {
     }
 
     /** {@code dimensions.txt}: a table to paste into a paper, value ± error rounded to the error's 2 digits. */
-    public static String table(DimensionsPropagation.Result r, List<String> warnings) {
+    public static String table(DimensionsPropagation.Result r, List<String> warnings, String errorMethod) {
         StringBuilder sb = new StringBuilder();
         sb.append("# Absolute dimensions (nominal solar units, IAU 2015 Resolution B3; M_bol on the IAU 2015 B2 scale)\n");
+        sb.append("# errors: standard deviation of ").append(r.draws() - r.rejected()).append(" draws from ")
+                .append(errorMethod).append('\n');
         sb.append(String.format(Locale.ROOT, "%-46s %-22s %-22s%n", "quantity", "star 1", "star 2"));
         Quantity[][] rows = {{Quantity.MASS1, Quantity.MASS2}, {Quantity.RADIUS1, Quantity.RADIUS2},
             {Quantity.LOGG1, Quantity.LOGG2}, {Quantity.DENSITY1, Quantity.DENSITY2},

@@ -25,10 +25,23 @@ import org.twinlight.time.TimeScale;
  * @param posterior whether the file holds a posterior (from a sampler)
  * @param lightCurveName file name of the fitted light curve ({@code input.file}), or null when
  *     fit.json does not say
+ * @param convergence the sampler's verdict and chain file, null when fit.json has no
+ *     {@code convergence} block
+ * @param firstBand the band whose per-band values are in {@code values}, null for a fit without bands
  */
 public record FitJsonInput(Path file, TimeScale timeScale, ModelFile model, Map<String, Double> values,
         Map<String, Double> uncertainties, List<String> correlationNames, double[][] correlation, boolean posterior,
-        String lightCurveName) {
+        String lightCurveName, Convergence convergence, String firstBand) {
+
+    /**
+     * The {@code convergence} block of a fit made with a posterior sampler.
+     *
+     * @param converged whether the sampler judged its chain converged
+     * @param reason why (or why not), as the sampler said; empty when it did not
+     * @param chainFile the chain's file resolved against fit.json's folder, null when none is named
+     */
+    public record Convergence(boolean converged, String reason, Path chainFile) {
+    }
 
     /** The parameters a fit.json must hold for absolute dimensions. */
     public static final List<String> REQUIRED = List.of("period", "radius1", "radius2", "inclination");
@@ -49,8 +62,10 @@ public record FitJsonInput(Path file, TimeScale timeScale, ModelFile model, Map<
         Map<String, Double> sigmas = new LinkedHashMap<>();
         collect(file, params, "parameters.", values, sigmas);
         JsonNode bands = params.get("bands");
+        String firstBand = null;
         if (bands != null && bands.isObject() && bands.fields().hasNext()) {
             Map.Entry<String, JsonNode> first = bands.fields().next();
+            firstBand = first.getKey();
             Map<String, Double> bv = new LinkedHashMap<>();
             Map<String, Double> bs = new LinkedHashMap<>();
             collect(file, first.getValue(), "parameters.bands." + first.getKey() + ".", bv, bs);
@@ -91,7 +106,32 @@ public record FitJsonInput(Path file, TimeScale timeScale, ModelFile model, Map<
                     + "command writes it");
         }
         return new FitJsonInput(file, ModelInput.timeScale(root, file), ModelFileJson.parse(model, file), values, sigmas,
-                names, corr, root.has("posterior"), lightCurveName(root));
+                names, corr, root.has("posterior"), lightCurveName(root), convergence(root, file), firstBand);
+    }
+
+    private static Convergence convergence(JsonNode root, Path file) {
+        JsonNode c = root.get("convergence");
+        if (c == null || c.isNull()) {
+            return null;
+        }
+        JsonNode converged = c.get("converged");
+        if (!c.isObject() || converged == null || !converged.isBoolean()) {
+            throw BadInputException.at(file, "key 'convergence.converged'", null, "missing or not true/false; "
+                    + "expected the convergence block the fit command writes with --posterior");
+        }
+        JsonNode chain = c.get("chainFile");
+        Path chainFile = null;
+        if (chain != null && !chain.isNull()) {
+            if (!chain.isTextual() || chain.asText().isBlank()) {
+                throw BadInputException.at(file, "key 'convergence.chainFile'", null, "expected a file name, got "
+                        + chain);
+            }
+            Path folder = file.getParent();
+            chainFile = folder == null ? Path.of(chain.asText()) : folder.resolve(chain.asText());
+        }
+        JsonNode reason = c.get("reason");
+        return new Convergence(converged.asBoolean(), reason == null || reason.isNull() ? "" : reason.asText(),
+                chainFile);
     }
 
     private static String lightCurveName(JsonNode root) {

@@ -15,7 +15,7 @@ import org.junit.jupiter.api.Test;
 import org.twinlight.photometry.DamagedInputs;
 
 /**
- * Every command that reads photometry, given damaged files: exit 2 with the file named, or a
+ * Every command that reads photometry or velocities, given damaged files: exit 2 with the file named, or a
  * clean result; never an internal error or a stack trace, never a changed input, never a partial
  * result set. The larger run is {@code org.twinlight.bench.FuzzBench}.
  */
@@ -25,6 +25,18 @@ class CommandFuzzTest extends CommandTestSupport {
              "surfaceBrightnessRatio": 0.6,
              "limbDarkening1": {"law": "quadratic", "coefficients": [0.4, 0.2]},
              "limbDarkening2": {"law": "quadratic", "coefficients": [0.45, 0.2]}}
+            """;
+
+    /** A fit.json as the fit command writes it, for the commands that read velocities. */
+    private static final String FIT_JSON = """
+            {"parameters": {
+              "period": {"value": 0.17, "uncertainty": 0.0, "free": false},
+              "radius1": {"value": 0.13, "uncertainty": 0.001, "free": true},
+              "radius2": {"value": 0.09, "uncertainty": 0.001, "free": true},
+              "inclination": {"value": 88.0, "uncertainty": 0.3, "free": true}},
+             "model": {"period": 0.17, "epoch": 2460100.30, "radius1": 0.13, "radius2": 0.09, "inclination": 88.0,
+               "surfaceBrightnessRatio": 0.6},
+             "timeScale": "BJD_TDB"}
             """;
 
     /** Damaged inputs by name: each is bad for every command. */
@@ -52,12 +64,17 @@ class CommandFuzzTest extends CommandTestSupport {
         c.add(new String[] {"time", in.toString(), "--from", "JD_UTC", "--to", "JD_TT"});
         c.add(new String[] {"simulate", "--model", model.toString(), "--times", in.toString(), "--out",
             out.resolve("sim.csv").toString()});
+        Path fit = model.resolveSibling("fit.json");
+        c.add(new String[] {"velocities", in.toString(), "--model", fit.toString(), "--out", out.toString()});
+        c.add(new String[] {"dimensions", "--fit", fit.toString(), "--velocities", in.toString(), "--out",
+            out.toString()});
         return c;
     }
 
     @Test
     void badFilesGiveExitTwoNamingTheFileInEveryCommand() throws Exception {
         Path model = Files.writeString(dir.resolve("model.json"), MODEL);
+        Files.writeString(dir.resolve("fit.json"), FIT_JSON);
         for (Map.Entry<String, byte[]> e : badInputs().entrySet()) {
             Path in = Files.write(dir.resolve(e.getKey()), e.getValue());
             Path out = dir.resolve("out-" + e.getKey());
@@ -70,7 +87,8 @@ class CommandFuzzTest extends CommandTestSupport {
                         .doesNotContain("Exception").doesNotContain("\tat ").doesNotContain("Cannot invoke");
                 assertThat(Files.readAllBytes(in)).as(what).isEqualTo(e.getValue());
                 assertThat(Files.exists(out.resolve("period.json")) || Files.exists(out.resolve("fit.json"))
-                        || Files.exists(out.resolve("minima.csv"))).as(what).isFalse();
+                        || Files.exists(out.resolve("minima.csv")) || Files.exists(out.resolve("velocities.json"))
+                        || Files.exists(out.resolve("dimensions.json"))).as(what).isFalse();
             }
         }
     }

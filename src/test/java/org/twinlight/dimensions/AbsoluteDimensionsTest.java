@@ -49,6 +49,35 @@ class AbsoluteDimensionsTest {
     }
 
     @Test
+    void theHandbookConstantsFollowFromTheNominalSolarValues() {
+        // REFERENCE-VALUES.md §2 (VC): with GM☉ᴺ and R☉ᴺ a calculator must give C_M = 1.0361491e-7
+        // and C_a = 0.019765685 (Torres et al. 2010 print 1.976682e-2 for R☉ = 695 660 km).
+        // M₁ sin³i / [(1−e²)^{3/2} (K₁+K₂)² K₂ P] and a sin i / [(1−e²)^{1/2} (K₁+K₂) P] are these.
+        double p = 7.3;
+        double e = 0.2;
+        double k1 = 60;
+        double k2 = 80;
+        AbsoluteDimensions d = AbsoluteDimensions.of(elements(p, e, 83.0, k1, k2));
+        double cm = d.get(Quantity.MSIN3I1) / (Math.pow(1 - e * e, 1.5) * (k1 + k2) * (k1 + k2) * k2 * p);
+        double ca = d.get(Quantity.A_SIN_I) / (Math.sqrt(1 - e * e) * (k1 + k2) * p);
+        assertThat(cm).isCloseTo(1.0361491e-7, within(1e-13));
+        assertThat(ca).isCloseTo(0.019765685, within(1e-9));
+    }
+
+    @Test
+    void theNominalSunsTemperatureAndIrradianceFollowFromItsLuminosity() {
+        // REFERENCE-VALUES.md §1: a component with L = L☉ᴺ and R = R☉ᴺ must have Teff = 5772.0 ± 0.01 K
+        // (B3's values are consistent to (L/(4πR²σ))^¼ = 5772.003 K); L is ∝ T⁴, so the temperature
+        // that gives L☉ᴺ is 5772 (L☉ᴺ / L(5772))^¼
+        double teff = 5772.0 * Math.pow(3.828e26 / AbsoluteDimensions.luminosityW(6.957e8, 5772.0), 0.25);
+        assertThat(teff).isCloseTo(5772.0, within(0.01));
+        // and L☉ᴺ/(4π au²) = 1361.17 W m⁻², the B3 nominal irradiance 1361 W m⁻² (§1, VC)
+        double au = AstronomicalConstants.IAU_2012_ASTRONOMICAL_UNIT_M;
+        assertThat(AstronomicalConstants.IAU_2015_NOMINAL_SOLAR_LUMINOSITY_W / (4 * Math.PI * au * au))
+                .isCloseTo(1361.17, within(0.01));
+    }
+
+    @Test
     void publishedMassesOfDetachedBinaries() {
         // AI Phe: P, e, i, K from REFERENCE-VALUES.md §8 (V2, encyclopaedia infobox, checked there to
         // reproduce the published 1.1973 and 1.2473 M☉ exactly). The star with K = 49.11 km/s is the
