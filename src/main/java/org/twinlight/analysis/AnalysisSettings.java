@@ -39,7 +39,7 @@ import org.twinlight.time.TimeScale;
  * @param limbDarkening1 limb darkening of star 1 (ignored when a model file is given)
  * @param limbDarkening2 limb darkening of star 2
  * @param exposureTimeDays exposure time for smearing, days (null: the median spacing of the points)
- * @param supersample sub-exposures per exposure (null: one per minute of exposure, at least 1)
+ * @param supersample sub-exposures per exposure (null: one per 2 minutes of exposure, at least 1)
  * @param seed seed of every random draw (the bootstrap of the times of minimum)
  */
 public record AnalysisSettings(List<String> files, String label, List<String> bands, String timeScale,
@@ -50,11 +50,14 @@ public record AnalysisSettings(List<String> files, String label, List<String> ba
         LimbDarkening limbDarkening2, Double exposureTimeDays, Integer supersample, long seed) {
 
     /**
-     * Parameters fitted by default: the whole geometry, the orbit's shape (e = 0 is an ordinary
-     * point of the fit) and the ephemeris.
+     * Parameters fitted by default: the ephemeris, the whole geometry, the orbit's shape (e = 0 is an
+     * ordinary point of the fit) and the first limb-darkening coefficient of each star (the second
+     * fixed: the two are strongly correlated; common practice, no source). A fixed limb darkening
+     * that differs from the stars' biases the radii and inclination by many of their formal errors
+     * at space-mission precision.
      */
     public static final List<String> DEFAULT_FREE = List.of("period", "epoch", "radius1", "radius2", "inclination",
-            "eccentricity", "omega", "surfaceBrightnessRatio");
+            "eccentricity", "omega", "surfaceBrightnessRatio", "limbDarkening1.a", "limbDarkening2.a");
     /** Starting points of the fit by default. */
     public static final int DEFAULT_STARTS = 6;
     /**

@@ -27,9 +27,9 @@ import org.twinlight.photometry.LightCurve;
  */
 final class MultiStartFit {
     /** Points of the thinned copy the starts are compared on, at most (out of eclipse thinned first). */
-    static final int TRIAL_POINTS = 4000;
+    static final int TRIAL_POINTS = 2000;
     /** Iterations of each trial. */
-    static final int TRIAL_ITERATIONS = 25;
+    static final int TRIAL_ITERATIONS = 15;
     /** A second minimum within this Δχ² of the best (on the thinned data) is reported as a rival. */
     static final double RIVAL_DELTA_CHI2 = 10;
 

@@ -22,7 +22,6 @@ import org.twinlight.photometry.LightCurve;
 import org.twinlight.photometry.LightCurveReader;
 import org.twinlight.photometry.LightCurveSummary;
 import org.twinlight.photometry.ReadOptions;
-import org.twinlight.photometry.RobustStatistics;
 import org.twinlight.report.InputDigest;
 import org.twinlight.report.ModelFileJson;
 import org.twinlight.timing.Ephemeris;
@@ -48,10 +47,11 @@ import org.twinlight.timing.period.PeriodSearchSettings;
  */
 public final class TargetAnalysis {
     /**
-     * Sub-exposures for the smearing of one exposure: one per 40 s, so that the flux averaged over
-     * an exposure is sampled finer than the contacts change (common practice, no source).
+     * Sub-exposures for the smearing of one exposure: one per 2 minutes, so that a 30-minute
+     * integration is averaged over 15 sub-exposures and a 2-minute one is taken at its mid-time
+     * (common practice, no source).
      */
-    static final double SUB_EXPOSURE_DAYS = 40.0 / 86400.0;
+    static final double SUB_EXPOSURE_DAYS = 120.0 / 86400.0;
     /** Phase bins of the fold that places the epoch when only the period is given. */
     private static final int EPOCH_BINS = 200;
 
@@ -261,7 +261,7 @@ public final class TargetAnalysis {
         AnalysisSettings s = st.settings;
         ModelFile base = baseModel(st);
         st.baseModel = base;
-        st.fitSettings = new FitSettings(new LinkedHashSet<>(s.free()), s.baselineKind("settings"),
+        st.fitSettings = new FitSettings(freeNames(s.free(), base.common(), st.notes), s.baselineKind("settings"),
                 s.segmentGapDays(), s.maxIterations(), s.clipSigma());
         List<FitData> data = new ArrayList<>();
         for (AnalysisState.Input in : st.inputs) {
@@ -311,14 +311,34 @@ public final class TargetAnalysis {
         return new ModelFile(c, perBand, true);
     }
 
+    /**
+     * The free names with the default first limb-darkening coefficient ({@code limbDarkeningN.a}, of
+     * the quadratic law) renamed to the first coefficient of the star's law, or left out for uniform
+     * discs (with a note).
+     */
+    static java.util.Set<String> freeNames(List<String> names, BinaryParameters model, List<String> notes) {
+        java.util.Set<String> out = new LinkedHashSet<>();
+        for (String n : names) {
+            int star = n.equals("limbDarkening1.a") ? 1 : n.equals("limbDarkening2.a") ? 2 : 0;
+            if (star == 0) {
+                out.add(n);
+                continue;
+            }
+            String[] coefficients = (star == 1 ? model.limbDarkening1() : model.limbDarkening2()).law()
+                    .coefficientNames();
+            if (coefficients.length == 0) {
+                notes.add("star " + star + " has uniform discs: no limb-darkening coefficient fitted");
+            } else {
+                out.add("limbDarkening" + star + "." + coefficients[0]);
+            }
+        }
+        return out;
+    }
+
     static String baseName(Path f) {
         String n = f.getFileName().toString();
         int dot = n.lastIndexOf('.');
         return dot > 0 ? n.substring(0, dot) : n;
     }
 
-    /** The median of a list of positive numbers (NaN when empty). */
-    static double median(double[] v) {
-        return v.length == 0 ? Double.NaN : RobustStatistics.median(v.clone());
-    }
 }

@@ -92,7 +92,7 @@ public final class AnalyseCommand implements Callable<Integer> {
             description = "Exposure time for smearing (default: the median spacing of the points; 0 for none).")
     Double exposureTime;
 
-    @Option(names = "--supersample", paramLabel = "N", description = "Sub-exposures per exposure (default: one per 40 s).")
+    @Option(names = "--supersample", paramLabel = "N", description = "Sub-exposures per exposure (default: one per 2 minutes of exposure).")
     Integer supersample;
 
     @Option(names = "--seed", paramLabel = "S", description = "Seed of the random draws (default 1).")
