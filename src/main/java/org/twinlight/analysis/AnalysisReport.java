@@ -82,7 +82,7 @@ final class AnalysisReport {
         String v = status.path("verdict").asText();
         b.append("<div class=\"verdict ").append(esc(v)).append("\"><strong>")
                 .append(switch (v) {
-                    case "ok" -> "Done.";
+                    case "ok" -> "";
                     case "uncertain" -> "Results with a doubt (exit code 1).";
                     default -> "The analysis could not be completed (exit code 1).";
                 })

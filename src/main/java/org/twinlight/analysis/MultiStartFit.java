@@ -136,7 +136,7 @@ final class MultiStartFit {
                 FitResult r = EclipseFitter.fit(s.model(), thinned, trialSettings);
                 t = new Trial(s, r.chi2(), r.model(), null);
             } catch (WorkFailedException | IllegalArgumentException e) {
-                t = new Trial(s, Double.POSITIVE_INFINITY, null, e.getMessage());
+                t = new Trial(s, Double.POSITIVE_INFINITY, null, firstSentence(e.getMessage()));
             }
             trials.add(t);
             sink.accept(String.format(Locale.ROOT, "  start %d/%d (%s): %s", trials.size(), starts.size(),
@@ -154,6 +154,15 @@ final class MultiStartFit {
         }
         FitResult result = EclipseFitter.fit(best.end(), data, settings);
         return new Outcome(result, trials, thinnedPoints, rivals(trials, best));
+    }
+
+    /** The first sentence of a message (the solver's messages go on with its coordinates). */
+    static String firstSentence(String message) {
+        if (message == null) {
+            return "no reason given";
+        }
+        int end = message.indexOf(". ");
+        return end > 0 ? message.substring(0, end) : message;
     }
 
     /** Notes on minima other than the best that fit the thinned data nearly as well with another geometry. */

@@ -244,6 +244,13 @@ public final class TargetAnalysis {
                     + "epoch %.6f (%d eclipse(s) skipped: see the report); check the period and epoch", st
                     .searchEphemeris.periodDays(), st.searchEphemeris.epochDays(), st.minima.skipped().size()));
         }
+        if (st.period != null && primaries < 2) {
+            throw new WorkFailedException(String.format(Locale.ROOT, "one eclipse only: %d primary and %d secondary "
+                    + "eclipse(s) could be timed at the searched P = %.6g d, and a period needs two eclipses of the "
+                    + "same kind; the search's period is a guess from the data's length, not a measurement. Longer "
+                    + "data (a second eclipse) would settle it; if the period is known from elsewhere, give it with "
+                    + "--period", primaries, timings.size() - primaries, st.searchEphemeris.periodDays()));
+        }
         long cycles = timings.stream().mapToDouble(MinimumTime::cycle).distinct().count();
         st.ephemeris = st.searchEphemeris;
         if (cycles >= 2) {
