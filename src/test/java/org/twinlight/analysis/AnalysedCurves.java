@@ -8,7 +8,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.SplittableRandom;
+import java.util.Random;
 import java.util.concurrent.ConcurrentHashMap;
 import org.twinlight.eclipse.BinaryModel;
 import org.twinlight.eclipse.BinaryParameters;
@@ -69,10 +69,10 @@ final class AnalysedCurves {
     /** 10 days of 10-minute flux points with Gaussian noise. */
     static Path writeSpace(Path f, long seed) {
         List<double[]> rows = new ArrayList<>();
-        SplittableRandom rng = new SplittableRandom(seed);
+        Random rng = new Random(seed);
         BinaryModel m = new BinaryModel(SPACE);
         for (double t = 2460001.0; t < 2460011.0; t += 10.0 / 1440) {
-            rows.add(new double[] {t, m.flux(t) * (1 + 600e-6 * gaussian(rng)), 600e-6});
+            rows.add(new double[] {t, m.flux(t) * (1 + 600e-6 * rng.nextGaussian()), 600e-6});
         }
         return write(f, "# time scale: BJD_TDB\ntime,flux,flux_err", rows);
     }
@@ -83,16 +83,16 @@ final class AnalysedCurves {
      */
     static Path writeGround(Path f, long seed) {
         List<double[]> rows = new ArrayList<>();
-        SplittableRandom rng = new SplittableRandom(seed);
+        Random rng = new Random(seed);
         BinaryModel m = new BinaryModel(GROUND);
         for (int night = 0; night < 30; night++) {
             if (rng.nextDouble() < 1.0 / 3) {
                 continue;
             }
-            double zeroPoint = 0.01 * gaussian(rng);
+            double zeroPoint = 0.01 * rng.nextGaussian();
             double start = 2460100.0 + night + 0.32 + 0.03 * rng.nextDouble();
             for (double t = start; t < start + 6.5 / 24; t += 3.0 / 1440) {
-                double mag = 11.2 - 2.5 * Math.log10(m.flux(t)) + zeroPoint + 0.004 * gaussian(rng);
+                double mag = 11.2 - 2.5 * Math.log10(m.flux(t)) + zeroPoint + 0.004 * rng.nextGaussian();
                 rows.add(new double[] {t, mag, 0.004});
             }
         }
@@ -102,9 +102,9 @@ final class AnalysedCurves {
     /** Gaussian noise of 1000 ppm over 10 days: no eclipse. */
     static Path writeFlat(Path f, long seed) {
         List<double[]> rows = new ArrayList<>();
-        SplittableRandom rng = new SplittableRandom(seed);
+        Random rng = new Random(seed);
         for (double t = 2460001.0; t < 2460011.0; t += 10.0 / 1440) {
-            rows.add(new double[] {t, 1 + 1000e-6 * gaussian(rng), 1000e-6});
+            rows.add(new double[] {t, 1 + 1000e-6 * rng.nextGaussian(), 1000e-6});
         }
         return write(f, "# time scale: BJD_TDB\ntime,flux,flux_err", rows);
     }
@@ -115,9 +115,9 @@ final class AnalysedCurves {
                 .withInclinationDeg(89.6);
         BinaryModel m = new BinaryModel(p);
         List<double[]> rows = new ArrayList<>();
-        SplittableRandom rng = new SplittableRandom(seed);
+        Random rng = new Random(seed);
         for (double t = 2460001.0; t < 2460009.0; t += 10.0 / 1440) {
-            rows.add(new double[] {t, m.flux(t) * (1 + 600e-6 * gaussian(rng)), 600e-6});
+            rows.add(new double[] {t, m.flux(t) * (1 + 600e-6 * rng.nextGaussian()), 600e-6});
         }
         return write(f, "# time scale: BJD_TDB\ntime,flux,flux_err", rows);
     }
@@ -133,18 +133,5 @@ final class AnalysedCurves {
             throw new UncheckedIOException(e);
         }
         return f;
-    }
-
-    /** A standard normal deviate (Marsaglia polar method; Marsaglia &amp; Bray 1964, SIAM Rev. 6, 260). */
-    static double gaussian(SplittableRandom rng) {
-        double u;
-        double v;
-        double s;
-        do {
-            u = 2 * rng.nextDouble() - 1;
-            v = 2 * rng.nextDouble() - 1;
-            s = u * u + v * v;
-        } while (s >= 1 || s == 0);
-        return u * Math.sqrt(-2 * Math.log(s) / s);
     }
 }
