@@ -122,6 +122,19 @@ final class AnalysedCurves {
         return write(f, "# time scale: BJD_TDB\ntime,flux,flux_err", rows);
     }
 
+    /** Twin stars (equal radii, surface brightness and limb darkening): P and P/2 look alike. */
+    static Path writeTwins(Path f, long seed) {
+        BinaryParameters p = new BinaryParameters(1.8713, 2460001.3, 0.09, 0.09, 88.5, 0, 90, 1.0, 0,
+                LimbDarkening.quadratic(0.4, 0.25), LimbDarkening.quadratic(0.4, 0.25), 0, 1);
+        BinaryModel m = new BinaryModel(p);
+        List<double[]> rows = new ArrayList<>();
+        Random rng = new Random(seed);
+        for (double t = 2460001.0; t < 2460011.0; t += 10.0 / 1440) {
+            rows.add(new double[] {t, m.flux(t) * (1 + 1000e-6 * rng.nextGaussian()), 1000e-6});
+        }
+        return write(f, "# time scale: BJD_TDB\ntime,flux,flux_err", rows);
+    }
+
     private static Path write(Path f, String header, List<double[]> rows) {
         StringBuilder b = new StringBuilder(header).append('\n');
         for (double[] r : rows) {

@@ -44,6 +44,20 @@ class TargetAnalysisOutcomeTest {
     }
 
     @Test
+    void ambiguousPeriodIsExitOneNamingTheChoiceAndTheAlternatives() throws IOException {
+        Path f = AnalysedCurves.writeTwins(AnalysedCurves.root().resolve("twins.csv"), 6);
+        AnalysedCurves.Outcome run = AnalysedCurves.run(settings(f), AnalysedCurves.root().resolve("twins"), f);
+        assertThat(run.outcome().exitCode()).as(run.outcome().message()).isEqualTo(1);
+        assertThat(run.outcome().message()).contains("the period is ambiguous").contains("went on with P =")
+                .contains("allow").contains("--period");
+        JsonNode results = JSON.readTree(run.outputDir().resolve("results.json").toFile());
+        assertThat(results.path("status").path("verdict").asText()).isEqualTo("uncertain");
+        assertThat(results.path("period").path("decision").path("alternatives").size()).isPositive();
+        assertThat(Files.readString(run.outputDir().resolve("report.html"))).contains("Results with a doubt")
+                .contains("the period is ambiguous");
+    }
+
+    @Test
     void settingsUsedRepeatTheRunExactly() throws IOException {
         AnalysedCurves.Outcome first = AnalysedCurves.ground(1);
         Path used = first.outputDir().resolve("settings-used.json");
