@@ -19,12 +19,12 @@ import org.twinlight.eclipse.LimbDarkening;
  * bundled samples), written as files, and their analyses run once per test JVM and shared by the
  * test classes (the analyses are the slow part).
  */
-final class AnalysedCurves {
+public final class AnalysedCurves {
     /** Space-like: continuous, 10-minute integrations, 600 ppm; limb darkening unlike the default. */
-    static final BinaryParameters SPACE = new BinaryParameters(2.3117, 2460000.7342, 0.118, 0.081, 87.4, 0, 90, 0.62,
+    public static final BinaryParameters SPACE = new BinaryParameters(2.3117, 2460000.7342, 0.118, 0.081, 87.4, 0, 90, 0.62,
             0, LimbDarkening.quadratic(0.47, 0.21), LimbDarkening.quadratic(0.55, 0.18), 10.0 / 1440, 5);
     /** Ground-like: short period, nights with weather, night-to-night zero points, magnitudes, 4 mmag. */
-    static final BinaryParameters GROUND = new BinaryParameters(0.64371, 2460100.3518, 0.214, 0.168, 84.1, 0, 90,
+    public static final BinaryParameters GROUND = new BinaryParameters(0.64371, 2460100.3518, 0.214, 0.168, 84.1, 0, 90,
             0.83, 0, LimbDarkening.quadratic(0.5, 0.2), LimbDarkening.quadratic(0.55, 0.2), 0, 1);
 
     private static final Map<String, Outcome> RUNS = new ConcurrentHashMap<>();
@@ -36,7 +36,7 @@ final class AnalysedCurves {
     private AnalysedCurves() {
     }
 
-    static Path root() {
+    public static Path root() {
         Path p = Path.of("target", "analysis-tests").toAbsolutePath();
         try {
             Files.createDirectories(p);
@@ -67,7 +67,7 @@ final class AnalysedCurves {
     }
 
     /** 10 days of 10-minute flux points with Gaussian noise. */
-    static Path writeSpace(Path f, long seed) {
+    public static Path writeSpace(Path f, long seed) {
         List<double[]> rows = new ArrayList<>();
         Random rng = new Random(seed);
         BinaryModel m = new BinaryModel(SPACE);
@@ -81,7 +81,7 @@ final class AnalysedCurves {
      * 30 nights of 6.5 hours at 3-minute cadence, a third of them lost to weather, each night with its
      * own zero point (σ 0.01 mag), 4 mmag noise, as magnitudes.
      */
-    static Path writeGround(Path f, long seed) {
+    public static Path writeGround(Path f, long seed) {
         List<double[]> rows = new ArrayList<>();
         Random rng = new Random(seed);
         BinaryModel m = new BinaryModel(GROUND);
