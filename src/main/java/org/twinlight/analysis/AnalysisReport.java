@@ -33,6 +33,7 @@ final class AnalysisReport {
             vertical-align: top; }
             td.num { text-align: right; font-family: ui-monospace, monospace; white-space: nowrap; }
             img { max-width: 100%; height: auto; border: 1px solid var(--rule); }
+            .wide { overflow-x: auto; }
             .verdict { padding: 0.7em 1em; border-left: 6px solid var(--ok); background: #eef8f4; }
             .verdict.uncertain { border-color: var(--warn); background: #fdf5e6; }
             .verdict.failed { border-color: var(--bad); background: #fbeee6; }
@@ -42,7 +43,8 @@ final class AnalysisReport {
             nav a { margin-right: 0.8em; }
             @media print { body { max-width: none; font-size: 10pt; padding: 0; } nav { display: none; } \
             h2 { break-after: avoid; } table, figure, img, .verdict { break-inside: avoid; } \
-            a { color: inherit; text-decoration: none; } pre { white-space: pre-wrap; } }
+            a { color: inherit; text-decoration: none; } pre { white-space: pre-wrap; } \
+            .wide { overflow: visible; } .wide table { font-size: 7pt; } }
             """;
 
     private AnalysisReport() {
@@ -224,7 +226,7 @@ final class AnalysisReport {
                     .append(free ? num(p.path("uncertainty"), "%.3g") : "<td class=\"num\">—</td>").append("<td>")
                     .append(free ? "none: uniform within the physical bounds" : "—").append("</td><td>")
                     .append(free ? "free" : "fixed").append(limit.isMissingNode() ? "" : esc(String.format(Locale.ROOT,
-                            "; at its %s bound: 95%% limit %.4g", limit.path("side").asText(),
+                            "; at a physical bound: 95%% %s limit %.4g", limit.path("side").asText(),
                             limit.path("value95").asDouble()))).append("</td></tr>\n");
         }
         b.append("</table>\n<h3>Derived quantities</h3>\n<table><tr><th>quantity</th><th>value</th>")
@@ -244,7 +246,7 @@ final class AnalysisReport {
             return;
         }
         b.append("<p>Correlation coefficients of the free parameters; |ρ| &gt; 0.9 in bold: their errors are not "
-                + "independent.</p>\n<table><tr><th></th>");
+                + "independent.</p>\n<div class=\"wide\"><table><tr><th></th>");
         for (JsonNode n : c.path("names")) {
             b.append("<th>").append(esc(n.asText())).append("</th>");
         }
@@ -258,7 +260,7 @@ final class AnalysisReport {
             }
             b.append("</tr>\n");
         }
-        b.append("</table>\n");
+        b.append("</table></div>\n");
     }
 
     private static void diagnostics(StringBuilder b, JsonNode results) {
