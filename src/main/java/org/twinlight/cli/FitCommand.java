@@ -12,8 +12,11 @@ import org.twinlight.eclipse.ModelFile;
 import org.twinlight.fit.Baseline;
 import org.twinlight.fit.EclipseFitter;
 import org.twinlight.fit.FitData;
+import org.twinlight.fit.FitProblem;
+import org.twinlight.fit.GlobalSearch;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.Priors;
 import org.twinlight.fit.StartingValues;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.report.FitFiles;
@@ -82,6 +85,11 @@ public final class FitCommand implements Callable<Integer> {
                     + "The input is never changed; fit.json counts what was left out.")
     String clip;
 
+    @Option(names = "--global", description = "Search the whole range of the free parameters first (a Latin-hypercube "
+            + "multistart, each start finished by least squares, on all cores): every distinct minimum goes to fit.json "
+            + "under \"minima\", a note names any that fits almost as well (Δχ² < 9), and the best is fitted as usual.")
+    boolean global;
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
 
@@ -94,6 +102,7 @@ public final class FitCommand implements Callable<Integer> {
         inputFiles.add(model);
         OutputTargets.checkDirectory(out, List.of("fit.json", "residuals.csv", "model.json", "fit.png"), inputFiles);
         ModelFile start = ModelFileJson.read(model);
+        Priors priors = ModelFileJson.readPriors(model);
         if (!bands.isEmpty() && bands.size() != files.size()) {
             throw new BadInputException("option --band: given " + bands.size() + " time(s) for " + files.size()
                     + " file(s); give it once per file, in order, or not at all");
@@ -169,12 +178,25 @@ public final class FitCommand implements Callable<Integer> {
             EpochChecks.near(start.common().epochDays(), start.common().periodDays(),
                     data.get(i).lightCurve().timesDays(), files.get(i).toString(), model + ": key 'epoch'");
         }
-        FitResult r = EclipseFitter.fit(start, data, settings);
+        FitProblem problem = FitProblem.of(start, data, settings, priors);
+        GlobalSearch.Result search = null;
+        if (global) {
+            search = GlobalSearch.run(problem);
+            console().printf(Locale.ROOT, "global search: %d starts, %d distinct minim%s%n", search.starts(),
+                    search.minima().size(), search.minima().size() == 1 ? "um" : "a");
+            problem = search.best();
+        }
+        FitResult r = EclipseFitter.optimize(problem);
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
                 VersionInfo.version());
         com.fasterxml.jackson.databind.node.ArrayNode notes = (com.fasterxml.jackson.databind.node.ArrayNode) doc.get("notes");
         startNotes.forEach(notes::add);
+        FitFiles.putPriors(doc, priors);
+        if (search != null) {
+            FitFiles.putMinima(doc, search);
+            search.notes().forEach(n -> console().println("note: " + n));
+        }
         for (FitData d : data) {
             d.lightCurve().notes().forEach(n -> notes.add(d.lightCurve().source() + ": " + n));
         }

@@ -57,12 +57,12 @@ final class BoundLimits {
         }
     }
 
-    private final WeightedResiduals objective;
+    private final FitObjective objective;
     private final double[] bestExt;
     private final double chi2Min;
     private int fits;
 
-    BoundLimits(WeightedResiduals objective, double[] bestInternal, double chi2Min) {
+    BoundLimits(FitObjective objective, double[] bestInternal, double chi2Min) {
         this.objective = objective;
         this.bestExt = objective.layout().toExternal(bestInternal);
         this.chi2Min = chi2Min;
@@ -137,7 +137,7 @@ final class BoundLimits {
         double[] ext = bestExt.clone();
         ext[index] = value;
         ParameterLayout fixed = layout.fixing(index, ext);
-        WeightedResiduals held = objective.withLayout(fixed);
+        FitObjective held = objective.withLayout(fixed);
         double[] start = fixed.validate(fixed.startInternal());
         fits++;
         double chi2;

@@ -15,6 +15,8 @@ import org.twinlight.WorkFailedException;
 import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.ModelFile;
 import org.twinlight.photometry.RobustStatistics;
+import org.twinlight.statistics.Covariance;
+import org.twinlight.statistics.FitStatistics;
 
 /**
  * Least-squares fit of the two-sphere model to one or more light curves: Levenberg–Marquardt
@@ -24,7 +26,9 @@ import org.twinlight.photometry.RobustStatistics;
  * for the rest, and the model-adequacy checks ({@link ModelAdequacy}).
  *
  * <p>Uncertainties come from the inverse of JᵀJ at the optimum (J the Jacobian of the weighted
- * residuals, by central differences), scaled by the reduced χ², and are propagated to the
+ * residuals, by central differences), scaled by the project's one rule
+ * ({@link FitStatistics#varianceScale}: χ²ν for errors estimated from the scatter, max(1, χ²ν)
+ * for stated errors), and are propagated to the
  * contract's parameters and to derived quantities by the Jacobian of that mapping.
  */
 public final class EclipseFitter {
@@ -44,6 +48,11 @@ public final class EclipseFitter {
         return optimize(FitProblem.of(start, data, settings));
     }
 
+    /** The same with priors: {@code optimize(FitProblem.of(start, data, settings, priors))}. */
+    public static FitResult fit(ModelFile start, List<FitData> data, FitSettings settings, Priors priors) {
+        return optimize(FitProblem.of(start, data, settings, priors));
+    }
+
     /**
      * Solves a fit problem.
      *
@@ -52,23 +61,23 @@ public final class EclipseFitter {
      */
     public static FitResult optimize(FitProblem problem) {
         FitSettings settings = problem.settings();
-        WeightedResiduals all = problem.objective();
+        FitObjective all = problem.objective();
         ParameterLayout layout = all.layout();
-        double[] x0 = layout.validate(layout.startInternal());
-        if (all.eclipsedPoints(layout.toExternal(x0)) == 0) {
+        double[] x0 = all.validator(layout.startInternal()).apply(layout.startInternal());
+        if (all.lightCurves().eclipsedPoints(layout.toExternal(x0)) == 0) {
             throw new WorkFailedException("the starting model predicts no eclipse at any data point; check period "
                     + "and epoch (the period and minima commands find them), radii and inclination, or start "
                     + "from the data with --start auto");
         }
         Passes passes = new Passes();
         LeastSquaresSolver.Solution s = passes.solve(all, x0, settings, layout);
-        WeightedResiduals used = all;
+        FitObjective used = all;
         Map<String, Integer> clipped = new LinkedHashMap<>();
         List<String> clipNotes = new ArrayList<>();
         if (settings.clips()) {
             List<boolean[]> current = null;
             for (int pass = 0; pass < CLIP_PASSES; pass++) {
-                Outliers o = outliers(all.curves(layout.toExternal(s.internal())), settings.clipSigma());
+                Outliers o = outliers(all.lightCurves().curves(layout.toExternal(s.internal())), settings.clipSigma());
                 if (o.fraction > MAX_CLIPPED_FRACTION) {
                     clipNotes.add(String.format(Locale.ROOT, "%.1f%% of the points lie more than %.1f robust "
                             + "standard deviations from the model: too many to be outliers, so none were clipped; "
@@ -92,11 +101,11 @@ public final class EclipseFitter {
             }
             if (current != null) {
                 used = all.withLeftOut(current);
-                clipped.putAll(Outliers.byReason(current, all.curves(layout.toExternal(s.internal()))));
+                clipped.putAll(Outliers.byReason(current, all.lightCurves().curves(layout.toExternal(s.internal()))));
             }
         }
         double[] ext = layout.toExternal(s.internal());
-        if (used.eclipsedPoints(ext) == 0) {
+        if (used.lightCurves().eclipsedPoints(ext) == 0) {
             throw new WorkFailedException("the fit ended with a model that has no eclipse at any data point (inclination "
                     + String.format(Locale.ROOT, "%.1f°", ext[ParameterLayout.INCLINATION])
                     + "): the data show no eclipse the model can follow. Check that the file holds eclipses "
@@ -118,7 +127,7 @@ public final class EclipseFitter {
         int iterations;
         int evaluations;
 
-        LeastSquaresSolver.Solution solve(WeightedResiduals objective, double[] start, FitSettings settings,
+        LeastSquaresSolver.Solution solve(FitObjective objective, double[] start, FitSettings settings,
                 ParameterLayout layout) {
             try {
                 LeastSquaresSolver.Solution s = LeastSquaresSolver.optimize(objective, start, settings.maxIterations());
@@ -213,14 +222,15 @@ public final class EclipseFitter {
     /** Statistics, uncertainties, limits and checks at the optimum. */
     private static final class Summary {
 
-        static FitResult of(FitProblem problem, WeightedResiduals objective, LeastSquaresSolver.Solution s,
+        static FitResult of(FitProblem problem, FitObjective objective, LeastSquaresSolver.Solution s,
                 int iterations, int evaluations, Map<String, Integer> clipped) {
             ParameterLayout layout = objective.layout();
             double[] best = s.internal();
             int m = objective.size();
-            double chi2 = objective.chi2(best);
+            double minimised = objective.chi2(best);
+            double chi2 = objective.dataChi2(best);
             int k = layout.internalSize();
-            int freeCount = k + objective.baselineCoefficientCount();
+            int freeCount = k + objective.nuisanceCount();
             int nUsed = objective.usedCount();
             int dof = nUsed - freeCount;
             if (dof <= 0) {
@@ -228,6 +238,8 @@ public final class EclipseFitter {
                         + " fitted quantities; fix some parameters or use more data");
             }
             double reducedChi2 = chi2 / dof;
+            boolean estimated = objective.lightCurves().errorsEstimated();
+            double varianceScale = FitStatistics.varianceScale(chi2, dof, estimated);
             double[] steps = layout.steps();
             // JᵀJ straight from the Jacobian's columns: no n × k row copies of millions of points
             RealMatrix normal = new Array2DRowRealMatrix(
@@ -237,7 +249,7 @@ public final class EclipseFitter {
             double startEpoch = problem.start().common().epochDays();
             double[] extBest = layout.toExternal(best);
             long epochShift = Math.round((extBest[ParameterLayout.EPOCH] - startEpoch) / extBest[ParameterLayout.PERIOD]);
-            long midCycle = Math.round((objective.midTime() - extBest[ParameterLayout.EPOCH])
+            long midCycle = Math.round((objective.lightCurves().midTime() - extBest[ParameterLayout.EPOCH])
                     / extBest[ParameterLayout.PERIOD]);
             Reported named = Reported.at(layout, extBest, epochShift, midCycle);
             double[] values = named.values();
@@ -251,8 +263,8 @@ public final class EclipseFitter {
             double[] fullSv = fullSvd.getSingularValues();
             boolean conditioned = fullSv.length > 0 && fullSv[fullSv.length - 1] > fullSv[0] * 1e-10;
             RealMatrix linear = gm.multiply(fullSvd.getSolver().getInverse()).multiply(gm.transpose())
-                    .scalarMultiply(reducedChi2);
-            BoundLimits limits = new BoundLimits(objective, best, chi2);
+                    .scalarMultiply(varianceScale);
+            BoundLimits limits = new BoundLimits(objective, best, minimised);
             Map<Integer, BoundLimits.Profile> profiles = new HashMap<>();
             Map<String, BoundLimits.Profile> nearBound = new HashMap<>();
             List<Integer> excluded = new ArrayList<>();
@@ -274,7 +286,7 @@ public final class EclipseFitter {
                     }
                 }
             }
-            RealMatrix cov = covariance(normal, excluded, reducedChi2, layout, problem.settings());
+            RealMatrix cov = covariance(normal, excluded, varianceScale, layout, problem.settings());
             RealMatrix repCov = gm.multiply(cov).multiply(gm.transpose());
             // A value reported as a limit is left out of the covariance, which then holds it fixed;
             // the others' uncertainties get back what it contributes, from the profile: the shift
@@ -333,47 +345,42 @@ public final class EclipseFitter {
                             Math.sqrt(Math.max(0, repCov.getEntry(i, i))), depends));
                 }
             }
-            double[][] corr = new double[freeIdx.size()][freeIdx.size()];
-            for (int a = 0; a < freeIdx.size(); a++) {
-                for (int b = 0; b < freeIdx.size(); b++) {
-                    int ia = freeIdx.get(a);
-                    int ib = freeIdx.get(b);
-                    double den = Math.sqrt(repCov.getEntry(ia, ia) * repCov.getEntry(ib, ib));
-                    corr[a][b] = den > 0 ? repCov.getEntry(ia, ib) / den : (a == b ? 1 : 0);
-                }
-            }
+            int[] freeRows = freeIdx.stream().mapToInt(Integer::intValue).toArray();
+            double[][] corr = freeRows.length == 0 ? new double[0][0]
+                    : FitStatistics.correlation(repCov.getSubMatrix(freeRows, freeRows).getData());
 
             ModelFile bestModel = layout.modelFile(Arrays.copyOf(values, nExt));
-            List<FittedCurve> curves = objective.curves(extBest);
-            double sumSq = 0;
+            List<FittedCurve> curves = objective.lightCurves().curves(extBest);
+            double[] usedResiduals = new double[nUsed];
+            int u = 0;
             for (FittedCurve c : curves) {
                 for (int i = 0; i < c.size(); i++) {
                     if (!c.clipped()[i]) {
-                        sumSq += c.residual(i) * c.residual(i);
+                        usedResiduals[u++] = c.residual(i);
                     }
                 }
             }
-            double rms = Math.sqrt(sumSq / nUsed);
-            double bic = chi2 + freeCount * Math.log(nUsed);
+            double rms = FitStatistics.rms(usedResiduals);
+            double bic = FitStatistics.bic(chi2, freeCount, nUsed);
             ModelAdequacy.Result adequacy = ModelAdequacy.check(curves,
-                    c -> bestModel.forBand(curves.get(c).band()), freeCount, objective.errorsEstimated());
+                    c -> bestModel.forBand(curves.get(c).band()), freeCount, estimated);
             FitResult draft = new FitResult(bestModel, params, derived, freeNames, corr, nUsed, freeCount, chi2,
-                    reducedChi2, rms, bic, iterations, evaluations + profileFits, objective.errorsEstimated(),
+                    reducedChi2, rms, bic, iterations, evaluations + profileFits, estimated,
                     adequacy, Map.copyOf(clipped.isEmpty() ? Map.of() : clipped), List.of(), curves);
             List<String> notes = FitNotes.of(draft, layout.bands(), profiles.values().stream()
                     .filter(p -> !p.reachedLimit()).map(p -> layout.parameter(p.index()).name()).toList());
             return new FitResult(bestModel, params, derived, freeNames, corr, nUsed, freeCount, chi2, reducedChi2,
-                    rms, bic, iterations, evaluations + profileFits, objective.errorsEstimated(), adequacy,
+                    rms, bic, iterations, evaluations + profileFits, estimated, adequacy,
                     new LinkedHashMap<>(clipped), notes, curves);
         }
 
         /**
-         * The covariance of the internal coordinates, scaled by χ²ν; coordinates in {@code excluded}
+         * The covariance of the internal coordinates, scaled by the variance scale; coordinates in {@code excluded}
          * (folded coordinates of values reported as limits) get zero rows and columns.
          *
          * @throws WorkFailedException naming the combination the data cannot determine
          */
-        private static RealMatrix covariance(RealMatrix normal, List<Integer> excluded, double reducedChi2,
+        private static RealMatrix covariance(RealMatrix normal, List<Integer> excluded, double varianceScale,
                 ParameterLayout layout, FitSettings settings) {
             int k = normal.getRowDimension();
             int[] keep = java.util.stream.IntStream.range(0, k).filter(i -> !excluded.contains(i)).toArray();
@@ -381,19 +388,16 @@ public final class EclipseFitter {
             if (keep.length == 0) {
                 return full;
             }
-            RealMatrix sub = normal.getSubMatrix(keep, keep);
-            SingularValueDecomposition svd = new SingularValueDecomposition(sub);
-            double[] sv = svd.getSingularValues();
-            if (sv[sv.length - 1] <= sv[0] * 1e-14) {
-                double[] dir = svd.getV().getColumn(sv.length - 1);
+            double[][] inv;
+            try {
+                inv = Covariance.fromNormalMatrix(normal.getSubMatrix(keep, keep).getData(), varianceScale);
+            } catch (Covariance.Degenerate d) {
                 List<String> owners = layout.internalOwners();
                 List<String> involved = new ArrayList<>();
-                for (int a = 0; a < dir.length; a++) {
-                    if (Math.abs(dir[a]) > 0.2) {
-                        String o = owners.get(keep[a]);
-                        if (!involved.contains(o)) {
-                            involved.add(o);
-                        }
+                for (int a : d.involved()) {
+                    String o = owners.get(keep[a]);
+                    if (!involved.contains(o)) {
+                        involved.add(o);
                     }
                 }
                 throw new WorkFailedException("the data cannot determine " + (involved.size() == 1
@@ -403,10 +407,9 @@ public final class EclipseFitter {
                         settings.free()) + ". Fix one of them at a value from elsewhere, or add data that "
                         + "separate them (both eclipses, another band)");
             }
-            RealMatrix inv = svd.getSolver().getInverse().scalarMultiply(reducedChi2);
             for (int a = 0; a < keep.length; a++) {
                 for (int b = 0; b < keep.length; b++) {
-                    full.setEntry(keep[a], keep[b], inv.getEntry(a, b));
+                    full.setEntry(keep[a], keep[b], inv[a][b]);
                 }
             }
             return full;
@@ -426,22 +429,16 @@ public final class EclipseFitter {
             List<String> names = new ArrayList<>();
             List<String> bands = new ArrayList<>();
             BinaryParameters p0 = layout.parameters(ext, 0);
-            double w = Math.toRadians(p0.omegaDeg());
-            Object[][] common = {
-                {"sumOfRadii", p0.sumOfRadii()},
-                {"radiusRatio", p0.radiusRatio()},
-                {"impactParameterPrimary", p0.impactParameterPrimary()},
-                {"impactParameterSecondary", p0.impactParameterSecondary()},
-                {"eCosOmega", p0.eccentricity() * Math.cos(w)},
-                {"eSinOmega", p0.eccentricity() * Math.sin(w)},
-                {"secondaryPhase", p0.orbit().secondaryPhase()},
-                {"epochMidData", ext[ParameterLayout.EPOCH] + midCycle * ext[ParameterLayout.PERIOD]},
-            };
-            for (Object[] c : common) {
-                names.add((String) c[0]);
-                bands.add(null);
-                out.add((Double) c[1]);
+            for (String name : Priors.DERIVED_NAMES) {
+                if (!Derived.perBand(name)) {
+                    names.add(name);
+                    bands.add(null);
+                    out.add(Derived.value(name, p0));
+                }
             }
+            names.add("epochMidData");
+            bands.add(null);
+            out.add(ext[ParameterLayout.EPOCH] + midCycle * ext[ParameterLayout.PERIOD]);
             boolean multiBand = layout.bands().size() > 1;
             for (int b = 0; b < layout.bands().size(); b++) {
                 names.add("lightRatio");

@@ -7,21 +7,24 @@ import org.twinlight.eclipse.ModelFile;
 
 /**
  * A fit to be solved: the starting model, the data with their bands, the settings, and from them
- * the parameters ({@link ParameterLayout}) and the objective ({@link WeightedResiduals}). Building
+ * the parameters ({@link ParameterLayout}) and the objective ({@link FitObjective}). Building
  * it checks the input; solving it is {@link EclipseFitter#optimize(FitProblem)}.
  */
 public final class FitProblem {
     private final ModelFile start;
     private final List<FitData> data;
     private final FitSettings settings;
-    private final WeightedResiduals objective;
+    private final FitObjective objective;
+    private final Priors priors;
 
-    private FitProblem(ModelFile start, List<FitData> data, FitSettings settings) {
+    private FitProblem(ModelFile start, List<FitData> data, FitSettings settings, Priors priors) {
         this.start = start;
         this.data = List.copyOf(data);
         this.settings = settings;
+        this.priors = priors;
         List<String> bands = data.stream().map(FitData::band).distinct().toList();
-        this.objective = new WeightedResiduals(new ParameterLayout(start, bands, settings.free()), data, settings);
+        ParameterLayout layout = new ParameterLayout(start, bands, settings.free());
+        this.objective = new FitObjective(layout, new WeightedResiduals(layout, data, settings), priors);
     }
 
     /**
@@ -31,6 +34,16 @@ public final class FitProblem {
      *     when no baseline is fitted
      */
     public static FitProblem of(ModelFile start, List<FitData> data, FitSettings settings) {
+        return of(start, data, settings, Priors.none());
+    }
+
+    /**
+     * Checks the input and builds the problem with priors.
+     *
+     * @throws BadInputException also for a prior on an unknown or fixed parameter, or one that
+     *     excludes the starting value
+     */
+    public static FitProblem of(ModelFile start, List<FitData> data, FitSettings settings, Priors priors) {
         if (data.isEmpty()) {
             throw new IllegalArgumentException("no data to fit");
         }
@@ -46,7 +59,12 @@ public final class FitProblem {
                 }
             }
         }
-        return new FitProblem(start, data, settings);
+        return new FitProblem(start, data, settings, priors);
+    }
+
+    /** The same data, settings and priors started from another model (a global search's best minimum). */
+    public FitProblem startingFrom(ModelFile other) {
+        return new FitProblem(other, data, settings, priors);
     }
 
     public ModelFile start() {
@@ -66,7 +84,8 @@ public final class FitProblem {
         return objective.layout().parameters();
     }
 
-    WeightedResiduals objective() {
+    /** The objective every solver of this problem evaluates (all points; see {@link FitObjective#withClippingOf}). */
+    public FitObjective objective() {
         return objective;
     }
 }

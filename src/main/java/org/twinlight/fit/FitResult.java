@@ -9,13 +9,14 @@ import org.twinlight.eclipse.ModelFile;
  *
  * @param model the best-fitting model (same layout as a model file)
  * @param parameters every model parameter, free or fixed, with its 1σ uncertainty (covariance
- *     scaled by the reduced χ²), or a one-sided limit at a physical bound
+ *     scaled by {@link org.twinlight.statistics.FitStatistics#varianceScale}), or a one-sided
+ *     limit at a physical bound
  * @param derived quantities computed from the parameters, with propagated uncertainties
  * @param freeNames names of the free external parameters, the order of {@code correlation}
  * @param correlation correlation matrix of the free parameters
  * @param n number of data points used (clipped outliers excluded)
  * @param freeCount number of fitted quantities (model parameters plus baseline coefficients)
- * @param chi2 χ² with the given (or estimated) errors
+ * @param chi2 χ² of the data with the given (or estimated) errors (normal priors not included)
  * @param reducedChi2 χ² / (n − freeCount)
  * @param rms root-mean-square residual of the used points, in normalised flux
  * @param bic Bayesian information criterion χ² + k ln n (Schwarz 1978, Ann. Stat. 6, 461)

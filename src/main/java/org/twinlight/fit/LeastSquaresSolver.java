@@ -44,31 +44,40 @@ final class LeastSquaresSolver {
     }
 
     /** Minimises χ² from {@code start}. */
-    static Solution optimize(WeightedResiduals objective, double[] start, int maxIterations) {
+    static Solution optimize(FitObjective objective, double[] start, int maxIterations) {
+        return optimize(objective, start, maxIterations, 1e-10);
+    }
+
+    /**
+     * Minimises χ² from {@code start}, stopping when an iteration lowers it by less than
+     * {@code tolerance} relatively (a global search's starts need less than the final fit).
+     */
+    static Solution optimize(FitObjective objective, double[] start, int maxIterations, double tolerance) {
         ParameterLayout layout = objective.layout();
         if (layout.internalSize() == 0) {
             return new Solution(start.clone(), objective.chi2(start), 0, 1);
         }
         if (objective.size() > LARGE_PROBLEM_ROWS) {
-            return optimizeByNormalEquations(objective::evaluate, layout::validate, start, layout.steps(),
+            return optimizeByNormalEquations(objective::evaluate, objective.validator(start), start, layout.steps(),
                     objective.size(), maxIterations);
         }
         double[] steps = layout.steps();
         int m = objective.size();
+        java.util.function.UnaryOperator<double[]> validator = objective.validator(start);
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .start(start)
                 .target(new double[m])
                 // the Jacobian is computed only for points the solver accepts (lazy evaluation)
                 .model(objective::evaluate, x -> jacobian(objective::evaluate, x, steps, m))
-                .parameterValidator(p -> new ArrayRealVector(layout.validate(p.toArray()), false))
+                .parameterValidator(p -> new ArrayRealVector(validator.apply(p.toArray()), false))
                 .maxIterations(maxIterations)
                 .maxEvaluations(maxIterations * 4)
                 .lazyEvaluation(true)
                 .build();
         try {
             LeastSquaresOptimizer.Optimum o = new LevenbergMarquardtOptimizer()
-                    .withCostRelativeTolerance(1e-10)
-                    .withParameterRelativeTolerance(1e-10)
+                    .withCostRelativeTolerance(tolerance)
+                    .withParameterRelativeTolerance(tolerance)
                     .withOrthoTolerance(1e-12)
                     .optimize(problem);
             double[] best = o.getPoint().toArray();

@@ -246,6 +246,11 @@ final class ParameterLayout {
         return new ParameterLayout(modelFile(ext), bands, names, index);
     }
 
+    /** The same parameters, free and fixed alike, started from the external vector {@code ext}. */
+    ParameterLayout startingAt(double[] ext) {
+        return fixing(-1, ext);
+    }
+
     /** The starting model as an external vector. */
     double[] startExternal() {
         return parameters.stream().mapToDouble(FitParameter::value).toArray();
@@ -315,6 +320,30 @@ final class ParameterLayout {
             }
         }
         return changed ? toInternal(ext) : internal;
+    }
+
+    /**
+     * Whether an external vector lies in the domain the validator keeps trial points in: every
+     * free parameter within its bounds (radii and the surface-brightness ratio above 0), e and ℓ₃
+     * below their limits, the spheres apart at periastron.
+     */
+    boolean inDomain(double[] ext) {
+        for (int i = 0; i < parameters.size(); i++) {
+            FitParameter p = parameters.get(i);
+            if (p.free() && !(ext[i] >= p.lower() && ext[i] <= p.upper())) {
+                return false;
+            }
+        }
+        if (!(ext[RADIUS1] > 0 && ext[RADIUS2] > 0 && ext[ECCENTRICITY] <= MAX_ECCENTRICITY
+                && ext[RADIUS1] + ext[RADIUS2] <= MAX_SUM_FRACTION * (1 - ext[ECCENTRICITY]))) {
+            return false;
+        }
+        for (int off : bandOffset) {
+            if (!(ext[off] > 0 && ext[off + 1] <= MAX_THIRD_LIGHT)) {
+                return false;
+            }
+        }
+        return true;
     }
 
     /** Finite-difference steps for the internal coordinates. */

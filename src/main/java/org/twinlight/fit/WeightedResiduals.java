@@ -8,12 +8,13 @@ import org.twinlight.photometry.LightCurve;
 import org.twinlight.photometry.RobustStatistics;
 
 /**
- * The objective of the light-curve fit: weighted residuals (y − model·baseline)/σ of every data
+ * The light curves of a fit as one {@link FitDataSet}: weighted residuals (y − model·baseline)/σ of every data
  * point, with the per-segment baseline polynomials solved exactly for every trial model (variable
  * projection: Golub &amp; Pereyra 1973, SIAM J. Numer. Anal. 10, 413). Points left out (clipped
  * outliers) keep their place with a residual of 0 and no weight in the baselines.
  */
-final class WeightedResiduals {
+final class WeightedResiduals implements FitDataSet {
+    private static final double LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
     private final ParameterLayout layout;
     private final List<Prepared> sets;
     private final int size;
@@ -37,17 +38,12 @@ final class WeightedResiduals {
         this.errorsEstimated = est;
     }
 
-    private WeightedResiduals(WeightedResiduals base, ParameterLayout layout, List<Prepared> sets) {
-        this.layout = layout;
+    private WeightedResiduals(WeightedResiduals base, List<Prepared> sets) {
+        this.layout = base.layout;
         this.sets = sets;
         this.size = base.size;
         this.degree = base.degree;
         this.errorsEstimated = base.errorsEstimated;
-    }
-
-    /** The same data seen through another layout (a parameter fixed for a profile). */
-    WeightedResiduals withLayout(ParameterLayout other) {
-        return new WeightedResiduals(this, other, sets);
     }
 
     /** The same data with the points flagged in {@code leftOut} (one array per light curve) unused. */
@@ -56,20 +52,18 @@ final class WeightedResiduals {
         for (int s = 0; s < sets.size(); s++) {
             out.add(sets.get(s).withLeftOut(leftOut.get(s)));
         }
-        return new WeightedResiduals(this, layout, List.copyOf(out));
-    }
-
-    ParameterLayout layout() {
-        return layout;
+        return new WeightedResiduals(this, List.copyOf(out));
     }
 
     /** All points, used or not. */
-    int size() {
+    @Override
+    public int size() {
         return size;
     }
 
     /** Points that take part in the fit. */
-    int usedCount() {
+    @Override
+    public int usedCount() {
         int n = 0;
         for (Prepared p : sets) {
             n += p.usedCount;
@@ -81,7 +75,8 @@ final class WeightedResiduals {
         return errorsEstimated;
     }
 
-    int baselineCoefficientCount() {
+    @Override
+    public int nuisanceCount() {
         int c = 0;
         for (Prepared p : sets) {
             c += p.segmentCount() * (degree + 1);
@@ -113,29 +108,31 @@ final class WeightedResiduals {
         return count;
     }
 
-    /** Weighted residuals for an internal point (the solver keeps it inside the domain). */
-    double[] evaluate(double[] internal) {
-        double[] out = new double[size];
-        double[] ext = layout.toExternal(internal);
+    @Override
+    public double logNormalisation() {
+        double s = 0;
+        for (Prepared p : sets) {
+            for (int i = 0; i < p.t.length; i++) {
+                if (p.used[i]) {
+                    s -= Math.log(p.sigma[i]) + LN_SQRT_2PI;
+                }
+            }
+        }
+        return s;
+    }
+
+    /** Weighted residuals for an external vector inside the model's domain. */
+    @Override
+    public void residuals(double[] ext, double[] out, int offset) {
         BinaryModel[] models = new BinaryModel[layout.bands().size()];
         for (int b = 0; b < models.length; b++) {
             models[b] = new BinaryModel(layout.parameters(ext, b));
         }
-        int off = 0;
+        int off = offset;
         for (Prepared p : sets) {
             p.weightedResiduals(models[p.band].flux(p.t), out, off, null);
             off += p.t.length;
         }
-        return out;
-    }
-
-    /** χ² of the used points for an internal point. */
-    double chi2(double[] internal) {
-        double s = 0;
-        for (double v : evaluate(internal)) {
-            s += v * v;
-        }
-        return s;
     }
 
     /** The fitted curves, baselines divided out, for an external vector. */

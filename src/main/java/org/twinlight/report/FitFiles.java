@@ -12,6 +12,9 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 
+import org.twinlight.fit.GlobalSearch;
+import org.twinlight.fit.Prior;
+import org.twinlight.fit.Priors;
 import org.twinlight.fit.Estimate;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
@@ -99,11 +102,53 @@ public final class FitFiles {
         } else {
             set.put("clipSigma", "none");
         }
-        set.put("method", "Levenberg-Marquardt least squares; uncertainties from the covariance scaled by the reduced chi-square");
+        set.put("method", "Levenberg-Marquardt least squares; uncertainties from the covariance scaled by the reduced "
+                + (r.errorsEstimated() ? "chi-square (errors estimated from the scatter)"
+                        : "chi-square when above 1 (errors as stated)"));
         ArrayNode notes = root.putArray("notes");
         r.notes().forEach(notes::add);
         root.put("caution", CAUTION);
         return root;
+    }
+
+    /**
+     * The global search's distinct minima, best first: {@code "minima": [{"chi2", "parameters":
+     * {NAME: value}, "starts"}]} (χ² over every point, before clipping; parameters the free ones and
+     * radiusRatio, sumOfRadii), and its notes added to {@code "notes"}.
+     */
+    public static void putMinima(ObjectNode root, GlobalSearch.Result search) {
+        ArrayNode minima = root.putArray("minima");
+        for (GlobalSearch.Minimum m : search.minima()) {
+            ObjectNode o = minima.addObject();
+            o.put("chi2", m.chi2());
+            ObjectNode p = o.putObject("parameters");
+            m.parameters().forEach(p::put);
+            o.put("starts", m.starts());
+        }
+        ObjectNode settings = (ObjectNode) root.get("settings");
+        if (settings != null) {
+            settings.put("globalSearchStarts", search.starts());
+        }
+        ArrayNode notes = (ArrayNode) root.get("notes");
+        if (notes != null) {
+            search.notes().forEach(notes::add);
+        }
+    }
+
+    /** The priors used, under {@code settings.priors} in the model file's form. */
+    public static void putPriors(ObjectNode root, Priors priors) {
+        if (priors.isEmpty() || !(root.get("settings") instanceof ObjectNode settings)) {
+            return;
+        }
+        ObjectNode out = settings.putObject("priors");
+        priors.byName().forEach((name, prior) -> {
+            ArrayNode pair = out.putObject(name).putArray(prior instanceof Prior.Uniform ? "uniform" : "normal");
+            if (prior instanceof Prior.Uniform u) {
+                pair.add(u.lower()).add(u.upper());
+            } else if (prior instanceof Prior.Normal n) {
+                pair.add(n.mean()).add(n.sigma());
+            }
+        });
     }
 
     /** {@code "correlation": {"names": [..], "matrix": [[..]]}}, entries rounded to 1e-6. */

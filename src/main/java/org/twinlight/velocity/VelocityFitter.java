@@ -17,6 +17,8 @@ import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.util.Pair;
 import org.twinlight.BadInputException;
 import org.twinlight.WorkFailedException;
+import org.twinlight.statistics.Covariance;
+import org.twinlight.statistics.FitStatistics;
 
 /**
  * Least-squares fit of the double-lined velocity model ({@link VelocityModel}) with the
@@ -268,28 +270,20 @@ public final class VelocityFitter {
         double chi2 = chi2(r.residual1(), sigma1, p.jitter1Kms()) + chi2(r.residual2(), sigma2, p.jitter2Kms());
         int dof = data.size() - layout.size();
         double reduced = chi2 / dof;
-        // never below 1: a small chi2/nu on few degrees of freedom is chance as often as it is
-        // overstated errors, and shrinking on it made K and e confidently wrong on small sets
-        double scale = Math.max(1.0, reduced);
+        // the project's one rule (FitStatistics.varianceScale): never below 1 with stated errors, since a small
+        // chi2/nu on few degrees of freedom is chance as often as it is overstated errors, and shrinking on it
+        // made K and e confidently wrong on small sets
+        double scale = FitStatistics.varianceScale(chi2, dof, estimated);
         // the Jacobian at the optimum, recomputed with the final jitter
-        RealMatrix jac = solved.jacobian;
-        RealMatrix cov;
+        double[][] c;
         try {
-            cov = new org.apache.commons.math3.linear.QRDecomposition(jac.transpose().multiply(jac), 1e-14)
-                    .getSolver().getInverse().scalarMultiply(scale);
-        } catch (org.apache.commons.math3.linear.SingularMatrixException e) {
+            c = Covariance.fromNormalMatrix(Covariance.normalMatrix(solved.jacobian.getData()), scale);
+        } catch (Covariance.Degenerate e) {
             throw new WorkFailedException("the velocity fit cannot tell its parameters apart (singular covariance: "
                     + String.join(", ", layout.names) + "); free fewer parameters or add velocities that cover more "
                     + "of the orbit");
         }
-        double[][] c = cov.getData();
-        int k = c.length;
-        double[][] corr = new double[k][k];
-        for (int i = 0; i < k; i++) {
-            for (int j = 0; j < k; j++) {
-                corr[i][j] = c[i][j] / Math.sqrt(c[i][i] * c[j][j]);
-            }
-        }
+        double[][] corr = FitStatistics.correlation(c);
         List<VelocityEstimate> est = layout.estimates(p, c, data.instruments());
         checkSigns(data, p, Math.sqrt(c[0][0]), Math.sqrt(c[1][1]));
         if (reduced < 1 && !estimated && settings.fitJitter() && p.jitter1Kms() == 0 && p.jitter2Kms() == 0) {

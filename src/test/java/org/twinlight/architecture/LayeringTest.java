@@ -17,7 +17,8 @@ import org.junit.jupiter.api.Test;
 class LayeringTest {
     private static final String[] CORE = {"org.twinlight.photometry..", "org.twinlight.time..", "org.twinlight.orbit..",
         "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..",
-        "org.twinlight.velocity..", "org.twinlight.sky..", "org.twinlight.planning.."};
+        "org.twinlight.velocity..", "org.twinlight.sky..", "org.twinlight.planning..",
+        "org.twinlight.statistics.."};
 
     private static JavaClasses classes;
 
@@ -78,6 +79,17 @@ class LayeringTest {
     void reportDoesNotUseCommandLine() {
         noClasses().that().resideInAPackage("org.twinlight.report..")
                 .should().dependOnClassesThat().resideInAnyPackage("picocli..", "org.twinlight.cli..")
+                .check(classes);
+    }
+
+    @Test
+    void statisticsDependsOnNoOtherTwinlightPackage() {
+        // the covariance and error-scaling rule shared by the light-curve, O−C and velocity fits
+        noClasses().that().resideInAPackage("org.twinlight.statistics..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.time..",
+                        "org.twinlight.orbit..", "org.twinlight.eclipse..", "org.twinlight.fit..",
+                        "org.twinlight.timing..", "org.twinlight.dimensions..", "org.twinlight.velocity..",
+                        "org.twinlight.sky..", "org.twinlight.planning..", "com.fasterxml.jackson..", "java.nio.file..")
                 .check(classes);
     }
 

@@ -14,6 +14,7 @@ import java.util.Map;
 import java.util.Set;
 import org.twinlight.BadInputException;
 import org.twinlight.WorkFailedException;
+import org.twinlight.statistics.FitStatistics;
 
 /**
  * O−C diagram and ephemeris fits. The O−C are taken against a reference ephemeris (given, or a
@@ -268,11 +269,12 @@ public final class OcAnalysis {
     }
 
     static double errorScale(double chi2, int n, int k) {
-        return n > k ? Math.max(1, Math.sqrt(chi2 / (n - k))) : 1;
+        // the project's one rule for stated errors (the minima's own timing errors): max(1, χ²ν)
+        return Math.sqrt(FitStatistics.varianceScale(chi2, n - k, false));
     }
 
     static double bic(double chi2, int k, int n) {
-        return chi2 + k * Math.log(n);
+        return FitStatistics.bic(chi2, k, n);
     }
 
     /** Straight lines through each series around the common mean cycle; null without two cycles of each. */
