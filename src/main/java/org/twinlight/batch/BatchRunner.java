@@ -169,6 +169,9 @@ public final class BatchRunner {
             }
         } catch (ExecutionException e) {
             Throwable c = e.getCause();
+            if (c instanceof Error err) {
+                throw err;
+            }
             throw c instanceof RuntimeException r ? r : new WorkFailedException("the batch stopped: " + c);
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
