@@ -123,7 +123,7 @@ public final class BatchIndex {
                 .append(".status{font-weight:bold;white-space:nowrap}\n")
                 .append(".ok{color:").append(OK_COLOUR).append("}\n.failed{color:").append(FAILED_COLOUR).append("}\n")
                 .append("dl{display:grid;grid-template-columns:max-content auto;gap:.1em .8em;margin:0}\n")
-                .append("dt{font-weight:600}dd{margin:0;font-variant-numeric:tabular-nums}\n")
+                .append("dt{font-weight:600}dd{margin:0;font-variant-numeric:tabular-nums;white-space:nowrap}\n")
                 .append(".message{max-width:40em}\n.caution{max-width:60em;font-size:.9em;color:#444}\n")
                 .append("@media print{th{position:static}img{max-width:30vw}}\n")
                 .append("</style>\n</head>\n<body>\n");

@@ -140,7 +140,8 @@ public final class BatchJournal implements AutoCloseable {
         return entries;
     }
 
-    static String toJson(Entry e) {
+    /** The journal line of an entry (one line of JSON, without the line break). */
+    public static String toJson(Entry e) {
         ObjectNode root = MAPPER.createObjectNode();
         root.put("target", e.id());
         root.put("fingerprint", e.fingerprint());
@@ -175,7 +176,7 @@ public final class BatchJournal implements AutoCloseable {
     }
 
     /** The entry of one line, or null when the line is not a whole entry. */
-    static Entry parse(String line) {
+    public static Entry parse(String line) {
         if (line.isBlank()) {
             return null;
         }

@@ -52,6 +52,9 @@ class CommandFuzzTest extends CommandTestSupport {
         c.add(new String[] {"time", in.toString(), "--from", "JD_UTC", "--to", "JD_TT"});
         c.add(new String[] {"simulate", "--model", model.toString(), "--times", in.toString(), "--out",
             out.resolve("sim.csv").toString()});
+        // given as the batch's folder-or-manifest argument: a damaged file is a bad manifest (a damaged light
+        // curve inside a batch folder fails its own target only: BatchCommandTest)
+        c.add(new String[] {"batch", in.toString(), "--out", out.toString()});
         return c;
     }
 
