@@ -15,6 +15,7 @@ import picocli.CommandLine.Option;
         subcommands = {
             CommandLine.HelpCommand.class,
             SimulateCommand.class,
+            AnalyseCommand.class,
             FitCommand.class,
             BenchCommand.class,
             TimeCommand.class,

@@ -7,8 +7,7 @@ public final class VersionInfo implements CommandLine.IVersionProvider {
 
     /** The software version, from the jar manifest, or "development" when run from classes. */
     public static String version() {
-        String v = VersionInfo.class.getPackage().getImplementationVersion();
-        return v == null ? "development" : v;
+        return org.twinlight.report.SoftwareVersion.version();
     }
 
     @Override

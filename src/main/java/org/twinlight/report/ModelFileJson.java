@@ -188,7 +188,8 @@ public final class ModelFileJson {
         return v.intValue();
     }
 
-    private static LimbDarkening limbDarkening(JsonNode node, Path file, String key) {
+    /** A limb-darkening entry {"law", "coefficients"} of a JSON file; bad entries name the file and key. */
+    public static LimbDarkening limbDarkening(JsonNode node, Path file, String key) {
         String where = "key '" + key + "'";
         if (!node.isObject() || !node.has("law")) {
             throw BadInputException.at(file, where, null,

@@ -12,16 +12,20 @@ import org.knowm.xchart.XYChart;
 import org.knowm.xchart.internal.chartpart.Chart;
 import org.knowm.xchart.style.Styler;
 
-/** The house style of twinlight's plots and the atomic PNG writer they share. */
+/**
+ * The house style of twinlight's plots and the atomic PNG writer they share. The series colours are
+ * those of the colour-blind-safe palette of Okabe &amp; Ito (2008), "Color Universal Design (CUD):
+ * How to make figures and presentations that are friendly to colorblind people".
+ */
 public final class PlotFiles {
     /** Data points. */
     public static final Color DATA = new Color(0x44, 0x55, 0x66, 110);
-    /** Model curves and fitted lines. */
-    public static final Color MODEL = new Color(0xC0, 0x39, 0x2B);
-    /** Secondary series: secondary eclipses, runners-up. */
-    public static final Color SECOND = new Color(0x1F, 0x77, 0xB4);
-    /** Third series. */
-    public static final Color THIRD = new Color(0x2C, 0xA0, 0x2C);
+    /** Model curves and fitted lines: Okabe &amp; Ito's vermillion. */
+    public static final Color MODEL = new Color(0xD5, 0x5E, 0x00);
+    /** Secondary series (secondary eclipses, runners-up): Okabe &amp; Ito's blue. */
+    public static final Color SECOND = new Color(0x00, 0x72, 0xB2);
+    /** Third series: Okabe &amp; Ito's bluish green. */
+    public static final Color THIRD = new Color(0x00, 0x9E, 0x73);
 
     private PlotFiles() {
     }

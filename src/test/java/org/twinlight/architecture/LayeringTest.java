@@ -34,7 +34,22 @@ class LayeringTest {
     void coreDoesNotUseCommandLineOrPlots() {
         noClasses().that().resideInAnyPackage(CORE)
                 .should().dependOnClassesThat().resideInAnyPackage("picocli..", "org.knowm.xchart..", "java.awt..",
-                        "javax.imageio..", "org.twinlight.cli..", "org.twinlight.report..")
+                        "javax.imageio..", "org.twinlight.cli..", "org.twinlight.report..", "org.twinlight.analysis..")
+                .check(classes);
+    }
+
+    @Test
+    void analysisIsAnOuterLayerBelowTheCommandLine() {
+        // analysis wires the library and report together; the command line calls it, never the reverse
+        noClasses().that().resideInAPackage("org.twinlight.analysis..")
+                .should().dependOnClassesThat().resideInAnyPackage("picocli..", "org.twinlight.cli..")
+                .check(classes);
+        noClasses().that().resideInAPackage("org.twinlight.report..")
+                .should().dependOnClassesThat().resideInAPackage("org.twinlight.analysis..")
+                .check(classes);
+        noClasses().that().resideInAPackage("org.twinlight.analysis..")
+                .should().accessField(System.class, "out").orShould().accessField(System.class, "err")
+                .orShould().callMethod(System.class, "exit", int.class)
                 .check(classes);
     }
 

@@ -50,6 +50,7 @@ class CommandFuzzTest extends CommandTestSupport {
             out.toString()});
         c.add(new String[] {"fit", in.toString(), "--model", model.toString(), "--out", out.toString()});
         c.add(new String[] {"time", in.toString(), "--from", "JD_UTC", "--to", "JD_TT"});
+        c.add(new String[] {"analyse", in.toString(), "--out", out.toString()});
         c.add(new String[] {"simulate", "--model", model.toString(), "--times", in.toString(), "--out",
             out.resolve("sim.csv").toString()});
         // given as the batch's folder-or-manifest argument: a damaged file is a bad manifest (a damaged light

@@ -1,0 +1,236 @@
+package org.twinlight.analysis;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Locale;
+import java.util.Set;
+import java.util.function.Consumer;
+import org.twinlight.WorkFailedException;
+import org.twinlight.eclipse.BinaryParameters;
+import org.twinlight.eclipse.ModelFile;
+import org.twinlight.fit.EclipseFitter;
+import org.twinlight.fit.FitData;
+import org.twinlight.fit.FitResult;
+import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.StartingValues;
+import org.twinlight.photometry.LightCurve;
+
+/**
+ * The least-squares fit from several well-spread starting points: each start is run a few
+ * Levenberg–Marquardt iterations on a thinned copy of the data (every point in eclipse, a sample of
+ * the rest), the lowest χ² wins and is refined on all the data with the requested settings.
+ *
+ * <p>This is the one place where the search for the global minimum lives: a global optimiser
+ * replaces {@link #fit} without touching the rest of the analysis.
+ */
+final class MultiStartFit {
+    /** Points of the thinned copy the starts are compared on, at most (out of eclipse thinned first). */
+    static final int TRIAL_POINTS = 2000;
+    /** Iterations of each trial. */
+    static final int TRIAL_ITERATIONS = 15;
+    /** A second minimum within this Δχ² of the best (on the thinned data) is reported as a rival. */
+    static final double RIVAL_DELTA_CHI2 = 10;
+
+    private MultiStartFit() {
+    }
+
+    /**
+     * One starting point.
+     *
+     * @param label what it is, in words
+     * @param model the starting model
+     */
+    record Start(String label, ModelFile model) {
+    }
+
+    /**
+     * Where a start ended on the thinned data.
+     *
+     * @param start the start
+     * @param chi2 χ² reached (infinite when it failed)
+     * @param end the model reached (null when it failed)
+     * @param failure why it failed (null when it did not)
+     */
+    record Trial(Start start, double chi2, ModelFile end, String failure) {
+    }
+
+    /**
+     * The fit and how it was found.
+     *
+     * @param result the fit on all the data
+     * @param trials every start and where it ended, in the order tried
+     * @param thinnedPoints points of the thinned copy
+     * @param notes remarks (rival minima)
+     */
+    record Outcome(FitResult result, List<Trial> trials, int thinnedPoints, List<String> notes) {
+    }
+
+    /**
+     * The well-spread starts around the estimate from the data: the estimate itself; the radius
+     * ratio inverted (partial eclipses hardly tell k from 1/k); grazing, intermediate and central
+     * impact parameters; and a circular orbit. The first {@code n} of these.
+     */
+    static List<Start> starts(ModelFile base, Map<String, StartingValues> estimates, Set<String> free, int n) {
+        List<Start> list = new ArrayList<>();
+        list.add(new Start("estimate from the eclipses", StartingValues.apply(base, estimates, free)));
+        StartingValues g = estimates.values().iterator().next();
+        double k = g.radiusRatio();
+        double sum = g.sumOfRadii();
+        double[][] variants = {{1 / k, Double.NaN}, {k, 0.1}, {k, 0.5}, {k, 0.8}, {1 / k, 0.5}, {1 / k, 0.1},
+            {k, 0.95}, {1 / k, 0.8}};
+        for (double[] v : variants) {
+            double incl = Double.isNaN(v[1]) ? g.inclinationDeg() : Math.toDegrees(Math.acos(v[1] * sum));
+            StartingValues s = new StartingValues(g.secondaryPhase(), g.secondarySeen(), g.primaryDepth(),
+                    g.secondaryDepth(), g.primaryWidth(), g.secondaryWidth(), g.flatBottomed(), g.eCosOmega(),
+                    g.eSinOmega(), sum, v[0], incl, g.surfaceBrightnessRatio());
+            String label = String.format(Locale.ROOT, "k = %.3f, %s", v[0], Double.isNaN(v[1])
+                    ? "i from the eclipse shape" : String.format(Locale.ROOT, "cos i = %.2f (r₁ + r₂)", v[1]));
+            add(list, label, base, estimates, s, free);
+        }
+        if (Math.hypot(g.eCosOmega(), g.eSinOmega()) > 0) {
+            StartingValues c = new StartingValues(0.5, g.secondarySeen(), g.primaryDepth(), g.secondaryDepth(),
+                    g.primaryWidth(), g.secondaryWidth(), g.flatBottomed(), 0, 0, sum, k, g.inclinationDeg(),
+                    g.surfaceBrightnessRatio());
+            add(list, "circular orbit", base, estimates, c, free);
+            Start circular = list.remove(list.size() - 1);
+            list.add(Math.min(list.size(), 3), circular);
+        }
+        return List.copyOf(list.subList(0, Math.min(n, list.size())));
+    }
+
+    /** Adds a start whose geometry (the first band's estimate) is {@code s}. */
+    private static void add(List<Start> list, String label, ModelFile base, Map<String, StartingValues> estimates,
+            StartingValues s, Set<String> free) {
+        Map<String, StartingValues> varied = new LinkedHashMap<>(estimates);
+        varied.put(estimates.keySet().iterator().next(), s);
+        try {
+            list.add(new Start(label, StartingValues.apply(base, varied, free)));
+        } catch (IllegalArgumentException impossible) {
+            // a variant outside the physical range (spheres touching) is no start
+        }
+    }
+
+    /**
+     * Runs every start on the thinned data, then the best on all data.
+     *
+     * @throws WorkFailedException when no start converges, with each start's reason
+     */
+    static Outcome fit(List<Start> starts, List<FitData> data, FitSettings settings, double eclipseHalfWidthPhase,
+            Consumer<String> sink) {
+        List<FitData> thinned = new ArrayList<>();
+        int total = data.stream().mapToInt(d -> d.lightCurve().size()).sum();
+        BinaryParameters ephemeris = starts.get(0).model().common();
+        for (FitData d : data) {
+            int share = (int) Math.max(200, (long) TRIAL_POINTS * d.lightCurve().size() / Math.max(1, total));
+            thinned.add(new FitData(thin(d.lightCurve(), ephemeris, eclipseHalfWidthPhase, share), d.band()));
+        }
+        int thinnedPoints = thinned.stream().mapToInt(d -> d.lightCurve().size()).sum();
+        FitSettings trialSettings = settings.withClipSigma(Double.NaN).withMaxIterations(TRIAL_ITERATIONS);
+        List<Trial> trials = new ArrayList<>();
+        Trial best = null;
+        for (Start s : starts) {
+            Trial t;
+            try {
+                FitResult r = EclipseFitter.fit(s.model(), thinned, trialSettings);
+                t = new Trial(s, r.chi2(), r.model(), null);
+            } catch (WorkFailedException | IllegalArgumentException e) {
+                t = new Trial(s, Double.POSITIVE_INFINITY, null, firstSentence(e.getMessage()));
+            }
+            trials.add(t);
+            sink.accept(String.format(Locale.ROOT, "  start %d/%d (%s): %s", trials.size(), starts.size(),
+                    s.label(), t.end() == null ? "failed: " + t.failure() : String.format(Locale.ROOT, "χ² %.1f", t.chi2())));
+            if (t.end() != null && (best == null || t.chi2() < best.chi2())) {
+                best = t;
+            }
+        }
+        if (best == null) {
+            StringBuilder why = new StringBuilder("the fit did not converge from any of " + starts.size() + " starts");
+            for (Trial t : trials) {
+                why.append("; ").append(t.start().label()).append(": ").append(t.failure());
+            }
+            throw new WorkFailedException(why + ". Give a starting model (--model) or fix the period and epoch");
+        }
+        FitResult result = EclipseFitter.fit(best.end(), data, settings);
+        return new Outcome(result, trials, thinnedPoints, rivals(trials, best));
+    }
+
+    /** The first sentence of a message (the solver's messages go on with its coordinates). */
+    static String firstSentence(String message) {
+        if (message == null) {
+            return "no reason given";
+        }
+        int end = message.indexOf(". ");
+        return end > 0 ? message.substring(0, end) : message;
+    }
+
+    /** Notes on minima other than the best that fit the thinned data nearly as well with another geometry. */
+    private static List<String> rivals(List<Trial> trials, Trial best) {
+        List<String> notes = new ArrayList<>();
+        BinaryParameters b = best.end().common();
+        for (Trial t : trials) {
+            if (t == best || t.end() == null || t.chi2() - best.chi2() > RIVAL_DELTA_CHI2) {
+                continue;
+            }
+            BinaryParameters o = t.end().common();
+            boolean otherRatio = Math.abs(Math.log(o.radiusRatio() / b.radiusRatio())) > 0.1;
+            boolean otherInclination = Math.abs(o.inclinationDeg() - b.inclinationDeg()) > 1;
+            if (otherRatio || otherInclination) {
+                notes.add(String.format(Locale.ROOT, "a second solution fits nearly as well (Δχ² = %.1f on the "
+                        + "thinned data): k = %.3f, i = %.2f° against k = %.3f, i = %.2f°; the data hardly tell them "
+                        + "apart: a spectroscopic light ratio or a total eclipse would settle it", t.chi2()
+                        - best.chi2(), o.radiusRatio(), o.inclinationDeg(), b.radiusRatio(), b.inclinationDeg()));
+                break;
+            }
+        }
+        return notes;
+    }
+
+    /**
+     * Every point within 1.5 eclipse half-widths of either eclipse, and every k-th point of the rest,
+     * about {@code target} points in all (the light curve unchanged when it has no more).
+     */
+    static LightCurve thin(LightCurve lc, BinaryParameters p, double halfWidthPhase, int target) {
+        int n = lc.size();
+        if (n <= target) {
+            return lc;
+        }
+        double secondary = p.orbit().secondaryPhase();
+        double reach = 1.5 * halfWidthPhase;
+        boolean[] inEclipse = new boolean[n];
+        int eclipsed = 0;
+        for (int i = 0; i < n; i++) {
+            double ph = (lc.time(i) - p.epochDays()) / p.periodDays();
+            ph -= Math.floor(ph);
+            double d1 = Math.min(ph, 1 - ph);
+            double d2 = Math.abs(ph - secondary);
+            d2 = Math.min(d2, 1 - d2);
+            inEclipse[i] = d1 <= reach || d2 <= reach;
+            eclipsed += inEclipse[i] ? 1 : 0;
+        }
+        int rest = Math.max(1, target - Math.min(eclipsed, target / 2));
+        int stride = Math.max(1, (n - eclipsed) / rest);
+        int strideIn = Math.max(1, eclipsed / Math.max(1, target / 2));
+        List<Integer> keep = new ArrayList<>();
+        int countOut = 0;
+        int countIn = 0;
+        for (int i = 0; i < n; i++) {
+            if (inEclipse[i] ? countIn++ % strideIn == 0 : countOut++ % stride == 0) {
+                keep.add(i);
+            }
+        }
+        double[] t = new double[keep.size()];
+        double[] f = new double[keep.size()];
+        double[] e = lc.hasErrors() ? new double[keep.size()] : null;
+        for (int j = 0; j < keep.size(); j++) {
+            int i = keep.get(j);
+            t[j] = lc.time(i);
+            f[j] = lc.flux(i);
+            if (e != null) {
+                e[j] = lc.fluxError(i);
+            }
+        }
+        return new LightCurve(lc.source(), lc.band(), lc.timeScale(), lc.originalKind(), t, f, e, lc.rejectedRows());
+    }
+}
