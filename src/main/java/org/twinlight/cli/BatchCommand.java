@@ -5,14 +5,16 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import java.util.concurrent.atomic.AtomicBoolean;
 import org.twinlight.BadInputException;
+import org.twinlight.analysis.AnalysisSettings;
 import org.twinlight.batch.BatchIndex;
 import org.twinlight.batch.BatchJournal;
 import org.twinlight.batch.BatchRunner;
 import org.twinlight.batch.BatchTarget;
-import org.twinlight.batch.CommandPipeline;
+import org.twinlight.batch.AnalysisUnit;
 import org.twinlight.batch.Manifest;
 import org.twinlight.batch.ProgressBar;
 import org.twinlight.batch.TargetDiscovery;
@@ -26,11 +28,11 @@ import picocli.CommandLine.Spec;
 /** {@code batch (DIR | MANIFEST.csv) --out DIR}: the analysis of many targets, resumable. */
 @Command(name = "batch", mixinStandardHelpOptions = true, versionProvider = VersionInfo.class, sortOptions = false,
         description = {
-            "Analyse many targets on all cores: period search, times of minimum and ephemeris, and the model fit "
-                    + "started from values estimated from the data, each target into its own folder DIR/TARGET.",
+            "Run analyse on many targets on all cores, each target into its own folder DIR/TARGET (report.html, "
+                    + "results.json and the files of each stage).",
             "Targets: every light curve in a folder (one target per file), or the rows of a manifest CSV with the "
-                    + "columns file (several separated by ;), label, period, model, settings, velocities; paths "
-                    + "relative to the manifest.",
+                    + "columns file (several separated by ;), label, period, model, settings (an analyse settings "
+                    + "file), velocities; paths relative to the manifest.",
             "A failing target is recorded with its exit code and message and the batch goes on. An interrupted "
                     + "batch (Ctrl-C, kill) run again with the same --out resumes: finished targets are kept, a "
                     + "half-done one is redone from scratch. Writes summary.csv and index.html to --out.",
@@ -81,7 +83,8 @@ public final class BatchCommand implements Callable<Integer> {
             throw new BadInputException("option --threads: expected 1 to " + MAX_THREADS + " (this machine has "
                     + cores + " cores), got " + n);
         }
-        UnitOfWork unit = new CommandPipeline(photometry.toReadOptions(), VersionInfo.version());
+        photometry.toReadOptions();
+        UnitOfWork unit = new AnalysisUnit(baseSettings());
         List<BatchTarget> targets = targets();
 
         PrintWriter o = spec.commandLine().getOut();
@@ -119,6 +122,17 @@ public final class BatchCommand implements Callable<Integer> {
             return 1;
         }
         return 0;
+    }
+
+    /** The analysis defaults with the photometry options of the batch (keys of the settings file). */
+    private AnalysisSettings baseSettings() {
+        AnalysisSettings s = AnalysisSettings.defaults();
+        for (Map.Entry<String, Object> e : photometry.settingsEntries().entrySet()) {
+            if (e.getValue() != null) {
+                s = s.with(e.getKey(), e.getValue());
+            }
+        }
+        return s;
     }
 
     /** The targets of the folder or manifest given. */

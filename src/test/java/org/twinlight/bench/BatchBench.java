@@ -7,14 +7,15 @@ import java.util.List;
 import java.util.Locale;
 import org.twinlight.batch.BatchRunner;
 import org.twinlight.batch.BatchTarget;
-import org.twinlight.batch.CommandPipeline;
+import org.twinlight.analysis.AnalysisSettings;
+import org.twinlight.batch.AnalysisUnit;
 import org.twinlight.batch.SyntheticTargets;
 import org.twinlight.batch.TargetDiscovery;
-import org.twinlight.photometry.ReadOptions;
 
 /**
  * Throughput of {@code batch}: N small synthetic targets (default 200; 10 days at a 10-minute
- * cadence, 1,441 points, 1500 ppm noise, periods 0.9 to 2.3 d) through the batch's unit of work,
+ * cadence, 1,441 points, 1500 ppm noise, periods 0.9 to 2.3 d) through the batch's unit of work (the
+ * one-command analysis),
  * once on 1 thread and once on 2. Prints targets per core-hour (from the process's CPU time) and
  * the speed-up in wall time from 1 to 2 threads. Run with
  * {@code java -cp $CP org.twinlight.bench.BatchBench [N] [DAYS] [CADENCE_MINUTES]}.
@@ -55,7 +56,7 @@ public final class BatchBench {
         var os = (com.sun.management.OperatingSystemMXBean) ManagementFactory.getOperatingSystemMXBean();
         long cpu0 = os.getProcessCpuTime();
         long t0 = System.nanoTime();
-        BatchRunner.Outcome o = new BatchRunner(new CommandPipeline(ReadOptions.defaults(), "bench"), threads, false)
+        BatchRunner.Outcome o = new BatchRunner(new AnalysisUnit(AnalysisSettings.defaults()), threads, false)
                 .run(targets, out, BatchRunner.Progress.NONE);
         return new double[] {(System.nanoTime() - t0) * 1e-9, (os.getProcessCpuTime() - cpu0) * 1e-9, o.failed()};
     }

@@ -110,7 +110,7 @@ class BatchCommandTest extends CommandTestSupport {
                 .containsExactly("broken.csv failed 2", "good.csv ok 0");
         assertThat(rows.get(0).get("message")).contains("broken.csv");
         assertThat(Files.readString(in.resolve("broken.csv"))).isEqualTo("time,flux\n2460100.1,1.0\n2460100.2,abc\n");
-        assertThat(Files.readString(out.resolve("index.html"))).contains("good/index-thumbnail.png");
+        assertThat(Files.readString(out.resolve("index.html"))).contains("src=\"good/");
     }
 
     @Test
