@@ -4,7 +4,8 @@
  * that makes an interrupted batch resumable, and the batch's summary ({@code summary.csv},
  * {@code index.html}).
  *
- * <p>An outer layer beside {@code report}: it uses the library core and {@code report}, never
+ * <p>An outer layer beside {@code report}: it uses the library core, {@code report} and {@code analysis}
+ * (whose {@code TargetAnalysis.run} is the unit of work of the batch command), never
  * {@code cli}. The unit of work ({@link org.twinlight.batch.UnitOfWork}) takes one
  * {@link org.twinlight.batch.BatchTarget} (everything it needs, including its own output folder)
  * and returns a {@link org.twinlight.batch.TargetResult}; it shares no mutable state with other
