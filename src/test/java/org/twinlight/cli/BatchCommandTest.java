@@ -60,9 +60,12 @@ class BatchCommandTest extends CommandTestSupport {
         Map<String, FileTime> times = new HashMap<>();
         Map<String, byte[]> fits = new HashMap<>();
         for (String id : before.keySet()) {
-            times.put(id, Files.getLastModifiedTime(out.resolve(id).resolve("fit.json")));
-            fits.put(id, Files.readAllBytes(out.resolve(id).resolve("fit.json")));
+            for (String f : before.get(id).result().files()) {
+                times.put(id + "/" + f, Files.getLastModifiedTime(out.resolve(id).resolve(f)));
+                fits.put(id + "/" + f, Files.readAllBytes(out.resolve(id).resolve(f)));
+            }
         }
+        assertThat(times).isNotEmpty();
 
         int code = console.run("batch", in.toString(), "--out", out.toString(), "--threads", "2");
 
@@ -70,9 +73,9 @@ class BatchCommandTest extends CommandTestSupport {
         assertThat(out.toString()).isNotEmpty();
         assertThat(this.out.toString()).contains(n + " targets, " + n + " ok, 0 failed",
                 "kept from an earlier run");
-        for (String id : before.keySet()) {
-            assertThat(Files.getLastModifiedTime(out.resolve(id).resolve("fit.json"))).as(id).isEqualTo(times.get(id));
-            assertThat(Files.readAllBytes(out.resolve(id).resolve("fit.json"))).as(id).isEqualTo(fits.get(id));
+        for (String f : times.keySet()) {
+            assertThat(Files.getLastModifiedTime(out.resolve(f))).as(f).isEqualTo(times.get(f));
+            assertThat(Files.readAllBytes(out.resolve(f))).as(f).isEqualTo(fits.get(f));
         }
         List<CSVRecord> rows = summary(out);
         assertThat(rows).hasSize(n);
