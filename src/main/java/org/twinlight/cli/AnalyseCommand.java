@@ -145,15 +145,7 @@ public final class AnalyseCommand implements Callable<Integer> {
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("label", label);
         m.put("bands", bands);
-        m.put("timeScale", photometry.timeScale);
-        m.put("timeOffset", photometry.timeOffsetDays);
-        m.put("timeColumn", photometry.timeColumn);
-        m.put("valueColumn", photometry.valueColumn);
-        m.put("errorColumn", photometry.errorColumn);
-        m.put("bandColumn", photometry.bandColumn);
-        m.put("qualityColumn", photometry.qualityColumn);
-        m.put("values", photometry.values);
-        m.put("hdu", photometry.hdu);
+        m.putAll(photometry.settingsEntries());
         m.put("period", period);
         m.put("epoch", epoch);
         m.put("minPeriod", minPeriod);

@@ -36,6 +36,21 @@ public final class PhotometryOptions {
     @Option(names = "--hdu", paramLabel = "N", description = "FITS HDU holding the table (0 = primary; default: the first binary table).")
     Integer hdu;
 
+    /** The options by their key in the analysis settings file (null where not given). */
+    java.util.Map<String, Object> settingsEntries() {
+        java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
+        m.put("timeScale", timeScale);
+        m.put("timeOffset", timeOffsetDays);
+        m.put("timeColumn", timeColumn);
+        m.put("valueColumn", valueColumn);
+        m.put("errorColumn", errorColumn);
+        m.put("bandColumn", bandColumn);
+        m.put("qualityColumn", qualityColumn);
+        m.put("values", values);
+        m.put("hdu", hdu);
+        return m;
+    }
+
     /** The options as the library's {@link ReadOptions}; bad values are a {@link BadInputException}. */
     public ReadOptions toReadOptions() {
         ValueKind kind = null;

@@ -25,6 +25,7 @@ import picocli.CommandLine.Option;
             VelocitiesCommand.class,
             DimensionsCommand.class,
             PredictCommand.class,
+            BatchCommand.class,
         })
 public final class TwinlightCommand implements Runnable {
 

@@ -12,7 +12,8 @@ import org.junit.jupiter.api.Test;
 /**
  * The layering of STYLE/DEVELOPERS.md held by test: the library core (photometry, time, orbit,
  * eclipse, fit, timing, dimensions, velocity, sky, planning) knows nothing of the command line, plots or the report layer;
- * arrows point inwards only; no package cycles.
+ * the batch layer sits beside the command line (it may use report, not cli); arrows point inwards only; no package
+ * cycles.
  */
 class LayeringTest {
     private static final String[] CORE = {"org.twinlight.photometry..", "org.twinlight.time..", "org.twinlight.orbit..",
@@ -90,6 +91,17 @@ class LayeringTest {
                         "org.twinlight.orbit..", "org.twinlight.eclipse..", "org.twinlight.fit..",
                         "org.twinlight.timing..", "org.twinlight.dimensions..", "org.twinlight.velocity..",
                         "org.twinlight.sky..", "org.twinlight.planning..", "com.fasterxml.jackson..", "java.nio.file..")
+                .check(classes);
+    }
+
+    @Test
+    void batchDoesNotUseCommandLine() {
+        // the batch's unit of work runs unchanged on a cluster engine: no picocli, no terminal options
+        noClasses().that().resideInAPackage("org.twinlight.batch..")
+                .should().dependOnClassesThat().resideInAnyPackage("picocli..", "org.twinlight.cli..")
+                .check(classes);
+        noClasses().that().resideInAnyPackage(CORE).or().resideInAPackage("org.twinlight.report..")
+                .should().dependOnClassesThat().resideInAPackage("org.twinlight.batch..")
                 .check(classes);
     }
 

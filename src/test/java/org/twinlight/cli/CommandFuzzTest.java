@@ -69,6 +69,9 @@ class CommandFuzzTest extends CommandTestSupport {
         c.add(new String[] {"velocities", in.toString(), "--model", fit.toString(), "--out", out.toString()});
         c.add(new String[] {"dimensions", "--fit", fit.toString(), "--velocities", in.toString(), "--out",
             out.toString()});
+        // given as the batch's folder-or-manifest argument: a damaged file is a bad manifest (a damaged light
+        // curve inside a batch folder fails its own target only: BatchCommandTest)
+        c.add(new String[] {"batch", in.toString(), "--out", out.toString()});
         return c;
     }
 
