@@ -12,8 +12,11 @@ import org.twinlight.eclipse.ModelFile;
 import org.twinlight.fit.Baseline;
 import org.twinlight.fit.EclipseFitter;
 import org.twinlight.fit.FitData;
+import org.twinlight.fit.FitProblem;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.NoiseDiagnostics;
+import org.twinlight.fit.NoiseReport;
 import org.twinlight.fit.StartingValues;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.report.FitFiles;
@@ -81,6 +84,13 @@ public final class FitCommand implements Callable<Integer> {
                     + "refitting until none change (at least 3; default: ${DEFAULT-VALUE}); none keeps every point. "
                     + "The input is never changed; fit.json counts what was left out.")
     String clip;
+
+    @Option(names = "--inflate-errors", paramLabel = "beta|none", defaultValue = "none",
+            description = "beta: multiply the errors by max(1, beta), the time-averaging factor of the residuals "
+                    + "(correlated noise), before the final uncertainties are formed; none: leave them "
+                    + "(default: ${DEFAULT-VALUE}). Either way fit.json's noise block gives beta, the "
+                    + "residual-permutation spread and the error to quote.")
+    String inflateErrors;
 
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
@@ -169,12 +179,20 @@ public final class FitCommand implements Callable<Integer> {
             EpochChecks.near(start.common().epochDays(), start.common().periodDays(),
                     data.get(i).lightCurve().timesDays(), files.get(i).toString(), model + ": key 'epoch'");
         }
-        FitResult r = EclipseFitter.fit(start, data, settings);
+        boolean inflate = inflateErrors(inflateErrors);
+        FitProblem problem = FitProblem.of(start, data, settings);
+        FitResult r = EclipseFitter.optimize(problem);
+        NoiseReport noise = NoiseDiagnostics.of(problem, r);
+        if (inflate) {
+            r = NoiseDiagnostics.inflate(r, noise.inflation());
+            noise = noise.withInflationApplied();
+        }
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
                 VersionInfo.version());
         com.fasterxml.jackson.databind.node.ArrayNode notes = (com.fasterxml.jackson.databind.node.ArrayNode) doc.get("notes");
         startNotes.forEach(notes::add);
+        FitFiles.putNoise(doc, noise, r);
         for (FitData d : data) {
             d.lightCurve().notes().forEach(n -> notes.add(d.lightCurve().source() + ": " + n));
         }
@@ -192,9 +210,23 @@ public final class FitCommand implements Callable<Integer> {
             set.commit();
         }
         console().print(FitFiles.summary(r, scale));
+        console().print(FitFiles.noiseSummary(noise, r));
+        noise.notes(r).forEach(n -> console().println("note: " + n));
         console().println("caution: " + FitFiles.CAUTION);
         console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
         return 0;
+    }
+
+    /** Parses --inflate-errors: beta (true) or none (false). */
+    static boolean inflateErrors(String text) {
+        String t = text.trim();
+        if (t.equalsIgnoreCase("beta")) {
+            return true;
+        }
+        if (t.equalsIgnoreCase("none")) {
+            return false;
+        }
+        throw new BadInputException("option --inflate-errors: expected beta or none, got '" + text + "'");
     }
 
     /** Parses --clip: a number of standard deviations (≥ 3) or none. */

@@ -11,6 +11,12 @@ package org.twinlight.photometry;
  * β = σ_N / (σ₁/√M · √(N/(N−1))) written for bins of unequal occupancy (gaps, clipped points),
  * each bin weighted by its number of points.
  *
+ * <p>The N − 1 counts the one mean the residuals were made to have. Residuals of a fit with a
+ * baseline fitted per night (segment) had S such means (or polynomials) taken out, which forces
+ * the bin means of each night to cancel in part: then the sum has N − S degrees of freedom, and
+ * dividing by N − 1 would understate β badly when a night holds only a few bins (11 nights of two
+ * 4-hour bins would give β² about half its value).
+ *
  * <p>Shared by the errors of times of minimum and the noise diagnostics of the light-curve fit.
  */
 public final class TimeAveragingBeta {
@@ -31,6 +37,20 @@ public final class TimeAveragingBeta {
      * @return β_w, NaN when fewer than {@link #MIN_BINS} bins result or the residuals are all zero
      */
     public static double atWidth(double[] timesDays, double[] z, double widthDays) {
+        return atWidth(timesDays, z, widthDays, 1);
+    }
+
+    /**
+     * β_w of residuals from which {@code removed} fitted means (baseline coefficients) were taken.
+     *
+     * @param removed number of fitted baseline coefficients (at least 1)
+     * @return β_w, NaN when fewer than {@link #MIN_BINS} + removed − 1 bins result or the residuals
+     *     are all zero
+     */
+    public static double atWidth(double[] timesDays, double[] z, double widthDays, int removed) {
+        if (removed < 1) {
+            throw new IllegalArgumentException("at least one mean is removed, got " + removed);
+        }
         int n = timesDays.length;
         double ss = 0;
         for (double v : z) {
@@ -55,6 +75,6 @@ public final class TimeAveragingBeta {
             total += s * s / m;
             bins++;
         }
-        return bins >= MIN_BINS ? Math.sqrt(total / (sigma2 * (bins - 1))) : Double.NaN;
+        return bins - removed + 1 >= MIN_BINS ? Math.sqrt(total / (sigma2 * (bins - removed))) : Double.NaN;
     }
 }

@@ -52,6 +52,36 @@ class TimeAveragingBetaTest {
                 org.assertj.core.data.Percentage.withPercentage(3));
     }
 
+    /**
+     * White noise in 200 nights of 40 points, each night's mean taken out (a fitted offset per
+     * night), bins of 20 points (two per night): the bin means of a night cancel in pairs, so
+     * Σ M·m² has 400 − 200 degrees of freedom, and β = 1 only when the 200 removed means are
+     * counted; dividing by N − 1 = 399 gives β ≈ √(200/399) = 0.71 (expectation of a sum of
+     * squares of residuals after fitting means; e.g. any regression text, n − p degrees of freedom).
+     */
+    @Test
+    void meansRemovedPerNightAreCounted() {
+        Random random = new Random(3);
+        int nights = 200;
+        int per = 40;
+        double[] t = new double[nights * per];
+        double[] z = new double[t.length];
+        for (int n = 0; n < nights; n++) {
+            double mean = 0;
+            for (int i = 0; i < per; i++) {
+                t[n * per + i] = n + i * 0.01;
+                z[n * per + i] = random.nextGaussian();
+                mean += z[n * per + i] / per;
+            }
+            for (int i = 0; i < per; i++) {
+                z[n * per + i] -= mean;
+            }
+        }
+        // 200 degrees of freedom: β² to ±10 % (1σ), β within ±12 % is about 2.4σ
+        assertThat(TimeAveragingBeta.atWidth(t, z, 0.2 - 1e-9, nights)).isBetween(0.88, 1.12);
+        assertThat(TimeAveragingBeta.atWidth(t, z, 0.2 - 1e-9)).isBetween(0.6, 0.82);
+    }
+
     @Test
     void tooFewBinsGiveNaN() {
         double[] z = {1, -1, 1, -1, 1, -1, 1, -1};
