@@ -37,6 +37,12 @@ public record NoiseReport(double beta, Map<Double, Double> betaByBinMinutes, dou
     /** How β is adopted from the widths, as written in fit.json. */
     public static final String BETA_RULE = "largest beta over the bin widths";
 
+    /**
+     * A permutation spread is reported as exceeding the covariance error when larger by this
+     * factor: from 40 shifts the spread itself is uncertain by 10–20 % (common practice, no source).
+     */
+    public static final double PERMUTATION_NOTE_RATIO = 1.2;
+
     /** The quoting rule as written in fit.json and on the terminal. */
     public static final String QUOTE_RULE = "quote the larger of the covariance error times max(1, beta) and the "
             + "residual-permutation spread";
@@ -66,7 +72,7 @@ public record NoiseReport(double beta, Map<Double, Double> betaByBinMinutes, dou
         return Double.isFinite(perm) ? Math.max(scaled, perm) : scaled;
     }
 
-    /** Remarks for the user: β above {@value #BETA_NOTE_LEVEL}, permutation spreads above the covariance errors. */
+    /** Remarks for the user: β above {@value #BETA_NOTE_LEVEL}, permutation spreads well above the covariance errors. */
     public List<String> notes(FitResult r) {
         List<String> notes = new ArrayList<>();
         if (beta > BETA_NOTE_LEVEL) {
@@ -80,13 +86,13 @@ public record NoiseReport(double beta, Map<Double, Double> betaByBinMinutes, dou
         for (Estimate e : r.parameters()) {
             String label = e.band() == null || !multiBand ? e.name() : e.name() + "@" + e.band();
             Double perm = permutationSigma.get(label);
-            if (e.free() && !e.isLimit() && perm != null && perm > e.uncertainty()) {
+            if (e.free() && !e.isLimit() && perm != null && perm > PERMUTATION_NOTE_RATIO * e.uncertainty()) {
                 larger.add(String.format(Locale.ROOT, "%s (%.3g against %.3g)", label, perm, e.uncertainty()));
             }
         }
         if (!larger.isEmpty()) {
             notes.add("correlated noise: the residual-permutation spread over " + shifts + " shifts exceeds the "
-                    + "covariance error of " + String.join(", ", larger) + "; quote the larger error "
+                    + "covariance error by more than " + Math.round(100 * (PERMUTATION_NOTE_RATIO - 1)) + " % for " + String.join(", ", larger) + "; quote the larger error "
                     + "(noise.quoted in fit.json)");
         }
         return notes;

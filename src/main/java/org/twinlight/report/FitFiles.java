@@ -140,9 +140,9 @@ public final class FitFiles {
     /** The terminal lines of the noise diagnostics: β and a table of the errors with the one to quote. */
     public static String noiseSummary(NoiseReport noise, FitResult r) {
         StringBuilder sb = new StringBuilder();
-        StringBuilder widths = new StringBuilder();
-        noise.betaByBinMinutes().forEach((w, b) -> widths.append(String.format(Locale.ROOT, " %.0f min %.2f;", w, b)));
-        sb.append(String.format(Locale.ROOT, "%ncorrelated noise: beta = %.2f (%s:%s); residual permutation over %d "
+        String widths = noise.betaByBinMinutes().entrySet().stream().map(e -> String.format(Locale.ROOT,
+                "%.0f min %.2f", e.getKey(), e.getValue())).collect(java.util.stream.Collectors.joining("; "));
+        sb.append(String.format(Locale.ROOT, "%ncorrelated noise: beta = %.2f (%s: %s); residual permutation over %d "
                 + "shifts%n", noise.beta(), NoiseReport.BETA_RULE, widths, noise.shifts()));
         sb.append(String.format(Locale.ROOT, "%-28s %14s %14s %14s%n", "error of", noise.appliedFactor() > 1
                 ? "cov. x beta" : "covariance", "permutation", "quote"));
