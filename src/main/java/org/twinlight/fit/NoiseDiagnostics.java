@@ -4,6 +4,9 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.photometry.RobustStatistics;
@@ -30,11 +33,17 @@ public final class NoiseDiagnostics {
     /** The widths run at least up to this, minutes (also when the eclipses are shorter). */
     static final double MIN_LARGEST_WIDTH_MINUTES = 60;
     /**
-     * Cyclic shifts of the residual permutation, at most. Each is a least-squares refit started
-     * at the optimum (two to four iterations); 40 keep a 20,000-point fit's permutation to a few
-     * seconds, and give the spread to about ±11 % (1/√(2·40)) were the shifts independent.
+     * Cyclic shifts of the residual permutation, at most. Each is a refit started at the optimum;
+     * 40 keep a 20,000-point fit's permutation to about the cost of the fit (docs/performance.md),
+     * and give the spread to about ±11 % (1/√(2·40)) were the shifts independent.
      */
     public static final int MAX_SHIFTS = 40;
+
+    /**
+     * Above this many points the permutation is not run (its Jacobian would be held in memory
+     * and the fit's own cost dominates); β is still measured.
+     */
+    public static final int MAX_PERMUTED_POINTS = LeastSquaresSolver.LARGE_PROBLEM_ROWS;
 
     private NoiseDiagnostics() {
     }
@@ -194,7 +203,13 @@ public final class NoiseDiagnostics {
     /**
      * The residual permutation: for shift j = 1..K every light curve's used residuals move by
      * round(j·m/(K+1)) places (m its used points, cyclically), are added to the best model, and
-     * the problem is refitted from the optimum with the same points left out. The spread per
+     * the problem is refitted from the optimum with the same points left out, by Gauss–Newton
+     * steps with the Jacobian of the optimum held fixed (the chord method; e.g. Kelley 1995,
+     * Iterative Methods for Linear and Nonlinear Equations, SIAM, §5.4): the shifted data differ
+     * from the fitted ones by noise only, so the Jacobian barely changes, and each refit costs a
+     * few model evaluations instead of a Jacobian per iteration. Where those steps do not settle
+     * (a value folded at its bound, a strongly curved valley) the shift is refitted by
+     * Levenberg–Marquardt instead. The spread per
      * free parameter is the standard deviation of the K refitted values and the best fit's value
      * (the unshifted residuals) about their mean.
      */
@@ -203,7 +218,8 @@ public final class NoiseDiagnostics {
         int fewest = curves.stream().mapToInt(c -> c.size() - c.clippedCount()).min().orElse(0);
         int shifts = Math.min(maxShifts, fewest - 1);
         Map<String, Double> sigma = new LinkedHashMap<>();
-        if (shifts < 2) {
+        int used = curves.stream().mapToInt(c -> c.size() - c.clippedCount()).sum();
+        if (shifts < 2 || used > MAX_PERMUTED_POINTS) {
             return new Permutation(sigma, 0);
         }
         FitSettings settings = problem.settings().withClipSigma(Double.NaN);
@@ -216,11 +232,15 @@ public final class NoiseDiagnostics {
             }
         }
         double[][] values = new double[freeIdx.size()][shifts + 1];
-        ParameterLayout atBest = FitProblem.of(result.model(), problem.data(), settings).objective().layout();
-        double[] best = atBest.toExternal(atBest.startInternal());
+        WeightedResiduals atBest = FitProblem.of(result.model(), problem.data(), settings).objective()
+                .withLeftOut(leftOut);
+        ParameterLayout l = atBest.layout();
+        double[] x0 = l.startInternal();
+        double[] best = l.toExternal(x0);
         for (int a = 0; a < freeIdx.size(); a++) {
             values[a][0] = best[freeIdx.get(a)];
         }
+        Chord chord = new Chord(LeastSquaresSolver.jacobian(atBest::evaluate, x0, l.steps(), atBest.size()));
         for (int j = 1; j <= shifts; j++) {
             List<FitData> shifted = new ArrayList<>();
             for (int c = 0; c < curves.size(); c++) {
@@ -228,16 +248,19 @@ public final class NoiseDiagnostics {
             }
             WeightedResiduals objective = FitProblem.of(result.model(), shifted, settings).objective()
                     .withLeftOut(leftOut);
-            ParameterLayout l = objective.layout();
-            double[] ext;
-            try {
-                ext = l.toExternal(LeastSquaresSolver.optimize(objective, l.startInternal(),
-                        settings.maxIterations()).internal());
-            } catch (LeastSquaresSolver.NotConverged e) {
-                // a shift whose refit fails tells nothing about the spread; it is left out
-                ext = null;
+            double[] x = chord.refit(objective, x0);
+            if (x == null) {
+                // the fixed Jacobian does not lead to the optimum (near a fold at a bound, or a strongly
+                // curved valley): a full Levenberg–Marquardt refit from the optimum
+                try {
+                    x = LeastSquaresSolver.optimize(objective, x0, settings.maxIterations()).internal();
+                } catch (LeastSquaresSolver.NotConverged e) {
+                    x = null;
+                }
             }
+            double[] ext = x == null ? null : l.toExternal(x);
             for (int a = 0; a < freeIdx.size(); a++) {
+                // a shift whose refit fails tells nothing about the spread: left out
                 values[a][j] = ext == null ? Double.NaN : ext[freeIdx.get(a)];
             }
         }
@@ -246,6 +269,67 @@ public final class NoiseDiagnostics {
             sigma.put(layout.parameter(freeIdx.get(a)).label(multiBand), standardDeviation(values[a]));
         }
         return new Permutation(sigma, shifts);
+    }
+
+    /** Gauss–Newton steps with a fixed Jacobian J: δ = −(JᵀJ)⁺·Jᵀr, the pseudo-inverse from its SVD. */
+    private static final class Chord {
+        /** Steps at most per refit. */
+        private static final int MAX_STEPS = 8;
+        /** Converged when no internal coordinate (in units of its scale) moves more than this. */
+        private static final double TOLERANCE = 1e-4;
+
+        private final double[][] jacobian;
+        private final RealMatrix pseudoInverse;
+
+        Chord(double[][] jacobian) {
+            this.jacobian = jacobian;
+            int k = jacobian.length == 0 ? 0 : jacobian[0].length;
+            double[][] jtj = new double[k][k];
+            for (double[] row : jacobian) {
+                for (int a = 0; a < k; a++) {
+                    for (int b = a; b < k; b++) {
+                        jtj[a][b] += row[a] * row[b];
+                    }
+                }
+            }
+            for (int a = 0; a < k; a++) {
+                for (int b = 0; b < a; b++) {
+                    jtj[a][b] = jtj[b][a];
+                }
+            }
+            // the pseudo-inverse leaves a coordinate with no leverage (a value folded at its bound) where it is
+            this.pseudoInverse = new SingularValueDecomposition(new Array2DRowRealMatrix(jtj, false)).getSolver()
+                    .getInverse();
+        }
+
+        /** The refitted internal point, or null when the steps leave the domain or do not settle. */
+        double[] refit(WeightedResiduals objective, double[] start) {
+            ParameterLayout layout = objective.layout();
+            double[] x = start.clone();
+            for (int step = 0; step < MAX_STEPS; step++) {
+                double[] r = objective.evaluate(x);
+                double[] jtr = new double[x.length];
+                for (int i = 0; i < r.length; i++) {
+                    for (int a = 0; a < x.length; a++) {
+                        jtr[a] += jacobian[i][a] * r[i];
+                    }
+                }
+                double[] delta = pseudoInverse.operate(jtr);
+                double largest = 0;
+                for (int a = 0; a < x.length; a++) {
+                    x[a] -= delta[a];
+                    largest = Math.max(largest, Math.abs(delta[a]));
+                }
+                double[] valid = layout.validate(x);
+                if (!java.util.Arrays.equals(valid, x)) {
+                    return null;
+                }
+                if (largest < TOLERANCE) {
+                    return x;
+                }
+            }
+            return null;
+        }
     }
 
     /** The light curve of the best model plus the used residuals moved by the j-th of K shifts. */
