@@ -8,11 +8,15 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import org.twinlight.BadInputException;
+import org.twinlight.WorkFailedException;
 import org.twinlight.eclipse.ModelFile;
 import org.twinlight.fit.Baseline;
 import org.twinlight.fit.EclipseFitter;
 import org.twinlight.fit.FitData;
+import org.twinlight.fit.FitParameter;
 import org.twinlight.fit.FitProblem;
+import org.twinlight.fit.Posterior;
+import org.twinlight.fit.Priors;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
 import org.twinlight.fit.NoiseDiagnostics;
@@ -23,6 +27,8 @@ import org.twinlight.report.FitFiles;
 import org.twinlight.report.ModelFileJson;
 import org.twinlight.report.FitPlot;
 import org.twinlight.report.InputDigest;
+import org.twinlight.report.PosteriorFiles;
+import org.twinlight.report.PosteriorPlots;
 import org.twinlight.report.ResultSet;
 import org.twinlight.time.TimeScale;
 import picocli.CommandLine.Command;
@@ -35,7 +41,9 @@ import picocli.CommandLine.Parameters;
         description = {"Fit the model of two limb-darkened spheres to one or more light curves "
                 + "(several files = several bands or instruments sharing the geometry).",
             "Writes fit.json, residuals.csv, fit.png (one fit-BAND.png per further band) and model.json "
-                + "(the best model, usable as a starting model)."})
+                + "(the best model, usable as a starting model).",
+            "With --posterior also chain.csv.gz, trace.png and corner.png, and the posterior and convergence in "
+                + "fit.json; a chain that has not converged is written but ends with exit code 1."})
 public final class FitCommand implements Callable<Integer> {
     /** The band of a single file that names none. */
     static final String DEFAULT_BAND = "default";
@@ -87,7 +95,8 @@ public final class FitCommand implements Callable<Integer> {
 
     @Option(names = "--inflate-errors", paramLabel = "beta|none", defaultValue = "none",
             description = "beta: multiply the errors by max(1, beta), the time-averaging factor of the residuals "
-                    + "(correlated noise), before the final uncertainties are formed; none: leave them "
+                    + "(correlated noise), before the final uncertainties are formed and before sampling "
+                    + "(--posterior); none: leave them "
                     + "(default: ${DEFAULT-VALUE}). Either way fit.json's noise block gives beta, the "
                     + "residual-permutation spread and the error to quote.")
     String inflateErrors;
@@ -98,11 +107,16 @@ public final class FitCommand implements Callable<Integer> {
     @Mixin
     PhotometryOptions photometry;
 
+    @Mixin
+    PosteriorOptions sampling;
+
     @Override
     public Integer call() {
         List<Path> inputFiles = new ArrayList<>(files);
         inputFiles.add(model);
-        OutputTargets.checkDirectory(out, List.of("fit.json", "residuals.csv", "model.json", "fit.png"), inputFiles);
+        OutputTargets.checkDirectory(out, sampling.posterior ? List.of("fit.json", "residuals.csv", "model.json",
+                "fit.png", PosteriorFiles.CHAIN_FILE, "trace.png", "corner.png")
+                : List.of("fit.json", "residuals.csv", "model.json", "fit.png"), inputFiles);
         ModelFile start = ModelFileJson.read(model);
         if (!bands.isEmpty() && bands.size() != files.size()) {
             throw new BadInputException("option --band: given " + bands.size() + " time(s) for " + files.size()
@@ -181,12 +195,19 @@ public final class FitCommand implements Callable<Integer> {
         }
         boolean inflate = inflateErrors(inflateErrors);
         FitProblem problem = FitProblem.of(start, data, settings);
+        int freeCount = (int) problem.parameters().stream().filter(FitParameter::free).count();
+        sampling.check(freeCount);
+        Priors priors = sampling.posterior ? ModelFileJson.readPriors(model) : Priors.none();
         FitResult r = EclipseFitter.optimize(problem);
         NoiseReport noise = NoiseDiagnostics.of(problem, r);
+        FitResult sampledFrom = r;
         if (inflate) {
+            sampledFrom = NoiseDiagnostics.forInflatedSampling(r, noise.inflation());
             r = NoiseDiagnostics.inflate(r, noise.inflation());
             noise = noise.withInflationApplied();
         }
+        Posterior posterior = sampling.posterior ? sampling.sample(problem, sampledFrom, priors, freeCount,
+                spec.commandLine().getErr()) : null;
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
                 VersionInfo.version());
@@ -195,6 +216,9 @@ public final class FitCommand implements Callable<Integer> {
         FitFiles.putNoise(doc, noise, r);
         for (FitData d : data) {
             d.lightCurve().notes().forEach(n -> notes.add(d.lightCurve().source() + ": " + n));
+        }
+        if (posterior != null) {
+            PosteriorFiles.addTo(doc, posterior);
         }
         List<String> bandList = data.stream().map(FitData::band).distinct().toList();
         try (ResultSet set = ResultSet.open(out, "fit")) {
@@ -207,13 +231,30 @@ public final class FitCommand implements Callable<Integer> {
                 FitPlot.write(r, bandList.get(b), set.file("fit-" + safe(bandList.get(b)) + ".png"), title,
                         scale.label());
             }
+            if (posterior != null) {
+                PosteriorFiles.writeChain(set.file(PosteriorFiles.CHAIN_FILE), posterior);
+                PosteriorPlots.writeTrace(set.file("trace.png"), posterior, "Posterior of " + files.get(0).getFileName());
+                PosteriorPlots.writeCorner(set.file("corner.png"), posterior, "Posterior of " + files.get(0).getFileName());
+            }
             set.commit();
         }
         console().print(FitFiles.summary(r, scale));
         console().print(FitFiles.noiseSummary(noise, r));
         noise.notes(r).forEach(n -> console().println("note: " + n));
         console().println("caution: " + FitFiles.CAUTION);
-        console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
+        if (posterior == null) {
+            console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
+            return 0;
+        }
+        console().print(PosteriorFiles.summary(posterior));
+        console().println("wrote fit.json, residuals.csv, model.json, fit.png, " + PosteriorFiles.CHAIN_FILE
+                + ", trace.png and corner.png to " + out);
+        if (!posterior.convergence().converged()) {
+            throw new WorkFailedException("the posterior sample has not converged: " + posterior.convergence().reason()
+                    + ". The files were written with \"converged\": false; do not quote its intervals. Try a larger "
+                    + "--max-steps (e.g. " + 2 * posterior.steps() + "), fewer free parameters, or priors that "
+                    + "rule out what the data cannot decide");
+        }
         return 0;
     }
 

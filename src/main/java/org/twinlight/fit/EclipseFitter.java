@@ -414,7 +414,7 @@ public final class EclipseFitter {
     }
 
     /** Reported quantities at an external point: external parameters, then derived ones with their names. */
-    private record Reported(double[] values, List<String> names, List<String> bands) {
+    record Reported(double[] values, List<String> names, List<String> bands) {
 
         static Reported at(ParameterLayout layout, double[] extIn, long epochShift, long midCycle) {
             double[] ext = extIn.clone();

@@ -94,26 +94,16 @@ public final class NoiseDiagnostics {
     }
 
     /**
-     * The data with every point's error multiplied by {@code factor}, for a sampler whose
-     * likelihood takes the errors as they are (points without errors get the errors the fit
-     * estimated, brought back to the scale of the flux and times the factor).
-     *
-     * @param curves the fitted curves of the same data, in order (for estimated errors)
+     * The result as the sampler should start from it when the errors are inflated by
+     * {@code factor}: the sampler scales the errors so that the best model has its reduced χ²
+     * equal to 1 ({@link PosteriorDensity}), which would undo a factor on the data errors; so the
+     * factor enters as the reduced χ² times factor², the errors of the likelihood becoming
+     * σ·√χ²ν·factor, the same as the least-squares errors after {@link #inflate}.
      */
-    public static List<FitData> inflatedData(List<FitData> data, List<FittedCurve> curves, double factor) {
-        List<FitData> out = new ArrayList<>();
-        for (int c = 0; c < data.size(); c++) {
-            LightCurve lc = data.get(c).lightCurve();
-            FittedCurve fitted = curves.get(c);
-            double[] err = new double[lc.size()];
-            for (int i = 0; i < err.length; i++) {
-                // an estimated error is in units of the flux divided by the baseline: times the baseline
-                err[i] = factor * (lc.hasErrors() ? lc.fluxError(i) : fitted.errors()[i] * lc.flux(i) / fitted.flux()[i]);
-            }
-            out.add(new FitData(new LightCurve(lc.source(), lc.band(), lc.timeScale(), lc.originalKind(),
-                    lc.timesDays(), lc.fluxes(), err, lc.rejectedRows(), lc.notes()), data.get(c).band()));
-        }
-        return out;
+    public static FitResult forInflatedSampling(FitResult r, double factor) {
+        return new FitResult(r.model(), r.parameters(), r.derived(), r.freeNames(), r.correlation(), r.n(),
+                r.freeCount(), r.chi2(), r.reducedChi2() * factor * factor, r.rms(), r.bic(), r.iterations(),
+                r.evaluations(), r.errorsEstimated(), r.adequacy(), r.clipped(), r.notes(), r.curves());
     }
 
     /**

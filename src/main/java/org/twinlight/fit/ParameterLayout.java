@@ -317,6 +317,23 @@ final class ParameterLayout {
         return changed ? toInternal(ext) : internal;
     }
 
+    /**
+     * Whether an external vector lies inside the model's domain, the one {@link #validate(double[])}
+     * keeps trial points in (e ≤ 0.95, ℓ₃ ≤ 0.98, spheres apart at periastron).
+     */
+    boolean inDomain(double[] ext) {
+        if (ext[ECCENTRICITY] > MAX_ECCENTRICITY
+                || ext[RADIUS1] + ext[RADIUS2] > MAX_SUM_FRACTION * (1 - ext[ECCENTRICITY])) {
+            return false;
+        }
+        for (int off : bandOffset) {
+            if (ext[off + 1] > MAX_THIRD_LIGHT) {
+                return false;
+            }
+        }
+        return true;
+    }
+
     /** Finite-difference steps for the internal coordinates. */
     double[] steps() {
         double[] h = new double[internalSize];

@@ -138,6 +138,39 @@ final class WeightedResiduals {
         return s;
     }
 
+    /**
+     * χ² of the used points for an external vector, computed in the work arrays {@code work}
+     * (one per thread, from {@link #workspace()}): no allocation per point.
+     */
+    double chi2External(double[] ext, Workspace work) {
+        double s = 0;
+        for (int b = 0; b < layout.bands().size(); b++) {
+            work.models[b] = new BinaryModel(layout.parameters(ext, b));
+        }
+        for (int k = 0; k < sets.size(); k++) {
+            Prepared p = sets.get(k);
+            double[] m = work.flux[k];
+            work.models[p.band].flux(p.t, m);
+            s += p.chi2(m, work.residuals[k]);
+        }
+        return s;
+    }
+
+    /** Work arrays for {@link #chi2External(double[], Workspace)}; one thread at a time. */
+    Workspace workspace() {
+        double[][] flux = new double[sets.size()][];
+        double[][] residuals = new double[sets.size()][];
+        for (int k = 0; k < sets.size(); k++) {
+            flux[k] = new double[sets.get(k).t.length];
+            residuals[k] = new double[sets.get(k).t.length];
+        }
+        return new Workspace(flux, residuals, new BinaryModel[layout.bands().size()]);
+    }
+
+    /** Per-thread model and residual arrays, one per light curve. */
+    record Workspace(double[][] flux, double[][] residuals, BinaryModel[] models) {
+    }
+
     /** The fitted curves, baselines divided out, for an external vector. */
     List<FittedCurve> curves(double[] ext) {
         List<FittedCurve> out = new ArrayList<>();
@@ -176,6 +209,7 @@ final class WeightedResiduals {
         final int degree;
         final boolean errorsEstimated;
         final boolean[] used;
+        final double[] weight;
         final int usedCount;
 
         Prepared(FitData d, int band, double gapDays, int degree) {
@@ -216,6 +250,7 @@ final class WeightedResiduals {
             used = new boolean[n];
             Arrays.fill(used, true);
             usedCount = n;
+            weight = weights(sigma, used);
         }
 
         private Prepared(Prepared base, boolean[] leftOut) {
@@ -235,6 +270,54 @@ final class WeightedResiduals {
                 c += used[i] ? 1 : 0;
             }
             usedCount = c;
+            weight = weights(sigma, used);
+        }
+
+        /**
+         * χ² of the used points with the baselines solved, as {@link #weightedResiduals} would give
+         * it; without a baseline or with an offset per segment the normal equation is one number
+         * (c = Σ w m y / Σ w m², w = 1/σ²) and no residual is stored. {@code scratch} (the length
+         * of the curve) serves the polynomial baselines.
+         */
+        double chi2(double[] model, double[] scratch) {
+            double s = 0;
+            if (degree > 0) {
+                weightedResiduals(model, scratch, 0, null);
+                for (double v : scratch) {
+                    s += v * v;
+                }
+                return s;
+            }
+            for (int g = 0; g + 1 < segmentStart.length; g++) {
+                int a = segmentStart[g];
+                int b = segmentStart[g + 1];
+                double c = 1;
+                if (degree == 0) {
+                    double mm = 0;
+                    double my = 0;
+                    for (int i = a; i < b; i++) {
+                        double wm = weight[i] * model[i];
+                        mm += wm * model[i];
+                        my += wm * y[i];
+                    }
+                    // as solveSmall: no usable point leaves the baseline at 1
+                    c = mm != 0 ? my / mm : 1;
+                }
+                for (int i = a; i < b; i++) {
+                    double r = y[i] - model[i] * c;
+                    s += weight[i] * r * r;
+                }
+            }
+            return s;
+        }
+
+        /** 1/σ² of the used points, 0 for those left out. */
+        private static double[] weights(double[] sigma, boolean[] used) {
+            double[] w = new double[sigma.length];
+            for (int i = 0; i < w.length; i++) {
+                w[i] = used[i] ? 1 / (sigma[i] * sigma[i]) : 0;
+            }
+            return w;
         }
 
         Prepared withLeftOut(boolean[] leftOut) {

@@ -3,13 +3,10 @@ package org.twinlight.report;
 import java.awt.Color;
 import java.awt.Graphics2D;
 import java.awt.image.BufferedImage;
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.UncheckedIOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import javax.imageio.ImageIO;
 import org.knowm.xchart.BitmapEncoder;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
@@ -110,13 +107,7 @@ public final class FitPlot {
         g.drawImage(BitmapEncoder.getBufferedImage(zoom1), 0, 650, null);
         g.drawImage(BitmapEncoder.getBufferedImage(zoom2), WIDTH / 2, 650, null);
         g.dispose();
-        try {
-            ByteArrayOutputStream buf = new ByteArrayOutputStream();
-            ImageIO.write(img, "png", buf);
-            AtomicFiles.writeBytes(target, buf.toByteArray());
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot render " + target + ": " + e.getMessage(), e);
-        }
+        PlotFiles.writeImage(img, target);
     }
 
     private static XYChart zoom(String title, double[] ph, double[] fl, double[] mph, double[] mfl, double[] w) {

@@ -20,6 +20,8 @@ import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.LimbDarkening;
 import org.twinlight.eclipse.LimbDarkeningLaw;
 import org.twinlight.eclipse.ModelFile;
+import org.twinlight.fit.Prior;
+import org.twinlight.fit.Priors;
 
 /**
  * Reads and writes the JSON model file of the interface contract: the common parameters and
@@ -35,12 +37,69 @@ public final class ModelFileJson {
             .enable(com.fasterxml.jackson.core.StreamReadFeature.STRICT_DUPLICATE_DETECTION).build());
     private static final Set<String> TOP_KEYS = Set.of("period", "epoch", "radius1", "radius2", "inclination",
             "eccentricity", "omega", "surfaceBrightnessRatio", "thirdLight", "limbDarkening1", "limbDarkening2",
-            "exposureTime", "supersample", "bands");
+            "exposureTime", "supersample", "bands", "priors");
     private static final Set<String> BAND_KEYS = Set.of("surfaceBrightnessRatio", "thirdLight", "limbDarkening1",
             "limbDarkening2");
 
     /** Reads and checks a model file. */
     public static ModelFile read(Path file) {
+        return parse(readTree(file), file);
+    }
+
+    /**
+     * The priors of a model file ({@code "priors": {NAME: {"uniform": [lo, hi]} | {"normal": [mean,
+     * sigma]}}}), none when the key is absent. Their shape is checked here; whether each name is a
+     * free parameter of the fit is checked when the fit is built.
+     */
+    public static Priors readPriors(Path file) {
+        return priors(readTree(file), file);
+    }
+
+    /** The priors of a parsed model; {@code file} is only used in messages and may be null. */
+    public static Priors priors(JsonNode root, Path file) {
+        JsonNode node = root == null ? null : root.get("priors");
+        String source = file == null ? "" : file.toString();
+        if (node == null || node.isNull()) {
+            return new Priors(Map.of(), source);
+        }
+        if (!node.isObject()) {
+            throw BadInputException.at(file, "key 'priors'", null,
+                    "expected an object {NAME: {\"uniform\": [lo, hi]} | {\"normal\": [mean, sigma]}, ...}");
+        }
+        Map<String, Prior> out = new LinkedHashMap<>();
+        for (Iterator<Map.Entry<String, JsonNode>> it = node.fields(); it.hasNext();) {
+            Map.Entry<String, JsonNode> e = it.next();
+            out.put(e.getKey(), prior(e.getValue(), file, "priors." + e.getKey()));
+        }
+        return new Priors(out, source);
+    }
+
+    private static Prior prior(JsonNode node, Path file, String key) {
+        String where = "key '" + key + "'";
+        String expected = "expected {\"uniform\": [lo, hi]} or {\"normal\": [mean, sigma]}";
+        if (!node.isObject() || node.size() != 1) {
+            throw BadInputException.at(file, where, null, expected + ", got " + node);
+        }
+        String kind = node.fieldNames().next();
+        JsonNode pair = node.get(kind);
+        if (!kind.equals("uniform") && !kind.equals("normal")) {
+            throw BadInputException.at(file, where, null, "unknown kind of prior '" + kind + "'; " + expected);
+        }
+        if (!pair.isArray() || pair.size() != 2 || !pair.get(0).isNumber() || !pair.get(1).isNumber()) {
+            throw BadInputException.at(file, where + "." + kind, null, "expected two numbers "
+                    + (kind.equals("uniform") ? "[lo, hi]" : "[mean, sigma]") + ", got " + pair);
+        }
+        double a = pair.get(0).doubleValue();
+        double b = pair.get(1).doubleValue();
+        try {
+            return kind.equals("uniform") ? new Prior.Uniform(a, b) : new Prior.Normal(a, b);
+        } catch (IllegalArgumentException e) {
+            throw BadInputException.at(file, where + "." + kind, null, e.getMessage());
+        }
+    }
+
+    /** The JSON object of a model file, read strictly (duplicate keys and trailing text are errors). */
+    private static JsonNode readTree(Path file) {
         String text;
         try {
             text = Files.readString(file);
@@ -63,7 +122,7 @@ public final class ModelFileJson {
         } catch (IOException e) {
             throw BadInputException.at(file, null, null, "cannot read the model file (" + e.getMessage() + ")");
         }
-        return parse(root, file);
+        return root;
     }
 
     /** Checks a parsed model; {@code file} is only used in messages and may be null. */

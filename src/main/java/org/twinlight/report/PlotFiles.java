@@ -72,6 +72,11 @@ public final class PlotFiles {
             y += c.getHeight();
         }
         g.dispose();
+        writeImage(img, target);
+    }
+
+    /** Writes an image composed of several charts as a PNG file atomically. */
+    public static void writeImage(java.awt.image.BufferedImage img, Path target) {
         try {
             ByteArrayOutputStream buf = new ByteArrayOutputStream();
             javax.imageio.ImageIO.write(img, "png", buf);

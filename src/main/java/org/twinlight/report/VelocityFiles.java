@@ -88,7 +88,8 @@ public final class VelocityFiles {
         return root;
     }
 
-    private static void putNumber(ObjectNode o, String key, double v) {
+    /** Puts a number, or null for NaN and infinities (JSON has neither). */
+    static void putNumber(ObjectNode o, String key, double v) {
         if (Double.isFinite(v)) {
             o.put(key, v);
         } else {

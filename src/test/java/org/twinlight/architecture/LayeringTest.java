@@ -17,7 +17,7 @@ import org.junit.jupiter.api.Test;
 class LayeringTest {
     private static final String[] CORE = {"org.twinlight.photometry..", "org.twinlight.time..", "org.twinlight.orbit..",
         "org.twinlight.eclipse..", "org.twinlight.fit..", "org.twinlight.timing..", "org.twinlight.dimensions..",
-        "org.twinlight.velocity..", "org.twinlight.sky..", "org.twinlight.planning.."};
+        "org.twinlight.velocity..", "org.twinlight.sky..", "org.twinlight.planning..", "org.twinlight.sampling.."};
 
     private static JavaClasses classes;
 
@@ -121,6 +121,17 @@ class LayeringTest {
         noClasses().that().resideInAPackage("org.twinlight.planning..")
                 .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.fit..",
                         "java.nio.file..", "com.fasterxml.jackson..", "org.apache.commons.csv..")
+                .check(classes);
+    }
+
+    @Test
+    void samplingKnowsOnlyDensities() {
+        // the sampler sees a density as a function of a vector; the fit adapts itself to it
+        noClasses().that().resideInAPackage("org.twinlight.sampling..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.time..",
+                        "org.twinlight.orbit..", "org.twinlight.eclipse..", "org.twinlight.fit..",
+                        "org.twinlight.timing..", "org.twinlight.dimensions..", "org.twinlight.velocity..",
+                        "org.twinlight.sky..", "org.twinlight.planning..", "com.fasterxml.jackson..", "java.nio.file..")
                 .check(classes);
     }
 

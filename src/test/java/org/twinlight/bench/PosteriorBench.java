@@ -1,0 +1,78 @@
+package org.twinlight.bench;
+
+import java.util.List;
+import java.util.Locale;
+import org.twinlight.eclipse.BinaryModel;
+import org.twinlight.eclipse.BinaryParameters;
+import org.twinlight.eclipse.LimbDarkening;
+import org.twinlight.eclipse.ModelFile;
+import org.twinlight.eclipse.SyntheticLightCurve;
+import org.twinlight.fit.EclipseFitter;
+import org.twinlight.fit.FitData;
+import org.twinlight.fit.FitProblem;
+import org.twinlight.fit.FitResult;
+import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.Posterior;
+import org.twinlight.fit.PosteriorSampler;
+import org.twinlight.fit.Priors;
+import org.twinlight.photometry.LightCurve;
+import org.twinlight.sampling.Marginal;
+import org.twinlight.sampling.SamplerSettings;
+import org.twinlight.sampling.SamplingProgress;
+import org.twinlight.time.TimeScale;
+
+/**
+ * The posterior benchmark of docs/performance.md: 20,000 points at 2-min cadence of a partially
+ * eclipsing pair (r₂ and i strongly correlated), 8 free parameters (period, epoch, both radii,
+ * inclination, surface-brightness ratio, the primary's quadratic limb darkening), 32 walkers;
+ * the time to a converged chain with 1 and with 2 threads, and whether each truth lies inside its
+ * 95 % interval. Run with
+ * {@code java -cp target/classes:target/test-classes:$(deps) org.twinlight.bench.PosteriorBench [THREADS,..] [SEED]}.
+ */
+public final class PosteriorBench {
+    static final BinaryParameters TRUTH = new BinaryParameters(2.3456789, 2460000.3, 0.19, 0.14, 81.0, 0, 90, 0.72, 0,
+            LimbDarkening.quadratic(0.45, 0.20), LimbDarkening.quadratic(0.50, 0.18), 0, 1);
+
+    private PosteriorBench() {
+    }
+
+    public static void main(String[] args) {
+        String threadList = args.length > 0 ? args[0] : "1,2";
+        long seed = args.length > 1 ? Long.parseLong(args[1]) : 1;
+        double[] t = SyntheticLightCurve.regularTimes(2460000.0, 2460000.0 + 20_000 * 2 / 1440.0 - 1e-9, 2, List.of(),
+                null);
+        LightCurve lc = SyntheticLightCurve.observe(new BinaryModel(TRUTH), t, 1000, 100 + seed, "T", "T",
+                TimeScale.BJD_TDB);
+        FitSettings settings = FitSettings.defaults().withFree(new java.util.LinkedHashSet<>(List.of("period", "epoch",
+                "radius1", "radius2", "inclination", "surfaceBrightnessRatio", "limbDarkening1")));
+        FitProblem problem = FitProblem.of(ModelFile.of(TRUTH.withRadii(0.2, 0.13).withInclinationDeg(80.5)),
+                List.of(new FitData(lc, "T")), settings);
+        long f0 = System.nanoTime();
+        FitResult best = EclipseFitter.optimize(problem);
+        System.out.printf(Locale.ROOT, "%d points, least squares %.1f s%n", lc.size(), (System.nanoTime() - f0) / 1e9);
+        double first = Double.NaN;
+        for (String ts : threadList.split(",")) {
+            int threads = Integer.parseInt(ts.trim());
+            long t0 = System.nanoTime();
+            Posterior p = PosteriorSampler.sample(problem, best, Priors.none(),
+                    SamplerSettings.of(32, 20_000, seed, threads), SamplingProgress.NONE, () -> false);
+            double secs = (System.nanoTime() - t0) / 1e9;
+            first = Double.isNaN(first) ? secs : first;
+            System.out.printf(Locale.ROOT, "threads %d: %.1f s, %s, %d steps (burn-in %d), max tau %.1f, %.0f tau, "
+                    + "acceptance %.2f, %.2f ms per evaluation per thread, speed-up %.2f%n", threads, secs,
+                    p.convergence().converged() ? "converged" : "NOT converged", p.steps(), p.burnIn(),
+                    p.convergence().maxAutocorrelationTime(), p.convergence().chainLengthInTau(),
+                    p.convergence().acceptanceFraction(), 1e3 * secs * threads / p.convergence().evaluations(),
+                    first / secs);
+            double[] truth = {TRUTH.periodDays(), TRUTH.epochDays(), 0.19, 0.14, 81.0, 0.72, 0.45, 0.20};
+            String[] names = {"period", "epoch", "radius1", "radius2", "inclination", "surfaceBrightnessRatio",
+                "limbDarkening1.a", "limbDarkening1.b"};
+            for (int k = 0; k < names.length; k++) {
+                Marginal m = p.marginals().get(p.column(names[k]));
+                boolean inside = truth[k] >= m.lower95() && truth[k] <= m.upper95();
+                System.out.printf(Locale.ROOT, "  %-24s truth %.8g  median %.8g  95%% [%.8g, %.8g] %s%n", names[k],
+                        truth[k], m.median(), m.lower95(), m.upper95(), inside ? "inside" : "OUTSIDE");
+            }
+        }
+    }
+}
