@@ -12,44 +12,26 @@ import org.junit.jupiter.api.io.TempDir;
 
 /** The noise block of fit.json, its terminal lines and --inflate-errors, as a user runs them. */
 class FitNoiseDiagnosticsCommandTest {
-    // Demo system (invented)
-    private static final String MODEL = """
-            {
-              "period": 2.61, "epoch": 2460300.25,
-              "radius1": 0.13, "radius2": 0.09, "inclination": 88.0,
-              "surfaceBrightnessRatio": 0.6,
-              "limbDarkening1": {"law": "quadratic", "coefficients": [0.4, 0.2]},
-              "limbDarkening2": {"law": "quadratic", "coefficients": [0.45, 0.2]}
-            }
-            """;
+    private static final String MODEL = FitAndSimulateCommandTest.MODEL;
     private static final List<String> FREE = List.of("epoch", "radius1", "radius2", "inclination",
             "surfaceBrightnessRatio");
 
     @TempDir
     Path dir;
 
-    private Path simulated() {
-        Path model = write("model.json", MODEL);
+    private Path simulated() throws Exception {
+        Path model = Files.writeString(dir.resolve("model.json"), MODEL);
         Path csv = dir.resolve("sim.csv");
-        ConsoleCapture c = new ConsoleCapture();
-        assertThat(c.run("simulate", "--model", model.toString(), "--start", "2460300", "--end", "2460306",
-                "--cadence", "5", "--noise-ppm", "1000", "--seed", "4", "--time-scale", "BJD_TDB", "--out",
+        assertThat(new ConsoleCapture().run("simulate", "--model", model.toString(), "--start", "2460300", "--end",
+                "2460306", "--cadence", "5", "--noise-ppm", "1000", "--seed", "4", "--time-scale", "BJD_TDB", "--out",
                 csv.toString())).isZero();
         return csv;
-    }
-
-    private Path write(String name, String text) {
-        try {
-            return Files.writeString(dir.resolve(name), text);
-        } catch (java.io.IOException e) {
-            throw new java.io.UncheckedIOException(e);
-        }
     }
 
     @Test
     void everyFitReportsBetaAndThePermutationAndInflationMultipliesTheErrors() throws Exception {
         Path csv = simulated();
-        Path start = write("start.json", MODEL.replace("0.13", "0.125").replace("88.0", "87.3"));
+        Path start = Files.writeString(dir.resolve("start.json"), MODEL.replace("0.13", "0.125").replace("88.0", "87.3"));
         ConsoleCapture plain = new ConsoleCapture();
         assertThat(plain.run("fit", csv.toString(), "--model", start.toString(), "--out", dir.resolve("a").toString()))
                 .as(plain.err.toString()).isZero();
@@ -90,10 +72,10 @@ class FitNoiseDiagnosticsCommandTest {
     }
 
     @Test
-    void badInflationChoiceIsExitTwoNamingTheOption() {
+    void badInflationChoiceIsExitTwoNamingTheOption() throws Exception {
         Path csv = simulated();
         ConsoleCapture c = new ConsoleCapture();
-        assertThat(c.run("fit", csv.toString(), "--model", write("m.json", MODEL).toString(), "--inflate-errors",
+        assertThat(c.run("fit", csv.toString(), "--model", Files.writeString(dir.resolve("m.json"), MODEL).toString(), "--inflate-errors",
                 "twice", "--out", dir.resolve("o").toString())).isEqualTo(2);
         assertThat(c.err.toString()).contains("--inflate-errors").contains("beta or none").contains("twice")
                 .doesNotContain("Exception");
