@@ -118,13 +118,19 @@ public final class CalibrationRuns {
         return new LightCurve("calibration-" + seed, "V", TimeScale.BJD_TDB, ValueKind.FLUX, t, f, e, Map.of());
     }
 
-    /** Fits one synthetic curve (from a start near the truth) and compares with the truth. */
-    public static Outcome run(Geometry g, Noise noise, long seed, int maxShifts) {
+    /** The fit problem of one synthetic curve, started near the truth. */
+    public static FitProblem problem(Geometry g, Noise noise, long seed) {
         BinaryParameters truth = g.truth();
         ModelFile start = ModelFile.of(truth.withRadii(truth.radius1() * 1.02, truth.radius2() * 0.98)
                 .withInclinationDeg(Math.min(89.9, truth.inclinationDeg() - 0.2)).withEpochDays(truth.epochDays() + 0.0005));
-        FitProblem problem = FitProblem.of(start, List.of(new FitData(observe(g, noise, seed), "V")),
+        return FitProblem.of(start, List.of(new FitData(observe(g, noise, seed), "V")),
                 FitSettings.defaults().withFree(new LinkedHashSet<>(FREE)));
+    }
+
+    /** Fits one synthetic curve (from a start near the truth) and compares with the truth. */
+    public static Outcome run(Geometry g, Noise noise, long seed, int maxShifts) {
+        BinaryParameters truth = g.truth();
+        FitProblem problem = problem(g, noise, seed);
         FitResult r = EclipseFitter.optimize(problem);
         NoiseReport report = NoiseDiagnostics.of(problem, r, maxShifts);
         Map<String, Double> deviation = new LinkedHashMap<>();
@@ -137,7 +143,7 @@ public final class CalibrationRuns {
         return new Outcome(deviation, sigma, report);
     }
 
-    static double truthValue(BinaryParameters p, String name) {
+    public static double truthValue(BinaryParameters p, String name) {
         return switch (name) {
             case "epoch" -> p.epochDays();
             case "radius1" -> p.radius1();
