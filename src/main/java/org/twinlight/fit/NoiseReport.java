@@ -78,8 +78,9 @@ public record NoiseReport(double beta, Map<Double, Double> betaByBinMinutes, dou
         if (beta > BETA_NOTE_LEVEL) {
             notes.add(String.format(Locale.ROOT, "correlated noise: the residuals averaged over %s min scatter "
                     + "beta = %.2f times more than white noise would; the covariance errors are too small by about "
-                    + "that factor%s; quote the larger error (noise.quoted in fit.json)", widths(), beta,
-                    appliedFactor > 1 ? " (already applied: --inflate-errors beta)" : ""));
+                    + "that factor%s; quote the larger error (noise.quoted in fit.json)%s", widths(), beta,
+                    appliedFactor > 1 ? " (already applied: --inflate-errors beta)" : "",
+                    appliedFactor > 1 ? "" : ", and sample a posterior only with --inflate-errors beta"));
         }
         List<String> larger = new ArrayList<>();
         boolean multiBand = r.curves().stream().map(FittedCurve::band).distinct().count() > 1;
