@@ -20,6 +20,8 @@ import org.twinlight.fit.Posterior;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
 import org.twinlight.fit.Priors;
+import org.twinlight.fit.NoiseDiagnostics;
+import org.twinlight.fit.NoiseReport;
 import org.twinlight.fit.StartingValues;
 import org.twinlight.photometry.LightCurve;
 import org.twinlight.report.FitFiles;
@@ -120,6 +122,14 @@ public final class FitCommand implements Callable<Integer> {
             + "latitude, longitude (degrees, east positive), height (m); or a site file.")
     String site;
 
+    @Option(names = "--inflate-errors", paramLabel = "beta|none", defaultValue = "none",
+            description = "beta: multiply the errors by max(1, beta), the time-averaging factor of the residuals "
+                    + "(correlated noise), before the final uncertainties are formed and before sampling "
+                    + "(--posterior); none: leave them "
+                    + "(default: ${DEFAULT-VALUE}). Either way fit.json's noise block gives beta, the "
+                    + "residual-permutation spread and the error to quote.")
+    String inflateErrors;
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
 
@@ -214,6 +224,7 @@ public final class FitCommand implements Callable<Integer> {
             EpochChecks.near(start.common().epochDays(), start.common().periodDays(),
                     data.get(i).lightCurve().timesDays(), files.get(i).toString(), model + ": key 'epoch'");
         }
+        boolean inflate = inflateErrors(inflateErrors);
         FitProblem problem = FitProblem.of(start, data, settings, priors);
         int freeCount = (int) problem.parameters().stream().filter(FitParameter::free).count();
         sampling.check(freeCount);
@@ -225,7 +236,14 @@ public final class FitCommand implements Callable<Integer> {
             problem = search.best();
         }
         FitResult r = EclipseFitter.optimize(problem);
-        Posterior posterior = sampling.posterior ? sampling.sample(problem, r, freeCount,
+        NoiseReport noise = NoiseDiagnostics.of(problem, r);
+        FitResult sampledFrom = r;
+        if (inflate) {
+            sampledFrom = NoiseDiagnostics.forInflatedSampling(r, noise.inflation());
+            r = NoiseDiagnostics.inflate(r, noise.inflation());
+            noise = noise.withInflationApplied();
+        }
+        Posterior posterior = sampling.posterior ? sampling.sample(problem, sampledFrom, freeCount,
                 spec.commandLine().getErr()) : null;
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
@@ -239,6 +257,7 @@ public final class FitCommand implements Callable<Integer> {
             FitFiles.putMinima(doc, search);
             search.notes().forEach(n -> console().println("note: " + n));
         }
+        FitFiles.putNoise(doc, noise, r);
         for (FitData d : data) {
             d.lightCurve().notes().forEach(n -> notes.add(d.lightCurve().source() + ": " + n));
         }
@@ -264,6 +283,8 @@ public final class FitCommand implements Callable<Integer> {
             set.commit();
         }
         console().print(FitFiles.summary(r, scale));
+        console().print(FitFiles.noiseSummary(noise, r));
+        noise.notes(r).forEach(n -> console().println("note: " + n));
         console().println("caution: " + FitFiles.caution(r.model()));
         if (posterior == null) {
             console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
@@ -279,6 +300,18 @@ public final class FitCommand implements Callable<Integer> {
                     + "rule out what the data cannot decide");
         }
         return 0;
+    }
+
+    /** Parses --inflate-errors: beta (true) or none (false). */
+    static boolean inflateErrors(String text) {
+        String t = text.trim();
+        if (t.equalsIgnoreCase("beta")) {
+            return true;
+        }
+        if (t.equalsIgnoreCase("none")) {
+            return false;
+        }
+        throw new BadInputException("option --inflate-errors: expected beta or none, got '" + text + "'");
     }
 
     /** Parses --clip: a number of standard deviations (≥ 3) or none. */

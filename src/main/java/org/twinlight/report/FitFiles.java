@@ -21,6 +21,7 @@ import org.twinlight.fit.FitSettings;
 import org.twinlight.fit.FittedCurve;
 import org.twinlight.fit.ModelAdequacy;
 import org.twinlight.eclipse.ModelFile;
+import org.twinlight.fit.NoiseReport;
 import org.twinlight.time.TimeScale;
 
 /** Writes the results of a fit: {@code fit.json}, {@code residuals.csv} and the best model file. */
@@ -161,6 +162,68 @@ public final class FitFiles {
                 pair.add(n.mean()).add(n.sigma());
             }
         });
+    }
+
+    /**
+     * Adds the {@code "noise"} block to a {@code fit.json} document and its notes to the
+     * document's notes: β per bin width and adopted, the residual-permutation spread per free
+     * parameter, and per free parameter the error to quote with where it comes from.
+     */
+    public static void putNoise(ObjectNode doc, NoiseReport noise, FitResult r) {
+        ObjectNode o = doc.putObject("noise");
+        o.put("beta", finiteOrNull(noise.beta()));
+        o.put("betaRule", NoiseReport.BETA_RULE);
+        ObjectNode widths = o.putObject("betaByBinMinutes");
+        noise.betaByBinMinutes().forEach((w, b) -> widths.put(String.format(Locale.ROOT, "%.0f", w), finiteOrNull(b)));
+        o.put("eclipseMinutes", finiteOrNull(noise.eclipseMinutes()));
+        ObjectNode perm = o.putObject("residualPermutation");
+        noise.permutationSigma().forEach((name, sigma) -> perm.putObject(name).put("sigma", finiteOrNull(sigma)));
+        o.put("shifts", noise.shifts());
+        o.put("errorsInflatedBy", noise.appliedFactor());
+        o.put("rule", NoiseReport.QUOTE_RULE);
+        ObjectNode quoted = o.putObject("quoted");
+        for (Estimate e : freeEstimates(r)) {
+            String label = label(e, r);
+            double q = noise.quoted(label, e.uncertainty());
+            ObjectNode entry = quoted.putObject(label);
+            entry.put("uncertainty", q);
+            entry.put("from", q > e.uncertainty() * noise.inflation() / noise.appliedFactor() ? "residualPermutation"
+                    : noise.inflation() > noise.appliedFactor() ? "covarianceTimesBeta" : "covariance");
+        }
+        ArrayNode notes = (ArrayNode) doc.get("notes");
+        noise.notes(r).forEach(notes::add);
+    }
+
+    /** The terminal lines of the noise diagnostics: β and a table of the errors with the one to quote. */
+    public static String noiseSummary(NoiseReport noise, FitResult r) {
+        StringBuilder sb = new StringBuilder();
+        String widths = noise.betaByBinMinutes().entrySet().stream().map(e -> String.format(Locale.ROOT,
+                "%.0f min %.2f", e.getKey(), e.getValue())).collect(java.util.stream.Collectors.joining("; "));
+        sb.append(String.format(Locale.ROOT, "%ncorrelated noise: beta = %.2f (%s: %s); residual permutation over %d "
+                + "shifts%n", noise.beta(), NoiseReport.BETA_RULE, widths, noise.shifts()));
+        sb.append(String.format(Locale.ROOT, "%-28s %14s %14s %14s%n", "error of", noise.appliedFactor() > 1
+                ? "cov. x beta" : "covariance", "permutation", "quote"));
+        for (Estimate e : freeEstimates(r)) {
+            String label = label(e, r);
+            sb.append(String.format(Locale.ROOT, "%-28s %14s %14s %14s%n", label, format(e.uncertainty()),
+                    format(noise.permutationSigma().getOrDefault(label, Double.NaN)),
+                    format(noise.quoted(label, e.uncertainty()))));
+        }
+        sb.append("(").append(NoiseReport.QUOTE_RULE).append(")\n");
+        return sb.toString();
+    }
+
+    private static List<Estimate> freeEstimates(FitResult r) {
+        return r.parameters().stream().filter(Estimate::free).toList();
+    }
+
+    private static String label(Estimate e, FitResult r) {
+        boolean multiBand = r.curves().stream().map(FittedCurve::band).distinct().count() > 1;
+        return e.band() == null || !multiBand ? e.name() : e.name() + "@" + e.band();
+    }
+
+    private static Double finiteOrNull(double v) {
+        return Double.isFinite(v) ? v : null;
     }
 
     /** {@code "correlation": {"names": [..], "matrix": [[..]]}}, entries rounded to 1e-6. */

@@ -11,7 +11,8 @@ import org.junit.jupiter.api.io.TempDir;
 
 /** The simulate and fit commands as a user runs them: files written, exit codes, messages. */
 class FitAndSimulateCommandTest {
-    private static final String MODEL = """
+    /** A demo system (invented), as a model file. */
+    static final String MODEL = """
             {
               "period": 2.61, "epoch": 2460300.25,
               "radius1": 0.13, "radius2": 0.09, "inclination": 88.0,

@@ -3,16 +3,15 @@ package org.twinlight.timing.minima;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import org.twinlight.photometry.TimeAveragingBeta;
 
 /**
  * How much the noise near an eclipse is correlated in time on the time scale of the eclipse's
  * branches: the time-averaging factor β of Winn et al. (2008, ApJ 683, 1076, §3; after Pont,
  * Zucker &amp; Queloz 2006, MNRAS 373, 231). Residuals standardised by their point errors are
- * averaged in bins of width w; for white noise the scatter of a bin mean of M points is σ₁/√M and
- * correlated noise makes it larger:
- * β_w² = Σ_j M_j·m_j² / (σ₁²·(N_w − 1)), m_j the mean of bin j, N_w the number of bins
- * (at least {@link #MIN_BINS}). β is the mean of β_w over w = 0.7, 1 and 1.4 times the branch
- * duration (half the eclipse duration), the time over which the minimum's position is decided.
+ * averaged in bins of width w ({@link TimeAveragingBeta} gives β_w). β is the mean of β_w over
+ * w = 1, 1.4 and 2 times the branch duration (half the eclipse duration), the time over which the
+ * minimum's position is decided.
  *
  * <p>The residuals are those of the <em>out-of-eclipse</em> light near the eclipse (minus the
  * median of each stretch of data between gaps): inside the eclipse the fitted time, depth and
@@ -23,7 +22,7 @@ import java.util.List;
 final class CorrelatedNoise {
 
     /** Fewest bins a width must give to count. */
-    static final int MIN_BINS = 5;
+    static final int MIN_BINS = TimeAveragingBeta.MIN_BINS;
     /** Widths, in units of the branch duration. */
     private static final double[] WIDTHS = {1.0, 1.4, 2.0};
 
@@ -39,22 +38,13 @@ final class CorrelatedNoise {
      * @return β, NaN when no width gives {@link #MIN_BINS} bins
      */
     static double beta(double[] x, double[] z, double branchDays) {
-        int n = x.length;
-        if (n < 2 * MIN_BINS) {
-            return Double.NaN;
-        }
-        double ss = 0;
-        for (double v : z) {
-            ss += v * v;
-        }
-        double sigma2 = ss / n;
-        if (!(sigma2 > 0)) {
+        if (x.length < 2 * MIN_BINS) {
             return Double.NaN;
         }
         double sum = 0;
         int widths = 0;
         for (double factor : WIDTHS) {
-            double b = betaAt(x, z, sigma2, factor * branchDays);
+            double b = TimeAveragingBeta.atWidth(x, z, factor * branchDays);
             if (Double.isFinite(b)) {
                 sum += b;
                 widths++;
@@ -110,25 +100,5 @@ final class CorrelatedNoise {
         int a = MinimumFinder.lowerBound(x, from);
         int b = MinimumFinder.lowerBound(x, to);
         return new double[][] {Arrays.copyOfRange(x, a, b), Arrays.copyOfRange(residuals[1], a, b)};
-    }
-
-    /** β_w for bins of width {@code width}, each starting at its first point. */
-    private static double betaAt(double[] x, double[] z, double sigma2, double width) {
-        double total = 0;
-        int bins = 0;
-        int i = 0;
-        while (i < x.length) {
-            double end = x[i] + width;
-            double s = 0;
-            int m = 0;
-            while (i < x.length && x[i] < end) {
-                s += z[i];
-                m++;
-                i++;
-            }
-            total += s * s / m;
-            bins++;
-        }
-        return bins >= MIN_BINS ? Math.sqrt(total / (sigma2 * (bins - 1))) : Double.NaN;
     }
 }
