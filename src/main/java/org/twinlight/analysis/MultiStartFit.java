@@ -12,18 +12,21 @@ import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.ModelFile;
 import org.twinlight.fit.EclipseFitter;
 import org.twinlight.fit.FitData;
+import org.twinlight.fit.FitProblem;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.GlobalSearch;
 import org.twinlight.fit.StartingValues;
 import org.twinlight.photometry.LightCurve;
 
 /**
- * The least-squares fit from several well-spread starting points: each start is run a few
- * Levenberg–Marquardt iterations on a thinned copy of the data (every point in eclipse, a sample of
- * the rest), the lowest χ² wins and is refined on all the data with the requested settings.
- *
- * <p>This is the one place where the search for the global minimum lives: a global optimiser
- * replaces {@link #fit} without touching the rest of the analysis.
+ * The least-squares fit from several well-spread starting points found from the eclipses, then
+ * the global search: each start is run a few Levenberg–Marquardt iterations on a thinned copy of
+ * the data (every point in eclipse, a sample of the rest); from the lowest χ² the fit's global
+ * search ({@link GlobalSearch}: a Latin-hypercube multistart over the free parameters' ranges, and
+ * the radii swapped) runs on the same thinned copy, and its best minimum is refined on all the data
+ * with the requested settings. Competing minima (Δχ² &lt; 9 on the thinned data, which keeps every
+ * point in eclipse) are named in the notes.
  */
 final class MultiStartFit {
     /** Points of the thinned copy the starts are compared on, at most (out of eclipse thinned first). */
@@ -152,8 +155,19 @@ final class MultiStartFit {
             }
             throw new WorkFailedException(why + ". Give a starting model (--model) or fix the period and epoch");
         }
-        FitResult result = EclipseFitter.fit(best.end(), data, settings);
-        return new Outcome(result, trials, thinnedPoints, rivals(trials, best));
+        List<String> notes = new ArrayList<>(rivals(trials, best));
+        ModelFile from = best.end();
+        try {
+            GlobalSearch.Result search = GlobalSearch.run(FitProblem.of(best.end(), thinned, trialSettings));
+            from = search.best().start();
+            sink.accept(String.format(Locale.ROOT, "  global search: %d starts, %d distinct minim%s", search.starts(),
+                    search.minima().size(), search.minima().size() == 1 ? "um" : "a"));
+            notes.addAll(search.notes());
+        } catch (WorkFailedException e) {
+            sink.accept("  global search: " + firstSentence(e.getMessage()) + "; the best start is refined");
+        }
+        FitResult result = EclipseFitter.fit(from, data, settings);
+        return new Outcome(result, trials, thinnedPoints, List.copyOf(notes));
     }
 
     /** The first sentence of a message (the solver's messages go on with its coordinates). */
