@@ -238,7 +238,7 @@ public final class EclipseFitter {
                         + " fitted quantities; fix some parameters or use more data");
             }
             double reducedChi2 = chi2 / dof;
-            boolean estimated = objective.lightCurves().errorsEstimated();
+            boolean estimated = objective.errorsEstimated();
             double varianceScale = FitStatistics.varianceScale(chi2, dof, estimated);
             double[] steps = layout.steps();
             // JᵀJ straight from the Jacobian's columns: no n × k row copies of millions of points

@@ -56,17 +56,28 @@ final class ParameterLayout {
     private final List<FitParameter> parameters;
     private final List<Block> blocks = new ArrayList<>();
     private final int internalSize;
+    /** The velocities of a joint fit, or null. */
+    private final JointVelocities velocities;
+    /** Index of k1 in the external vector (the velocity parameters come last), or −1. */
+    private final int velocityBase;
 
     ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames) {
-        this(start, bands, freeNames, -1);
+        this(start, bands, freeNames, -1, null);
+    }
+
+    /** The layout of a joint fit: the velocity parameters (k1, k2, γ, offsets) follow the bands' ones. */
+    ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames, JointVelocities velocities) {
+        this(start, bands, freeNames, -1, velocities);
     }
 
     /**
      * The layout of a profile: the parameter at {@code fixedIndex} held at its value in {@code start}
      * while the other free parameters move.
      */
-    ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames, int fixedIndex) {
+    ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames, int fixedIndex,
+            JointVelocities velocities) {
         this.start = start;
+        this.velocities = velocities;
         this.bands = List.copyOf(bands);
         this.bandOffset = new int[bands.size()];
         this.bandStart = new BinaryParameters[bands.size()];
@@ -95,6 +106,10 @@ final class ParameterLayout {
             addCoefficients(list, "limbDarkening2", band, bp.limbDarkening2());
         }
         List<FitParameter> marked = new ArrayList<>(markFree(list, freeNames));
+        this.velocityBase = velocities == null ? -1 : marked.size();
+        if (velocities != null) {
+            marked.addAll(velocities.parameters());
+        }
         if (fixedIndex >= 0) {
             marked.set(fixedIndex, marked.get(fixedIndex).withFree(false));
         }
@@ -175,6 +190,11 @@ final class ParameterLayout {
         } else {
             addScaled(OMEGA);
         }
+        if (velocities != null) {
+            for (int i = velocityBase; i < parameters.size(); i++) {
+                addScaled(i);
+            }
+        }
         for (int b = 0; b < bands.size(); b++) {
             int off = bandOffset[b];
             if (isFree(off)) {
@@ -238,12 +258,25 @@ final class ParameterLayout {
      */
     ParameterLayout fixing(int index, double[] ext) {
         Set<String> names = new LinkedHashSet<>();
-        for (FitParameter p : parameters) {
-            if (p.free()) {
-                names.add(p.name());
+        int end = velocities == null ? parameters.size() : velocityBase;
+        for (int i = 0; i < end; i++) {
+            if (parameters.get(i).free()) {
+                names.add(parameters.get(i).name());
             }
         }
-        return new ParameterLayout(modelFile(ext), bands, names, index);
+        JointVelocities v = velocities == null ? null
+                : velocities.startingAt(Arrays.copyOfRange(ext, velocityBase, parameters.size()));
+        return new ParameterLayout(modelFile(ext), bands, names, index, v);
+    }
+
+    /** The velocities of a joint fit, or null. */
+    JointVelocities velocities() {
+        return velocities;
+    }
+
+    /** Index of k1 in the external vector, −1 without velocities. */
+    int velocityBase() {
+        return velocityBase;
     }
 
     /** The same parameters, free and fixed alike, started from the external vector {@code ext}. */
