@@ -16,6 +16,7 @@ import org.twinlight.fit.FitProblem;
 import org.twinlight.fit.GlobalSearch;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.JointVelocities;
 import org.twinlight.fit.Priors;
 import org.twinlight.fit.StartingValues;
 import org.twinlight.photometry.LightCurve;
@@ -23,8 +24,11 @@ import org.twinlight.report.FitFiles;
 import org.twinlight.report.ModelFileJson;
 import org.twinlight.report.FitPlot;
 import org.twinlight.report.InputDigest;
+import org.twinlight.report.JointFitFiles;
 import org.twinlight.report.ResultSet;
+import org.twinlight.report.VelocityPlot;
 import org.twinlight.time.TimeScale;
+import org.twinlight.velocity.VelocityData;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -90,17 +94,32 @@ public final class FitCommand implements Callable<Integer> {
             + "under \"minima\", a note names any that fits almost as well (Δχ² < 9), and the best is fitted as usual.")
     boolean global;
 
+    @Option(names = "--velocities", paramLabel = "RV.csv",
+            description = "Radial velocities (text or FITS table, as the velocities command reads) fitted jointly with "
+                    + "the light curves: one more data set sharing period, epoch, e and omega; K1, K2, gamma and one "
+                    + "offset per further instrument (or file) are fitted too. Repeat for several files. Their time "
+                    + "scale must be the light curves'. Adds velocities.png.")
+    List<Path> velocityFiles = new ArrayList<>();
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
 
     @Mixin
     PhotometryOptions photometry;
 
+    @Mixin
+    VelocityColumnOptions velocityColumns;
+
     @Override
     public Integer call() {
         List<Path> inputFiles = new ArrayList<>(files);
         inputFiles.add(model);
-        OutputTargets.checkDirectory(out, List.of("fit.json", "residuals.csv", "model.json", "fit.png"), inputFiles);
+        inputFiles.addAll(velocityFiles);
+        List<String> targets = new ArrayList<>(List.of("fit.json", "residuals.csv", "model.json", "fit.png"));
+        if (!velocityFiles.isEmpty()) {
+            targets.add("velocities.png");
+        }
+        OutputTargets.checkDirectory(out, targets, inputFiles);
         ModelFile start = ModelFileJson.read(model);
         Priors priors = ModelFileJson.readPriors(model);
         if (!bands.isEmpty() && bands.size() != files.size()) {
@@ -178,7 +197,12 @@ public final class FitCommand implements Callable<Integer> {
             EpochChecks.near(start.common().epochDays(), start.common().periodDays(),
                     data.get(i).lightCurve().timesDays(), files.get(i).toString(), model + ": key 'epoch'");
         }
-        FitProblem problem = FitProblem.of(start, data, settings, priors);
+        List<VelocityData> velocityData = readVelocities(scale, scaleFrom);
+        JointVelocities joint = velocityData.isEmpty() ? null : JointVelocities.of(velocityData, start.common());
+        if (joint != null) {
+            joint.notes().forEach(n -> console().println("note: " + n));
+        }
+        FitProblem problem = FitProblem.of(start, data, settings, priors, joint);
         GlobalSearch.Result search = null;
         if (global) {
             search = GlobalSearch.run(problem);
@@ -200,6 +224,9 @@ public final class FitCommand implements Callable<Integer> {
         for (FitData d : data) {
             d.lightCurve().notes().forEach(n -> notes.add(d.lightCurve().source() + ": " + n));
         }
+        if (joint != null) {
+            JointFitFiles.putVelocities(doc, r, joint, velocityFiles);
+        }
         List<String> bandList = data.stream().map(FitData::band).distinct().toList();
         try (ResultSet set = ResultSet.open(out, "fit")) {
             FitFiles.writeJson(set.file("fit.json"), doc);
@@ -211,12 +238,45 @@ public final class FitCommand implements Callable<Integer> {
                 FitPlot.write(r, bandList.get(b), set.file("fit-" + safe(bandList.get(b)) + ".png"), title,
                         scale.label());
             }
+            for (int f = 0; joint != null && f < velocityData.size(); f++) {
+                String name = f == 0 ? "velocities.png" : "velocities-" + safe(baseName(velocityFiles.get(f))) + ".png";
+                VelocityPlot.write(joint.solution(r, f), velocityData.get(f), set.file(name), "Radial velocities of "
+                        + velocityFiles.get(f).getFileName() + ", joint fit with " + files.get(0).getFileName());
+            }
             set.commit();
         }
         console().print(FitFiles.summary(r, scale));
+        if (joint != null) {
+            console().print(JointFitFiles.summary(r, joint));
+        }
         console().println("caution: " + FitFiles.CAUTION);
-        console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
+        console().println("wrote fit.json, residuals.csv, model.json" + (joint != null ? ", fit.png and velocities.png"
+                : " and fit.png") + " to " + out);
         return 0;
+    }
+
+    /**
+     * Reads the --velocities files and checks that their time scale is the light curves'.
+     *
+     * @throws BadInputException naming both files and scales when they differ
+     */
+    private List<VelocityData> readVelocities(TimeScale lightCurveScale, Path lightCurveFile) {
+        List<VelocityData> out = new ArrayList<>();
+        for (Path f : velocityFiles) {
+            VelocityData d = VelocityFileOptions.read(f, velocityColumns.toReadOptions(null, null, null, null), console());
+            if (d.timeScale().isKnown() && lightCurveScale.isKnown() && !d.timeScale().equals(lightCurveScale)) {
+                throw new BadInputException(f + ": its times are " + d.timeScale().label() + " but the light curve "
+                        + lightCurveFile + " has " + lightCurveScale.label() + "; convert the velocity times to "
+                        + lightCurveScale.label() + " first (the time command)");
+            }
+            if (!d.timeScale().isKnown() || !lightCurveScale.isKnown()) {
+                console().println("note: the time scale of " + (!d.timeScale().isKnown() ? f : lightCurveFile)
+                        + " is unknown, so it cannot be checked against the other's; a mismatch (e.g. HJD_UTC "
+                        + "against BJD_TDB) shifts the velocities' phases by up to a minute");
+            }
+            out.add(d);
+        }
+        return out;
     }
 
     /** Parses --clip: a number of standard deviations (≥ 3) or none. */
