@@ -264,16 +264,8 @@ public final class FitCommand implements Callable<Integer> {
         List<VelocityData> out = new ArrayList<>();
         for (Path f : velocityFiles) {
             VelocityData d = VelocityFileOptions.read(f, velocityColumns.toReadOptions(null, null, null, null), console());
-            if (d.timeScale().isKnown() && lightCurveScale.isKnown() && !d.timeScale().equals(lightCurveScale)) {
-                throw new BadInputException(f + ": its times are " + d.timeScale().label() + " but the light curve "
-                        + lightCurveFile + " has " + lightCurveScale.label() + "; convert the velocity times to "
-                        + lightCurveScale.label() + " first (the time command)");
-            }
-            if (!d.timeScale().isKnown() || !lightCurveScale.isKnown()) {
-                console().println("note: the time scale of " + (!d.timeScale().isKnown() ? f : lightCurveFile)
-                        + " is unknown, so it cannot be checked against the other's; a mismatch (e.g. HJD_UTC "
-                        + "against BJD_TDB) shifts the velocities' phases by up to a minute");
-            }
+            VelocityFileOptions.checkTimeScale(d, f, lightCurveScale, "the light curve " + lightCurveFile,
+                    lightCurveFile, console());
             out.add(d);
         }
         return out;

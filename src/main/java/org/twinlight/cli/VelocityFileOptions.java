@@ -57,14 +57,24 @@ public final class VelocityFileOptions {
      */
     static void checkTimeScale(VelocityData d, Path velocityFile, TimeScale modelScale, Path modelFile,
             PrintWriter console) {
-        if (d.timeScale().isKnown() && modelScale.isKnown() && !d.timeScale().equals(modelScale)) {
+        checkTimeScale(d, velocityFile, modelScale, modelFile + " (key 'timeScale')", modelFile, console);
+    }
+
+    /**
+     * Refuses velocities on another time scale than {@code otherScale}, the scale of
+     * {@code otherFile} (described as {@code otherDescription} in the message); notes when either is
+     * unknown.
+     */
+    static void checkTimeScale(VelocityData d, Path velocityFile, TimeScale otherScale, String otherDescription,
+            Path otherFile, PrintWriter console) {
+        if (d.timeScale().isKnown() && otherScale.isKnown() && !d.timeScale().equals(otherScale)) {
             throw new BadInputException(velocityFile + ": its times are " + d.timeScale().label() + " but "
-                    + modelFile + " (key 'timeScale') has " + modelScale.label() + "; convert the velocity times "
-                    + "to " + modelScale.label() + " first (the time command), or give --time-scale if the file "
-                    + "is mislabelled");
+                    + otherDescription + " has " + otherScale.label() + "; convert the velocity times "
+                    + "to " + otherScale.label() + " first (the time command), or, if the file is mislabelled, "
+                    + "correct its '# time scale:' line (or give the velocities command --time-scale)");
         }
-        if (!d.timeScale().isKnown() || !modelScale.isKnown()) {
-            console.println("note: the time scale of " + (!d.timeScale().isKnown() ? velocityFile : modelFile)
+        if (!d.timeScale().isKnown() || !otherScale.isKnown()) {
+            console.println("note: the time scale of " + (!d.timeScale().isKnown() ? velocityFile : otherFile)
                     + " is unknown, so it cannot be checked against the other; a mismatch (e.g. HJD_UTC against "
                     + "BJD_TDB) shifts the phases by up to a minute");
         }

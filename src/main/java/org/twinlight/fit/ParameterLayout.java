@@ -105,7 +105,12 @@ final class ParameterLayout {
             addCoefficients(list, "limbDarkening1", band, bp.limbDarkening1());
             addCoefficients(list, "limbDarkening2", band, bp.limbDarkening2());
         }
-        List<FitParameter> marked = new ArrayList<>(markFree(list, freeNames));
+        Set<String> lightCurveNames = new LinkedHashSet<>(freeNames);
+        if (velocities != null) {
+            // the velocity parameters are always free in a joint fit: naming them changes nothing
+            lightCurveNames.removeIf(n -> JointVelocities.MAIN_NAMES.contains(n) || n.startsWith("offset."));
+        }
+        List<FitParameter> marked = new ArrayList<>(markFree(list, lightCurveNames));
         this.velocityBase = velocities == null ? -1 : marked.size();
         if (velocities != null) {
             marked.addAll(velocities.parameters());
