@@ -19,6 +19,7 @@ import org.twinlight.fit.GlobalSearch;
 import org.twinlight.fit.Posterior;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
+import org.twinlight.fit.JointVelocities;
 import org.twinlight.fit.Priors;
 import org.twinlight.fit.NoiseDiagnostics;
 import org.twinlight.fit.NoiseReport;
@@ -30,8 +31,11 @@ import org.twinlight.report.FitPlot;
 import org.twinlight.report.InputDigest;
 import org.twinlight.report.PosteriorFiles;
 import org.twinlight.report.PosteriorPlots;
+import org.twinlight.report.JointFitFiles;
 import org.twinlight.report.ResultSet;
+import org.twinlight.report.VelocityPlot;
 import org.twinlight.time.TimeScale;
+import org.twinlight.velocity.VelocityData;
 import picocli.CommandLine.Command;
 import org.twinlight.sky.Airmass;
 import org.twinlight.sky.Equatorial;
@@ -130,6 +134,13 @@ public final class FitCommand implements Callable<Integer> {
                     + "residual-permutation spread and the error to quote.")
     String inflateErrors;
 
+    @Option(names = "--velocities", paramLabel = "RV.csv",
+            description = "Radial velocities (text or FITS table, as the velocities command reads) fitted jointly with "
+                    + "the light curves: one more data set sharing period, epoch, e and omega; K1, K2, gamma and one "
+                    + "offset per further instrument (or file) are fitted too. Repeat for several files. Their time "
+                    + "scale must be the light curves'. Adds velocities.png.")
+    List<Path> velocityFiles = new ArrayList<>();
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output directory (created if missing).")
     Path out;
 
@@ -139,13 +150,22 @@ public final class FitCommand implements Callable<Integer> {
     @Mixin
     PosteriorOptions sampling;
 
+    @Mixin
+    VelocityColumnOptions velocityColumns;
+
     @Override
     public Integer call() {
         List<Path> inputFiles = new ArrayList<>(files);
         inputFiles.add(model);
-        OutputTargets.checkDirectory(out, sampling.posterior ? List.of("fit.json", "residuals.csv", "model.json",
-                "fit.png", PosteriorFiles.CHAIN_FILE, "trace.png", "corner.png")
-                : List.of("fit.json", "residuals.csv", "model.json", "fit.png"), inputFiles);
+        inputFiles.addAll(velocityFiles);
+        List<String> targets = new ArrayList<>(List.of("fit.json", "residuals.csv", "model.json", "fit.png"));
+        if (sampling.posterior) {
+            targets.addAll(List.of(PosteriorFiles.CHAIN_FILE, "trace.png", "corner.png"));
+        }
+        if (!velocityFiles.isEmpty()) {
+            targets.add("velocities.png");
+        }
+        OutputTargets.checkDirectory(out, targets, inputFiles);
         ModelFile start = ModelFileJson.read(model);
         Priors priors = ModelFileJson.readPriors(model);
         if (!bands.isEmpty() && bands.size() != files.size()) {
@@ -225,7 +245,12 @@ public final class FitCommand implements Callable<Integer> {
                     data.get(i).lightCurve().timesDays(), files.get(i).toString(), model + ": key 'epoch'");
         }
         boolean inflate = inflateErrors(inflateErrors);
-        FitProblem problem = FitProblem.of(start, data, settings, priors);
+        List<VelocityData> velocityData = readVelocities(scale, scaleFrom);
+        JointVelocities joint = velocityData.isEmpty() ? null : JointVelocities.of(velocityData, start.common());
+        if (joint != null) {
+            joint.notes().forEach(n -> console().println("note: " + n));
+        }
+        FitProblem problem = FitProblem.of(start, data, settings, priors, joint);
         int freeCount = (int) problem.parameters().stream().filter(FitParameter::free).count();
         sampling.check(freeCount);
         GlobalSearch.Result search = null;
@@ -264,6 +289,9 @@ public final class FitCommand implements Callable<Integer> {
         if (posterior != null) {
             PosteriorFiles.addTo(doc, posterior);
         }
+        if (joint != null) {
+            JointFitFiles.putVelocities(doc, r, joint, velocityFiles);
+        }
         List<String> bandList = data.stream().map(FitData::band).distinct().toList();
         try (ResultSet set = ResultSet.open(out, "fit")) {
             FitFiles.writeJson(set.file("fit.json"), doc);
@@ -280,18 +308,27 @@ public final class FitCommand implements Callable<Integer> {
                 PosteriorPlots.writeTrace(set.file("trace.png"), posterior, "Posterior of " + files.get(0).getFileName());
                 PosteriorPlots.writeCorner(set.file("corner.png"), posterior, "Posterior of " + files.get(0).getFileName());
             }
+            for (int f = 0; joint != null && f < velocityData.size(); f++) {
+                String name = f == 0 ? "velocities.png" : "velocities-" + safe(baseName(velocityFiles.get(f))) + ".png";
+                VelocityPlot.write(joint.solution(r, f), velocityData.get(f), set.file(name), "Radial velocities of "
+                        + velocityFiles.get(f).getFileName() + ", joint fit with " + files.get(0).getFileName());
+            }
             set.commit();
         }
         console().print(FitFiles.summary(r, scale));
         console().print(FitFiles.noiseSummary(noise, r));
         noise.notes(r).forEach(n -> console().println("note: " + n));
         console().println("caution: " + FitFiles.caution(r.model()));
+        if (joint != null) {
+            console().print(JointFitFiles.summary(r, joint));
+        }
+        String written = "fit.json, residuals.csv, model.json, fit.png" + (joint != null ? ", velocities.png" : "");
         if (posterior == null) {
-            console().println("wrote fit.json, residuals.csv, model.json and fit.png to " + out);
+            console().println("wrote " + written + " to " + out);
             return 0;
         }
         console().print(PosteriorFiles.summary(posterior));
-        console().println("wrote fit.json, residuals.csv, model.json, fit.png, " + PosteriorFiles.CHAIN_FILE
+        console().println("wrote " + written + ", " + PosteriorFiles.CHAIN_FILE
                 + ", trace.png and corner.png to " + out);
         if (!posterior.convergence().converged()) {
             throw new WorkFailedException("the posterior sample has not converged: " + posterior.convergence().reason()
@@ -312,6 +349,22 @@ public final class FitCommand implements Callable<Integer> {
             return false;
         }
         throw new BadInputException("option --inflate-errors: expected beta or none, got '" + text + "'");
+    }
+
+    /**
+     * Reads the --velocities files and checks that their time scale is the light curves'.
+     *
+     * @throws BadInputException naming both files and scales when they differ
+     */
+    private List<VelocityData> readVelocities(TimeScale lightCurveScale, Path lightCurveFile) {
+        List<VelocityData> out = new ArrayList<>();
+        for (Path f : velocityFiles) {
+            VelocityData d = VelocityFileOptions.read(f, velocityColumns.toReadOptions(null, null, null, null), console());
+            VelocityFileOptions.checkTimeScale(d, f, lightCurveScale, "the light curve " + lightCurveFile,
+                    lightCurveFile, console());
+            out.add(d);
+        }
+        return out;
     }
 
     /** Parses --clip: a number of standard deviations (≥ 3) or none. */

@@ -7,6 +7,7 @@ import org.twinlight.time.TimeScale;
 import org.twinlight.velocity.VelocityData;
 import org.twinlight.velocity.VelocityReadOptions;
 import org.twinlight.velocity.VelocityReader;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 
 /** The options of every command that reads a velocity file (a picocli mixin). */
@@ -15,20 +16,8 @@ public final class VelocityFileOptions {
     @Option(names = "--time-column", paramLabel = "NAME|N", description = "Time column of the velocity file, by header name or 1-based number (default: a column named time, bjd, hjd, jd, mjd or date; without a header row, column 1).")
     String timeColumn;
 
-    @Option(names = "--v1-column", paramLabel = "NAME|N", description = "Velocities of star 1, km/s (default: v1, rv1, vr1, vel1, ...; without a header, column 2).")
-    String v1Column;
-
-    @Option(names = "--v1-error-column", paramLabel = "NAME|N", description = "Their 1-sigma errors, km/s (default: the v1 column's _err twin, e_v1, ...; without a header, column 3).")
-    String v1ErrorColumn;
-
-    @Option(names = "--v2-column", paramLabel = "NAME|N", description = "Velocities of star 2, km/s (default: v2, rv2, ...; without a header, column 4).")
-    String v2Column;
-
-    @Option(names = "--v2-error-column", paramLabel = "NAME|N", description = "Their errors, km/s (default: the v2 column's _err twin; without a header, column 5).")
-    String v2ErrorColumn;
-
-    @Option(names = "--instrument-column", paramLabel = "NAME|N", description = "Column naming the instrument of each row; each instrument after the first gets a fitted velocity offset (default: instrument, inst, spectrograph, telescope or site; without a header, column 6).")
-    String instrumentColumn;
+    @Mixin
+    VelocityColumnOptions columns = new VelocityColumnOptions();
 
     @Option(names = "--time-scale", paramLabel = "SCALE", description = "Time scale of the velocity times, e.g. BJD_TDB, HJD_UTC (default: FITS time keywords, a '# time scale:' comment or a header such as BJD_TDB; else unknown).")
     String timeScale;
@@ -42,13 +31,17 @@ public final class VelocityFileOptions {
     /** The options as the library's {@link VelocityReadOptions}. */
     public VelocityReadOptions toReadOptions() {
         TimeScale scale = PhotometryOptions.timeOptions(timeScale, timeOffsetDays, hdu);
-        return new VelocityReadOptions(timeColumn, v1Column, v1ErrorColumn, v2Column, v2ErrorColumn, instrumentColumn,
-                scale, timeOffsetDays, hdu);
+        return columns.toReadOptions(timeColumn, scale, timeOffsetDays, hdu);
     }
 
     /** Reads the file, printing the reader's remarks and the rows not used. */
     public VelocityData read(Path file, PrintWriter console) {
-        VelocityData d = VelocityReader.read(file, toReadOptions());
+        return read(file, toReadOptions(), console);
+    }
+
+    /** Reads a velocity file with the given options, printing the reader's remarks and the rows not used. */
+    static VelocityData read(Path file, VelocityReadOptions options, PrintWriter console) {
+        VelocityData d = VelocityReader.read(file, options);
         d.notes().forEach(n -> console.println("note: " + file + ": " + n));
         if (d.rejectedCount() > 0) {
             console.println(file + ": " + d.rejectedCount() + " row(s) or velocities not used: " + d.rejected());
@@ -64,14 +57,24 @@ public final class VelocityFileOptions {
      */
     static void checkTimeScale(VelocityData d, Path velocityFile, TimeScale modelScale, Path modelFile,
             PrintWriter console) {
-        if (d.timeScale().isKnown() && modelScale.isKnown() && !d.timeScale().equals(modelScale)) {
+        checkTimeScale(d, velocityFile, modelScale, modelFile + " (key 'timeScale')", modelFile, console);
+    }
+
+    /**
+     * Refuses velocities on another time scale than {@code otherScale}, the scale of
+     * {@code otherFile} (described as {@code otherDescription} in the message); notes when either is
+     * unknown.
+     */
+    static void checkTimeScale(VelocityData d, Path velocityFile, TimeScale otherScale, String otherDescription,
+            Path otherFile, PrintWriter console) {
+        if (d.timeScale().isKnown() && otherScale.isKnown() && !d.timeScale().equals(otherScale)) {
             throw new BadInputException(velocityFile + ": its times are " + d.timeScale().label() + " but "
-                    + modelFile + " (key 'timeScale') has " + modelScale.label() + "; convert the velocity times "
-                    + "to " + modelScale.label() + " first (the time command), or give --time-scale if the file "
-                    + "is mislabelled");
+                    + otherDescription + " has " + otherScale.label() + "; convert the velocity times "
+                    + "to " + otherScale.label() + " first (the time command), or, if the file is mislabelled, "
+                    + "correct its '# time scale:' line (or give the velocities command --time-scale)");
         }
-        if (!d.timeScale().isKnown() || !modelScale.isKnown()) {
-            console.println("note: the time scale of " + (!d.timeScale().isKnown() ? velocityFile : modelFile)
+        if (!d.timeScale().isKnown() || !otherScale.isKnown()) {
+            console.println("note: the time scale of " + (!d.timeScale().isKnown() ? velocityFile : otherFile)
                     + " is unknown, so it cannot be checked against the other; a mismatch (e.g. HJD_UTC against "
                     + "BJD_TDB) shifts the phases by up to a minute");
         }

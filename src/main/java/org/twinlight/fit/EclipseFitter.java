@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.RealMatrix;
 import org.apache.commons.math3.linear.SingularValueDecomposition;
@@ -239,7 +240,7 @@ public final class EclipseFitter {
                         + " fitted quantities; fix some parameters or use more data");
             }
             double reducedChi2 = chi2 / dof;
-            boolean estimated = objective.lightCurves().errorsEstimated();
+            boolean estimated = objective.errorsEstimated();
             double varianceScale = FitStatistics.varianceScale(chi2, dof, estimated);
             double[] steps = layout.steps();
             // JᵀJ straight from the Jacobian's columns: no n × k row copies of millions of points
@@ -260,8 +261,10 @@ public final class EclipseFitter {
 
             // Linear uncertainties (pseudo-inverse) only to decide which bounded values need a profile.
             // (when JᵀJ is near singular, as on a fold, every bounded value is profiled)
+            // (in a joint fit the velocity coordinates are scaled up to the light curve's largest diagonal
+            // entry first, so that a few velocities' K beside 20,000 points' radii do not look degenerate)
             SingularValueDecomposition fullSvd = new SingularValueDecomposition(normal);
-            double[] fullSv = fullSvd.getSingularValues();
+            double[] fullSv = new SingularValueDecomposition(velocitiesScaled(normal, layout)).getSingularValues();
             boolean conditioned = fullSv.length > 0 && fullSv[fullSv.length - 1] > fullSv[0] * 1e-10;
             RealMatrix linear = gm.multiply(fullSvd.getSolver().getInverse()).multiply(gm.transpose())
                     .scalarMultiply(varianceScale);
@@ -373,6 +376,44 @@ public final class EclipseFitter {
             return new FitResult(bestModel, params, derived, freeNames, corr, nUsed, freeCount, chi2, reducedChi2,
                     rms, bic, iterations, evaluations + profileFits, estimated, adequacy,
                     new LinkedHashMap<>(clipped), notes, curves);
+        }
+
+        /**
+         * S N S with S diagonal: 1 for the light-curve coordinates, and for each velocity coordinate
+         * the factor that brings its diagonal entry to the largest light-curve one (N itself without
+         * velocities). The light-curve coordinates' conditioning, folds included, is judged as before.
+         */
+        private static RealMatrix velocitiesScaled(RealMatrix n, ParameterLayout layout) {
+            int k = n.getRowDimension();
+            double[] d = new double[k];
+            Arrays.fill(d, 1.0);
+            if (layout.velocities() == null) {
+                return n;
+            }
+            List<String> owners = layout.internalOwners();
+            Set<String> velocityNames = new java.util.HashSet<>();
+            for (int i = layout.velocityBase(); i < layout.externalSize(); i++) {
+                velocityNames.add(layout.parameter(i).name());
+            }
+            double max = 0;
+            for (int i = 0; i < k; i++) {
+                if (!velocityNames.contains(owners.get(i))) {
+                    max = Math.max(max, n.getEntry(i, i));
+                }
+            }
+            for (int i = 0; i < k; i++) {
+                double v = n.getEntry(i, i);
+                if (velocityNames.contains(owners.get(i)) && v > 0 && max > 0) {
+                    d[i] = Math.sqrt(max / v);
+                }
+            }
+            RealMatrix out = n.copy();
+            for (int i = 0; i < k; i++) {
+                for (int j = 0; j < k; j++) {
+                    out.setEntry(i, j, n.getEntry(i, j) * d[i] * d[j]);
+                }
+            }
+            return out;
         }
 
         /**

@@ -6,8 +6,8 @@ import java.util.function.UnaryOperator;
 
 /**
  * The one objective every solver of a fit evaluates: the weighted residuals of its data sets
- * ({@link FitDataSet}: the light curves, with their baselines solved inside; radial velocities
- * would be one more) and its priors ({@link Priors}).
+ * ({@link FitDataSet}: the light curves, with their baselines solved inside, and in a joint fit
+ * the radial velocities, {@link VelocityResiduals}) and its priors ({@link Priors}).
  *
  * <ul>
  * <li>For least squares ({@link LeastSquaresSolver}, the global search): {@link #evaluate(double[])}
@@ -25,6 +25,7 @@ import java.util.function.UnaryOperator;
 public final class FitObjective {
     private final ParameterLayout layout;
     private final WeightedResiduals lightCurves;
+    private final VelocityResiduals velocities;
     private final List<FitDataSet> sets;
     private final PriorTerms priors;
     private final Priors priorValues;
@@ -37,10 +38,26 @@ public final class FitObjective {
     private FitObjective(ParameterLayout layout, WeightedResiduals lightCurves, PriorTerms terms, Priors priors) {
         this.layout = layout;
         this.lightCurves = lightCurves;
-        this.sets = List.of(lightCurves);
+        this.velocities = layout.velocities() == null ? null
+                : new VelocityResiduals(layout.velocities(), layout.velocityBase());
+        this.sets = velocities == null ? List.of(lightCurves) : List.of(lightCurves, velocities);
         this.priors = terms;
         this.priorValues = priors;
         this.size = sets.stream().mapToInt(FitDataSet::size).sum() + terms.residualCount();
+    }
+
+    /**
+     * χ² of every data set at an external vector, the sampler's lean path: the light curves through
+     * their per-thread work arrays, the velocities (a few dozen rows) directly.
+     */
+    double dataChi2(double[] ext, WeightedResiduals.Workspace work) {
+        double s = lightCurves.chi2External(ext, work);
+        if (velocities != null) {
+            double[] r = new double[velocities.size()];
+            velocities.residuals(ext, r, 0);
+            s += sumOfSquares(r, r.length);
+        }
+        return s;
     }
 
     /** The same objective with another layout (a parameter held fixed for a profile). */
@@ -83,6 +100,11 @@ public final class FitObjective {
 
     WeightedResiduals lightCurves() {
         return lightCurves;
+    }
+
+    /** Whether some data's errors were estimated from their scatter (light curves or velocities). */
+    boolean errorsEstimated() {
+        return lightCurves.errorsEstimated() || velocities != null && velocities.errorsEstimated();
     }
 
     /** Every parameter, free and fixed, in the order of the external vector. */

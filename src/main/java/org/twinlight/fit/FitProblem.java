@@ -16,14 +16,17 @@ public final class FitProblem {
     private final FitSettings settings;
     private final FitObjective objective;
     private final Priors priors;
+    private final JointVelocities velocities;
 
-    private FitProblem(ModelFile start, List<FitData> data, FitSettings settings, Priors priors) {
+    private FitProblem(ModelFile start, List<FitData> data, FitSettings settings, Priors priors,
+            JointVelocities velocities) {
         this.start = start;
+        this.velocities = velocities;
         this.data = List.copyOf(data);
         this.settings = settings;
         this.priors = priors;
         List<String> bands = data.stream().map(FitData::band).distinct().toList();
-        ParameterLayout layout = new ParameterLayout(start, bands, settings.free());
+        ParameterLayout layout = new ParameterLayout(start, bands, settings.free(), velocities);
         this.objective = new FitObjective(layout, new WeightedResiduals(layout, data, settings), priors);
     }
 
@@ -44,6 +47,17 @@ public final class FitProblem {
      *     excludes the starting value
      */
     public static FitProblem of(ModelFile start, List<FitData> data, FitSettings settings, Priors priors) {
+        return of(start, data, settings, priors, null);
+    }
+
+    /**
+     * Checks the input and builds a joint problem: the light curves and radial velocities in one
+     * objective, sharing period, epoch, e and ω (null {@code velocities}: light curves alone).
+     *
+     * @throws BadInputException as {@link #of(ModelFile, List, FitSettings, Priors)}
+     */
+    public static FitProblem of(ModelFile start, List<FitData> data, FitSettings settings, Priors priors,
+            JointVelocities velocities) {
         if (data.isEmpty()) {
             throw new IllegalArgumentException("no data to fit");
         }
@@ -59,12 +73,17 @@ public final class FitProblem {
                 }
             }
         }
-        return new FitProblem(start, data, settings, priors);
+        return new FitProblem(start, data, settings, priors, velocities);
     }
 
     /** The same data, settings and priors started from another model (a global search's best minimum). */
     public FitProblem startingFrom(ModelFile other) {
-        return new FitProblem(other, data, settings, priors);
+        return new FitProblem(other, data, settings, priors, velocities);
+    }
+
+    /** The radial velocities of a joint fit, or null. */
+    public JointVelocities velocities() {
+        return velocities;
     }
 
     public ModelFile start() {

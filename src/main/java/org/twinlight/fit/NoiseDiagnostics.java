@@ -209,7 +209,8 @@ public final class NoiseDiagnostics {
         int shifts = Math.min(maxShifts, fewest - 1);
         Map<String, Double> sigma = new LinkedHashMap<>();
         int used = curves.stream().mapToInt(c -> c.size() - c.clippedCount()).sum();
-        if (shifts < 2 || used > MAX_PERMUTED_POINTS) {
+        // a joint fit's velocities are not permuted with the light curve: no permutation spread then
+        if (shifts < 2 || used > MAX_PERMUTED_POINTS || problem.objective().layout().velocities() != null) {
             return new Permutation(sigma, 0);
         }
         FitSettings settings = problem.settings().withClipSigma(Double.NaN);

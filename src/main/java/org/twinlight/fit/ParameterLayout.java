@@ -67,17 +67,28 @@ final class ParameterLayout {
     private final int proximityOffset;
     private final List<String> proximityNames;
     private final int internalSize;
+    /** The velocities of a joint fit, or null. */
+    private final JointVelocities velocities;
+    /** Index of k1 in the external vector (the velocity parameters come last), or −1. */
+    private final int velocityBase;
 
     ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames) {
-        this(start, bands, freeNames, -1);
+        this(start, bands, freeNames, -1, null);
+    }
+
+    /** The layout of a joint fit: the velocity parameters (k1, k2, γ, offsets) follow the bands' ones. */
+    ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames, JointVelocities velocities) {
+        this(start, bands, freeNames, -1, velocities);
     }
 
     /**
      * The layout of a profile: the parameter at {@code fixedIndex} held at its value in {@code start}
      * while the other free parameters move.
      */
-    ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames, int fixedIndex) {
+    ParameterLayout(ModelFile start, List<String> bands, Set<String> freeNames, int fixedIndex,
+            JointVelocities velocities) {
         this.start = start;
+        this.velocities = velocities;
         this.bands = List.copyOf(bands);
         this.bandOffset = new int[bands.size()];
         this.bandStart = new BinaryParameters[bands.size()];
@@ -108,7 +119,16 @@ final class ParameterLayout {
         this.proximityOffset = list.size();
         addProximity(list, c.proximity());
         this.proximityNames = list.subList(proximityOffset, list.size()).stream().map(FitParameter::name).toList();
-        List<FitParameter> marked = new ArrayList<>(markFree(list, freeNames));
+        Set<String> lightCurveNames = new LinkedHashSet<>(freeNames);
+        if (velocities != null) {
+            // the velocity parameters are always free in a joint fit: naming them changes nothing
+            lightCurveNames.removeIf(n -> JointVelocities.MAIN_NAMES.contains(n) || n.startsWith("offset."));
+        }
+        List<FitParameter> marked = new ArrayList<>(markFree(list, lightCurveNames));
+        this.velocityBase = velocities == null ? -1 : marked.size();
+        if (velocities != null) {
+            marked.addAll(velocities.parameters());
+        }
         if (fixedIndex >= 0) {
             marked.set(fixedIndex, marked.get(fixedIndex).withFree(false));
         }
@@ -228,6 +248,11 @@ final class ParameterLayout {
         } else {
             addScaled(OMEGA);
         }
+        if (velocities != null) {
+            for (int i = velocityBase; i < parameters.size(); i++) {
+                addScaled(i);
+            }
+        }
         for (int b = 0; b < bands.size(); b++) {
             int off = bandOffset[b];
             if (isFree(off)) {
@@ -241,7 +266,7 @@ final class ParameterLayout {
                 addScaled(off + 2 + k);
             }
         }
-        for (int i = proximityOffset; i < parameters.size(); i++) {
+        for (int i = proximityOffset; i < proximityOffset + proximityNames.size(); i++) {
             String name = parameters.get(i).name();
             if (!isFree(i)) {
                 continue;
@@ -304,12 +329,25 @@ final class ParameterLayout {
      */
     ParameterLayout fixing(int index, double[] ext) {
         Set<String> names = new LinkedHashSet<>();
-        for (FitParameter p : parameters) {
-            if (p.free()) {
-                names.add(p.name());
+        int end = velocities == null ? parameters.size() : velocityBase;
+        for (int i = 0; i < end; i++) {
+            if (parameters.get(i).free()) {
+                names.add(parameters.get(i).name());
             }
         }
-        return new ParameterLayout(modelFile(ext), bands, names, index);
+        JointVelocities v = velocities == null ? null
+                : velocities.startingAt(Arrays.copyOfRange(ext, velocityBase, parameters.size()));
+        return new ParameterLayout(modelFile(ext), bands, names, index, v);
+    }
+
+    /** The velocities of a joint fit, or null. */
+    JointVelocities velocities() {
+        return velocities;
+    }
+
+    /** Index of k1 in the external vector, −1 without velocities. */
+    int velocityBase() {
+        return velocityBase;
     }
 
     /** The same parameters, free and fixed alike, started from the external vector {@code ext}. */
@@ -385,7 +423,7 @@ final class ParameterLayout {
                 changed = true;
             }
         }
-        for (int i = proximityOffset; i < ext.length; i++) {
+        for (int i = proximityOffset; i < proximityOffset + proximityNames.size(); i++) {
             if (parameters.get(i).name().startsWith("reflection.") && ext[i] > 1) {
                 ext[i] = 1;
                 changed = true;

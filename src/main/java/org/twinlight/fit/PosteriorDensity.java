@@ -5,7 +5,7 @@ import org.twinlight.sampling.LogDensity;
 /**
  * The log posterior in the sampled coordinates, evaluated on the fit's one objective
  * ({@link FitObjective}): its log prior (the model file's priors, the model's domain), plus
- * ln L = −χ² / (2 s) with the baselines solved inside and s the least-squares fit's reduced χ² (the
+ * ln L = −χ² / (2 s) over every data set (light curves with their baselines solved inside, velocities) and s the least-squares fit's reduced χ² (the
  * fit's own error-scaling rule: the errors are scaled so that the best model has χ²ν = 1). The
  * default prior is uniform in the sampled coordinates ({@link SampledCoordinates}). One instance
  * per thread: it keeps its own work arrays.
@@ -35,6 +35,6 @@ final class PosteriorDensity implements LogDensity {
         if (lp == Double.NEGATIVE_INFINITY) {
             return lp;
         }
-        return lp - 0.5 * objective.lightCurves().chi2External(ext, work) / chi2Scale;
+        return lp - 0.5 * objective.dataChi2(ext, work) / chi2Scale;
     }
 }

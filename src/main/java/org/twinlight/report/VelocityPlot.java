@@ -32,7 +32,11 @@ public final class VelocityPlot {
     }
 
     public static void write(VelocityFitResult r, VelocityData data, Path target, String title) {
-        VelocityParameters p = r.best();
+        write(r.best(), data, target, title);
+    }
+
+    /** The plot of {@code data} against the model {@code p} (e.g. the velocities of a joint fit's solution). */
+    public static void write(VelocityParameters p, VelocityData data, Path target, String title) {
         VelocityModel.Residuals res = VelocityModel.residuals(data, p);
         XYChart top = chart(WIDTH, 460, title, null, "radial velocity (km/s)");
         XYChart bottom = chart(WIDTH, 260, null, "orbital phase (0 = primary eclipse)", "observed - model (km/s)");
