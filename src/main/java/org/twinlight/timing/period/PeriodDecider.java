@@ -130,6 +130,22 @@ final class PeriodDecider {
                     sec);
         }
         if (sec.found()) {
+            SecondaryEclipse atHalf = thirdEclipse(data, ps, sec, durations);
+            if (atHalf != null) {
+                evidence.add(sec.describe(p));
+                evidence.add(atHalf.describe(p / 2) + String.format(Locale.ROOT, ", that is at phases %.3f and %.3f"
+                        + " of P = %.8g d, clear of both eclipses there: folded at P = %.8g d the data show more than"
+                        + " two eclipses, which one orbit of two stars cannot make, so the orbit is P/2 = %.8g d with"
+                        + " two different eclipses unless the coherence test excluding it is right", 0.5
+                        * atHalf.secondaryPhase(), 0.5 * atHalf.secondaryPhase() + 0.5, p, p, p / 2));
+                List<String> settle = List.of(String.format(Locale.ROOT, "observe more cycles (the eclipse at phase"
+                        + " 0.5 of P = %.8g d is %s): if P/2 = %.8g d is right, the eclipses at phases 0 and 0.5 of P"
+                        + " are the same eclipse, with the same depth, width and time; if not, they differ", p,
+                        when(nextPhase(ps.epochDays(), p, 0.5, lastTime)), p / 2));
+                edgeNotes(range, p / 2, List.of(p), notes);
+                return new Outcome(PeriodDecision.ambiguous(p / 2, List.of(p), evidence, settle, notes), shortest,
+                        null, sec);
+            }
             evidence.add(sec.describe(p) + ", so P is the orbital period (2P would need four eclipses an orbit)");
             edgeNotes(range, p, List.of(), notes);
             return new Outcome(PeriodDecision.confident(p, evidence, notes), shortest, null, sec);
@@ -173,6 +189,38 @@ final class PeriodDecider {
                         p));
         edgeNotes(range, 2 * p, List.of(p), notes);
         return new Outcome(PeriodDecision.ambiguous(2 * p, List.of(p), evidence, settle, notes), shortest, oe, sec);
+    }
+
+    /**
+     * A second eclipse of the data folded at P/2 that lies, in the fold at P, clear of both the primary and
+     * the secondary found there; null when there is none. Two stars make at most two eclipses an orbit: a
+     * third one at P means P is not the orbital period, and eclipses at phases 0, ¼, ½ and ¾ of P are the
+     * two eclipses of P/2 seen twice. This happens when P/2 was excluded by the coherence test only because
+     * of how the cadence falls on it (with two or three cycles covered, the points of the cycles land on
+     * nearly the same phases at P and half a cadence apart at P/2, and the slope of a steep eclipse across
+     * a phase bin counts as dispersion).
+     */
+    static SecondaryEclipse thirdEclipse(SearchData data, RefinedPeriod ps, SecondaryEclipse sec,
+            double[] durations) {
+        double p = ps.periodDays();
+        if (p / 2 < data.resolutionDays() * 4) {
+            return null;
+        }
+        SecondaryEclipse half = SecondaryEclipse.find(data, p / 2, ps.epochDays(),
+                Math.min(0.5, 2 * ps.widthPhase()), durations);
+        if (!half.found()) {
+            return null;
+        }
+        double secPhase = sec.secondaryPhase();
+        double halfWidthAtP = 0.5 * (sec.secondary().width() + 0.5 * half.secondary().width());
+        double primaryWidthAtP = 0.5 * (sec.primary().width() + 0.5 * half.secondary().width());
+        for (double phaseAtP : new double[] {0.5 * half.secondaryPhase(), 0.5 * half.secondaryPhase() + 0.5}) {
+            if (FoldedEclipses.distance(phaseAtP, secPhase) < halfWidthAtP
+                    || FoldedEclipses.distance(phaseAtP, 0) < primaryWidthAtP) {
+                return null;
+            }
+        }
+        return half;
     }
 
     /** The smallest m ≤ 12 with ratio ≈ n/m for an integer n (relative tolerance), else 0. */

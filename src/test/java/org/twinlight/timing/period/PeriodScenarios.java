@@ -166,6 +166,23 @@ public final class PeriodScenarios {
         return new Case("long-no-half", observe(p, t, 2000, seed, "long-no-half"), period);
     }
 
+    /**
+     * A detached pair with clearly different eclipses (r1 0.13, r2 0.10, i 88.5°, surface brightness ratio
+     * 0.6: primary about 0.46 deep, secondary about 0.26, both fully seen) over a short run that covers
+     * only two to five cycles: {@code days} at {@code cadenceMinutes}, 1500 ppm. Space-like runs are
+     * continuous; ground-like ones keep 8-hour nights (the first third of each day).
+     */
+    public static Case shortUnequal(long seed, double periodDays, double days, double cadenceMinutes,
+            boolean groundNights) {
+        BinaryParameters p = binary(periodDays, 0.13, 0.10, 88.5, 0, 90, 0.6);
+        double[] t = regular(days, cadenceMinutes);
+        if (groundNights) {
+            t = java.util.Arrays.stream(t).filter(x -> x - START - Math.floor(x - START) < 1.0 / 3).toArray();
+        }
+        String name = groundNights ? "short-unequal-ground" : "short-unequal";
+        return new Case(name, observe(p, t, 1500, seed, name), periodDays);
+    }
+
     /** A close pair at P = 0.1234 d (below the default floor of 0.2 d), 27 d at 2 minutes, 1500 ppm. */
     public static Case nearFloor(long seed) {
         BinaryParameters p = binary(0.1234, 0.30, 0.22, 84.0, 0, 90, 0.55);
