@@ -157,11 +157,13 @@ final class MultiStartFit {
         }
         List<String> notes = new ArrayList<>(rivals(trials, best));
         ModelFile from = best.end();
+        long searchStart = System.nanoTime();
         try {
             GlobalSearch.Result search = GlobalSearch.run(FitProblem.of(best.end(), thinned, trialSettings));
             from = search.best().start();
-            sink.accept(String.format(Locale.ROOT, "  global search: %d starts, %d distinct minim%s", search.starts(),
-                    search.minima().size(), search.minima().size() == 1 ? "um" : "a"));
+            sink.accept(String.format(Locale.ROOT, "  global search: %d starts, %d distinct minim%s (%.1f s)",
+                    search.starts(), search.minima().size(), search.minima().size() == 1 ? "um" : "a",
+                    (System.nanoTime() - searchStart) / 1e9));
             notes.addAll(search.notes());
         } catch (WorkFailedException e) {
             sink.accept("  global search: " + firstSentence(e.getMessage()) + "; the best start is refined");
