@@ -117,4 +117,20 @@ class JointFitCommandTest {
         assertThat(json.get("notes").toString()).contains("K2 is held fixed");
         assertThat(fit.out()).contains("k2: not determined");
     }
+
+    @Test
+    void jointFitCanBeSampled() throws Exception {
+        Path[] in = lightCurveAndStart();
+        Path rv = velocities("rv.csv", "BJD_TDB", true);
+        Path out = dir.resolve("joint-posterior");
+        Run fit = run("fit", in[0].toString(), "--model", in[1].toString(), "--free",
+                "epoch,radius1,radius2,inclination", "--velocities", rv.toString(), "--posterior", "--max-steps", "60",
+                "--out", out.toString());
+        // 60 steps cannot converge: the files are written and the run says so with exit 1, never an internal error
+        assertThat(fit.err()).doesNotContain("internal error");
+        assertThat(fit.code()).as(fit.err()).isIn(0, 1);
+        JsonNode json = new ObjectMapper().readTree(out.resolve("fit.json").toFile());
+        assertThat(json.path("posterior").has("k1")).as(json.path("posterior").toString()).isTrue();
+        assertThat(json.path("posterior").path("k1").path("median").asDouble()).isBetween(K1 - 5, K1 + 5);
+    }
 }
