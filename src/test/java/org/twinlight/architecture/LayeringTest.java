@@ -84,17 +84,6 @@ class LayeringTest {
     }
 
     @Test
-    void statisticsDependsOnNoOtherTwinlightPackage() {
-        // the covariance and error-scaling rule shared by the light-curve, O−C and velocity fits
-        noClasses().that().resideInAPackage("org.twinlight.statistics..")
-                .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.time..",
-                        "org.twinlight.orbit..", "org.twinlight.eclipse..", "org.twinlight.fit..",
-                        "org.twinlight.timing..", "org.twinlight.dimensions..", "org.twinlight.velocity..",
-                        "org.twinlight.sky..", "org.twinlight.planning..", "com.fasterxml.jackson..", "java.nio.file..")
-                .check(classes);
-    }
-
-    @Test
     void batchDoesNotUseCommandLine() {
         // the batch's unit of work runs unchanged on a cluster engine: no picocli, no terminal options
         noClasses().that().resideInAPackage("org.twinlight.batch..")
@@ -164,14 +153,19 @@ class LayeringTest {
     }
 
     @Test
-    void samplingKnowsOnlyDensities() {
-        // the sampler sees a density as a function of a vector; the fit adapts itself to it
-        noClasses().that().resideInAPackage("org.twinlight.sampling..")
+    void statisticsAndSamplingDependOnNoOtherTwinlightPackage() {
+        // statistics: the covariance and error-scaling rule shared by the light-curve, O−C and velocity
+        // fits; sampling: the sampler sees a density as a function of a vector, the fit adapts itself to it
+        noClasses().that().resideInAnyPackage("org.twinlight.statistics..", "org.twinlight.sampling..")
                 .should().dependOnClassesThat().resideInAnyPackage("org.twinlight.photometry..", "org.twinlight.time..",
                         "org.twinlight.orbit..", "org.twinlight.eclipse..", "org.twinlight.fit..",
                         "org.twinlight.timing..", "org.twinlight.dimensions..", "org.twinlight.velocity..",
                         "org.twinlight.sky..", "org.twinlight.planning..", "com.fasterxml.jackson..", "java.nio.file..")
                 .check(classes);
+        noClasses().that().resideInAPackage("org.twinlight.statistics..")
+                .should().dependOnClassesThat().resideInAPackage("org.twinlight.sampling..").check(classes);
+        noClasses().that().resideInAPackage("org.twinlight.sampling..")
+                .should().dependOnClassesThat().resideInAPackage("org.twinlight.statistics..").check(classes);
     }
 
     @Test
