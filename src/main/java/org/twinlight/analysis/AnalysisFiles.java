@@ -25,6 +25,7 @@ import org.twinlight.BadInputException;
 import org.twinlight.WorkFailedException;
 import org.twinlight.fit.Estimate;
 import org.twinlight.fit.FitResult;
+import org.twinlight.fit.NoiseReport;
 import org.twinlight.photometry.LightCurveSummary;
 import org.twinlight.report.AtomicFiles;
 import org.twinlight.report.EphemerisJson;
@@ -143,21 +144,28 @@ final class AnalysisFiles {
             return "The analysis stopped at the " + st.failedStage + ": " + st.failure;
         }
         FitResult r = st.fit.result();
-        String head = String.format(Locale.ROOT, "P = %s d, r1 = %s, r2 = %s, i = %s deg (chi2/nu = %.2f)",
-                AnalysisReport.withError(r.get("period")), AnalysisReport.withError(r.get("radius1")),
-                AnalysisReport.withError(r.get("radius2")), AnalysisReport.withError(r.get("inclination")),
-                r.reducedChi2());
+        Map<String, AnalysisOutcome.Value> key = keyResults(st);
+        String head = String.format(Locale.ROOT, "P = %s d, r1 = %s, r2 = %s, i = %s deg (chi2/nu = %.2f; errors "
+                + "as quoted: the larger of covariance x max(1, beta) and the residual permutation)",
+                withError(key.get("period")), withError(key.get("radius1")), withError(key.get("radius2")),
+                withError(key.get("inclination")), r.reducedChi2());
         return st.doubts.isEmpty() ? "Done: " + head + "."
                 : "Results with a doubt: " + head + ". " + String.join(" ", st.doubts);
     }
 
+    private static String withError(AnalysisOutcome.Value v) {
+        return AnalysisReport.withError(v.value(), v.uncertainty());
+    }
+
+    /** The key results with the errors to quote (correlated noise allowed for: {@link NoiseReport#quoted}). */
     private static Map<String, AnalysisOutcome.Value> keyResults(AnalysisState st) {
         Map<String, AnalysisOutcome.Value> m = new LinkedHashMap<>();
         if (st.fit != null) {
             for (String name : KEY_NAMES) {
                 Estimate e = st.fit.result().get(name);
-                m.put(name, new AnalysisOutcome.Value(e.value(), e.free() || e.uncertainty() > 0 ? e.uncertainty()
-                        : Double.NaN));
+                double sigma = e.free() ? st.fit.noise().quoted(name, e.uncertainty())
+                        : e.uncertainty() > 0 ? e.uncertainty() : Double.NaN;
+                m.put(name, new AnalysisOutcome.Value(e.value(), sigma));
             }
             m.put("reducedChi2", new AnalysisOutcome.Value(st.fit.result().reducedChi2(), Double.NaN));
         } else if (st.ephemeris != null) {
@@ -218,7 +226,10 @@ final class AnalysisFiles {
         ArrayNode notes = (ArrayNode) doc.get("notes");
         st.estimates.forEach((band, e) -> notes.add((st.estimates.size() > 1 ? "band " + band + ": " : "")
                 + e.describe()));
-        st.fit.notes().forEach(notes::add);
+        FitFiles.putNoise(doc, st.fit.noise(), r);
+        List<String> present = new ArrayList<>();
+        notes.forEach(n -> present.add(n.asText()));
+        st.fit.notes().stream().filter(n -> !present.contains(n)).forEach(notes::add);
         FitFiles.writeJson(set.file("fit.json"), doc);
         FitFiles.writeResiduals(set.file("residuals.csv"), r, st.timeScale);
         FitFiles.writeJson(set.file("model.json"), ModelFileJson.toJson(r.model()));

@@ -16,6 +16,8 @@ import org.twinlight.fit.FitProblem;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
 import org.twinlight.fit.GlobalSearch;
+import org.twinlight.fit.NoiseDiagnostics;
+import org.twinlight.fit.NoiseReport;
 import org.twinlight.fit.StartingValues;
 import org.twinlight.photometry.LightCurve;
 
@@ -25,7 +27,8 @@ import org.twinlight.photometry.LightCurve;
  * the data (every point in eclipse, a sample of the rest); from the lowest χ² the fit's global
  * search ({@link GlobalSearch}: a Latin-hypercube multistart over the free parameters' ranges, and
  * the radii swapped) runs on the same thinned copy, and its best minimum is refined on all the data
- * with the requested settings. Competing minima (Δχ² &lt; 9 on the thinned data, which keeps every
+ * with the requested settings, followed by the correlated-noise diagnostics every fit gets
+ * ({@link NoiseDiagnostics}). Competing minima (Δχ² &lt; 9 on the thinned data, which keeps every
  * point in eclipse) are named in the notes.
  */
 final class MultiStartFit {
@@ -65,9 +68,10 @@ final class MultiStartFit {
      * @param result the fit on all the data
      * @param trials every start and where it ended, in the order tried
      * @param thinnedPoints points of the thinned copy
-     * @param notes remarks (rival minima)
+     * @param notes remarks (rival minima, correlated noise)
+     * @param noise the correlated-noise diagnostics of the fit (β, residual permutation, the error to quote)
      */
-    record Outcome(FitResult result, List<Trial> trials, int thinnedPoints, List<String> notes) {
+    record Outcome(FitResult result, List<Trial> trials, int thinnedPoints, List<String> notes, NoiseReport noise) {
     }
 
     /**
@@ -168,8 +172,11 @@ final class MultiStartFit {
         } catch (WorkFailedException e) {
             sink.accept("  global search: " + firstSentence(e.getMessage()) + "; the best start is refined");
         }
-        FitResult result = EclipseFitter.fit(from, data, settings);
-        return new Outcome(result, trials, thinnedPoints, List.copyOf(notes));
+        FitProblem problem = FitProblem.of(from, data, settings);
+        FitResult result = EclipseFitter.optimize(problem);
+        NoiseReport noise = NoiseDiagnostics.of(problem, result);
+        notes.addAll(noise.notes(result));
+        return new Outcome(result, trials, thinnedPoints, List.copyOf(notes), noise);
     }
 
     /** The first sentence of a message (the solver's messages go on with its coordinates). */
