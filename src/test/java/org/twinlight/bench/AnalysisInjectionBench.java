@@ -45,10 +45,10 @@ public final class AnalysisInjectionBench {
                     continue;
                 }
                 ok++;
-                JsonNode p = json.readTree(dir.resolve("fit.json").toFile()).path("parameters");
+                // the errors the analysis tells the user to quote (correlated noise allowed for)
                 for (int k = 0; k < NAMES.length; k++) {
-                    pulls[k][ok - 1] = (p.path(NAMES[k]).path("value").asDouble() - truths[k])
-                            / p.path(NAMES[k]).path("uncertainty").asDouble();
+                    AnalysisOutcome.Value v = o.keyResults().get(NAMES[k]);
+                    pulls[k][ok - 1] = (v.value() - truths[k]) / v.uncertainty();
                 }
             }
             System.out.printf(Locale.ROOT, "%s: %d of %d runs exit 0%n", kind, ok, seeds);
