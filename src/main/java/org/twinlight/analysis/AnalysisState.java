@@ -62,6 +62,8 @@ final class AnalysisState {
     org.twinlight.fit.FitProblem problem;
     /** The posterior sample, null when not sampled. */
     org.twinlight.fit.Posterior posterior;
+    /** The absolute dimensions, null when not computed. */
+    org.twinlight.report.DimensionsFromFit.Outcome dimensions;
 
     /** Why the run stopped (null when it did not), with the stage. */
     String failure;

@@ -27,8 +27,11 @@ import picocli.CommandLine.Spec;
             "Writes report.html (one page, plots embedded), results.json (every number of the page), "
                 + "settings-used.json (run it again with --settings to repeat the run) and the files of each "
                 + "stage (period.json, periodogram.png, minima.csv, ephemeris.json, o-c.png, fit.json, fit.png, "
-                + "residuals.csv, model.json). Exit 1 with a report that explains when the data cannot give an "
-                + "answer (no eclipses, one eclipse only, no significant period) or the period is ambiguous.",
+                + "residuals.csv, model.json; with --posterior chain.csv.gz, trace.png, corner.png; with "
+                + "--velocities velocities.png; with --velocities or --k1 --k2 dimensions.json, dimensions.txt, "
+                + "mass-radius.png and, with --teff1, mass-luminosity.png). Exit 1 with a report that explains when the data cannot give an "
+                + "answer (no eclipses, one eclipse only, no significant period), the period is ambiguous, or the "
+                + "posterior sample has not converged.",
             "Every option can also be given in a settings file (docs/analyse.md); options win over the file."})
 public final class AnalyseCommand implements Callable<Integer> {
 
@@ -95,8 +98,46 @@ public final class AnalyseCommand implements Callable<Integer> {
     @Option(names = "--supersample", paramLabel = "N", description = "Sub-exposures per exposure (default: one per 2 minutes of exposure).")
     Integer supersample;
 
-    @Option(names = "--seed", paramLabel = "S", description = "Seed of the random draws (default 1).")
-    Long seed;
+    @Option(names = "--velocities", paramLabel = "RV.csv",
+            description = "Radial velocities of both stars (repeatable, e.g. one file per instrument): after the "
+                    + "light-curve fit, the light curves and velocities are fitted together (as fit --velocities), "
+                    + "then the absolute dimensions are computed from that fit.")
+    List<Path> velocities;
+
+    @Option(names = "--k1", paramLabel = "KMS", description = "K1 in km/s, instead of --velocities: the dimensions "
+            + "from the light-curve fit and the K given.")
+    Double k1;
+
+    @Option(names = "--k1-error", paramLabel = "KMS", description = "1-sigma error of --k1 (default 0: mass errors "
+            + "are then understated).")
+    Double k1Error;
+
+    @Option(names = "--k2", paramLabel = "KMS", description = "K2 in km/s, with --k1.")
+    Double k2;
+
+    @Option(names = "--k2-error", paramLabel = "KMS", description = "1-sigma error of --k2.")
+    Double k2Error;
+
+    @Option(names = "--teff1", paramLabel = "K", description = "Effective temperature of star 1 (the star eclipsed "
+            + "at primary eclipse): luminosities with the dimensions.")
+    Double teff1;
+
+    @Option(names = "--teff1-error", paramLabel = "K", description = "Its 1-sigma error.")
+    Double teff1Error;
+
+    @Option(names = "--teff2", paramLabel = "K", description = "Effective temperature of star 2 (default: Teff1 "
+            + "times the fourth root of the fitted surface-brightness ratio, an approximation).")
+    Double teff2;
+
+    @Option(names = "--teff2-error", paramLabel = "K", description = "Its 1-sigma error.")
+    Double teff2Error;
+
+    @Option(names = "--draws", paramLabel = "N", description = "Draws of the dimensions' error propagation "
+            + "(default 10000).")
+    Integer draws;
+
+    @Mixin
+    PosteriorOptions sampling;
 
     @Mixin
     PhotometryOptions photometry;
@@ -159,7 +200,22 @@ public final class AnalyseCommand implements Callable<Integer> {
         m.put("starts", starts);
         m.put("exposureTime", exposureTime);
         m.put("supersample", supersample);
-        m.put("seed", seed);
+        m.put("seed", sampling.seed);
+        m.put("posterior", sampling.posterior ? Boolean.TRUE : null);
+        m.put("maxSteps", sampling.maxSteps);
+        m.put("walkers", sampling.walkers);
+        m.put("threads", sampling.threads);
+        m.put("velocities", velocities == null ? null : velocities.stream()
+                .map(f -> f.toAbsolutePath().normalize().toString()).toList());
+        m.put("k1", k1);
+        m.put("k1Error", k1Error);
+        m.put("k2", k2);
+        m.put("k2Error", k2Error);
+        m.put("teff1", teff1);
+        m.put("teff1Error", teff1Error);
+        m.put("teff2", teff2);
+        m.put("teff2Error", teff2Error);
+        m.put("draws", draws);
         return m;
     }
 }
