@@ -188,4 +188,37 @@ class AnalyseAfterFitTest {
         assertThat(both.err()).contains("not both");
         assertThat(out.resolve("report.html")).doesNotExist();
     }
+    @Test
+    void batchRowsWithVelocitiesOrSemiAmplitudesPutTheMassesInTheSummary() throws Exception {
+        Path folder = Files.createDirectories(dir.resolve("survey"));
+        Files.copy(lightCurve, folder.resolve("lc.csv"));
+        Files.copy(rv, folder.resolve("rv.csv"));
+        Files.copy(start, folder.resolve("start.json"));
+        Files.writeString(folder.resolve("quick.json"), "{\"starts\": 1, \"free\": [\"" + FREE.replace(",", "\", \"")
+                + "\"], \"draws\": 500}");
+        Path manifest = Files.writeString(folder.resolve("targets.csv"), String.format(Locale.ROOT, """
+                file,label,period,model,settings,velocities,k1,k2
+                lc.csv,joint,%s,start.json,quick.json,rv.csv,,
+                lc.csv,given,%s,start.json,quick.json,,62,85
+                lc.csv,none,%s,start.json,quick.json,,,
+                """, PERIOD, PERIOD, PERIOD));
+        Path out = dir.resolve("batch");
+        Run r = run("batch", manifest.toString(), "--out", out.toString(), "--threads", "1");
+        assertThat(r.code()).as(r.out() + r.err()).isZero();
+        List<String> lines = Files.readAllLines(out.resolve("summary.csv")).stream().filter(l -> !l.startsWith("#"))
+                .toList();
+        List<String> header = List.of(lines.get(0).split(","));
+        assertThat(header).contains("mass1", "mass1_uncertainty", "mass2", "radius1Rsun", "radius2Rsun_uncertainty");
+        int mass1 = header.indexOf("mass1");
+        for (String line : lines.subList(1, lines.size())) {
+            // the message cell is quoted and may hold commas: count from the end of the row
+            String[] cells = line.split(",", -1);
+            String value = cells[cells.length - header.size() + mass1];
+            if (line.startsWith("none,")) {
+                assertThat(value).as(line).isEmpty();
+            } else {
+                assertThat(Double.parseDouble(value)).as(line).isBetween(0.9 * trueMass(1), 1.1 * trueMass(1));
+            }
+        }
+    }
 }
