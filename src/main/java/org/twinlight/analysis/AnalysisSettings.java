@@ -40,8 +40,8 @@ import org.twinlight.time.TimeScale;
  * @param limbDarkening2 limb darkening of star 2
  * @param exposureTimeDays exposure time for smearing, days (null: the median spacing of the points)
  * @param supersample sub-exposures per exposure (null: one per 2 minutes of exposure, at least 1)
- * @param seed seed of every random draw (the bootstrap of the times of minimum, the posterior sampler
- *     and the draws of the dimensions)
+ * @param seed seed of every random draw (the bootstrap of the times of minimum, the global search, the
+ *     posterior sampler and the draws of the dimensions)
  * @param afterFit the stages after the fit: posterior, joint fit with velocities, dimensions
  */
 public record AnalysisSettings(List<String> files, String label, List<String> bands, String timeScale,

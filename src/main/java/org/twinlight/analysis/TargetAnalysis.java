@@ -294,7 +294,7 @@ public final class TargetAnalysis {
                 Math.max(0, s.starts() - starts.size())));
         StartingValues first = st.estimates.values().iterator().next();
         sink.accept("fit from " + starts.size() + " start(s) ...");
-        st.fit = MultiStartFit.fit(starts, data, st.fitSettings, 0.5 * first.primaryWidth(), sink);
+        st.fit = MultiStartFit.fit(starts, data, st.fitSettings, 0.5 * first.primaryWidth(), sink, s.seed());
         sink.accept(String.format(Locale.ROOT, "fit: χ²ν = %.3f, rms %.0f ppm, %d points", st.fit.result()
                 .reducedChi2(), st.fit.result().rms() * 1e6, st.fit.result().n()));
         if (!st.fit.result().adequacy().describesData()) {

@@ -104,37 +104,8 @@ public final class AnalyseCommand implements Callable<Integer> {
                     + "then the absolute dimensions are computed from that fit.")
     List<Path> velocities;
 
-    @Option(names = "--k1", paramLabel = "KMS", description = "K1 in km/s, instead of --velocities: the dimensions "
-            + "from the light-curve fit and the K given.")
-    Double k1;
-
-    @Option(names = "--k1-error", paramLabel = "KMS", description = "1-sigma error of --k1 (default 0: mass errors "
-            + "are then understated).")
-    Double k1Error;
-
-    @Option(names = "--k2", paramLabel = "KMS", description = "K2 in km/s, with --k1.")
-    Double k2;
-
-    @Option(names = "--k2-error", paramLabel = "KMS", description = "1-sigma error of --k2.")
-    Double k2Error;
-
-    @Option(names = "--teff1", paramLabel = "K", description = "Effective temperature of star 1 (the star eclipsed "
-            + "at primary eclipse): luminosities with the dimensions.")
-    Double teff1;
-
-    @Option(names = "--teff1-error", paramLabel = "K", description = "Its 1-sigma error.")
-    Double teff1Error;
-
-    @Option(names = "--teff2", paramLabel = "K", description = "Effective temperature of star 2 (default: Teff1 "
-            + "times the fourth root of the fitted surface-brightness ratio, an approximation).")
-    Double teff2;
-
-    @Option(names = "--teff2-error", paramLabel = "K", description = "Its 1-sigma error.")
-    Double teff2Error;
-
-    @Option(names = "--draws", paramLabel = "N", description = "Draws of the dimensions' error propagation "
-            + "(default 10000).")
-    Integer draws;
+    @Mixin
+    DimensionsOptions dimensions;
 
     @Mixin
     PosteriorOptions sampling;
@@ -207,15 +178,7 @@ public final class AnalyseCommand implements Callable<Integer> {
         m.put("threads", sampling.threads);
         m.put("velocities", velocities == null ? null : velocities.stream()
                 .map(f -> f.toAbsolutePath().normalize().toString()).toList());
-        m.put("k1", k1);
-        m.put("k1Error", k1Error);
-        m.put("k2", k2);
-        m.put("k2Error", k2Error);
-        m.put("teff1", teff1);
-        m.put("teff1Error", teff1Error);
-        m.put("teff2", teff2);
-        m.put("teff2Error", teff2Error);
-        m.put("draws", draws);
+        m.putAll(dimensions.settingsEntries());
         return m;
     }
 }

@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.twinlight.BadInputException;
+import org.twinlight.analysis.AfterFitSettings;
 import org.twinlight.dimensions.DimensionsPropagation;
 import org.twinlight.report.DimensionsFromFit;
 import org.twinlight.report.FitJsonInput;
@@ -42,37 +43,12 @@ public final class DimensionsCommand implements Callable<Integer> {
                     + "period, e and omega, so their errors carry the orbit's.")
     Path velocities;
 
-    @Option(names = "--k1", paramLabel = "KMS", description = "K1 in km/s, instead of --velocities.")
-    Double k1;
-
-    @Option(names = "--k1-error", paramLabel = "KMS", description = "1-sigma error of --k1 (default 0: mass errors are then understated).")
-    double k1Error;
-
-    @Option(names = "--k2", paramLabel = "KMS", description = "K2 in km/s, instead of --velocities.")
-    Double k2;
-
-    @Option(names = "--k2-error", paramLabel = "KMS", description = "1-sigma error of --k2.")
-    double k2Error;
-
-    @Option(names = "--teff1", paramLabel = "K", description = "Effective temperature of star 1 (the star eclipsed at primary eclipse).")
-    Double teff1;
-
-    @Option(names = "--teff1-error", paramLabel = "K", description = "Its 1-sigma error.")
-    double teff1Error;
-
-    @Option(names = "--teff2", paramLabel = "K", description = "Effective temperature of star 2 (default: Teff1 times the fourth root of the fitted surface-brightness ratio, an approximation).")
-    Double teff2;
-
-    @Option(names = "--teff2-error", paramLabel = "K", description = "Its 1-sigma error.")
-    double teff2Error;
+    @Mixin
+    DimensionsOptions given;
 
     @Option(names = "--jitter", paramLabel = "KMS|fit", defaultValue = "0",
             description = "With --velocities: extra velocity scatter in km/s, or 'fit' (default: ${DEFAULT-VALUE}).")
     String jitter;
-
-    @Option(names = "--draws", paramLabel = "N", defaultValue = "10000",
-            description = "Number of draws for the error propagation (default: ${DEFAULT-VALUE}).")
-    int draws;
 
     @Option(names = "--allow-unconverged", description = "Use the posterior chain of fit.json even when the "
             + "sampler judged it unconverged (its errors may then be too small; the outputs say so).")
@@ -103,7 +79,7 @@ public final class DimensionsCommand implements Callable<Integer> {
             OptionChecks.plainText("--object", object);
         }
         FitJsonInput lc = FitJsonInput.read(fit);
-        boolean fittedK = velocities == null && k1 == null && k2 == null;
+        boolean fittedK = velocities == null && given.k1 == null && given.k2 == null;
         DimensionsFromFit.Elements el = DimensionsFromFit.elements(lc, fit.toString(), fittedK, allowUnconverged);
         if (fittedK && !el.semiAmplitudesFitted()) {
             throw new BadInputException("K1 and K2 are needed: give --velocities RV.csv, or --k1 and --k2 (km/s), or "
@@ -115,10 +91,12 @@ public final class DimensionsCommand implements Callable<Integer> {
         } else if (fittedK) {
             k = DimensionsFromFit.SemiAmplitudes.fitted(el, "named in " + fit);
         } else {
-            k = DimensionsFromFit.SemiAmplitudes.given(k1, k1Error, k2, k2Error, el);
+            k = DimensionsFromFit.SemiAmplitudes.given(given.k1, DimensionsOptions.orZero(given.k1Error), given.k2,
+                    DimensionsOptions.orZero(given.k2Error), el);
         }
         DimensionsFromFit.Outcome r = DimensionsFromFit.propagate(el, k,
-                new DimensionsFromFit.Temperatures(teff1, teff1Error, teff2, teff2Error), draws, seed);
+                new DimensionsFromFit.Temperatures(given.teff1, DimensionsOptions.orZero(given.teff1Error), given.teff2,
+                        DimensionsOptions.orZero(given.teff2Error)), draws(), seed);
         List<String> written = DimensionsFromFit.write(r, out::resolve, "Absolute dimensions of " + objectName(lc),
                 VersionInfo.version());
         console().print(r.table());
@@ -173,36 +151,37 @@ public final class DimensionsCommand implements Callable<Integer> {
                 : String.valueOf(fit.getFileName());
     }
 
+    private int draws() {
+        return given.draws == null ? AfterFitSettings.DEFAULT_DRAWS : given.draws;
+    }
+
+    /** Checks the options, with the rules of analyse's settings (messages naming the options). */
     private void checkOptions() {
-        boolean givenK = k1 != null || k2 != null;
-        if (velocities != null && givenK) {
-            throw new BadInputException("options --velocities and --k1/--k2: give one source of K1 and K2, not both");
-        }
-        if (velocities == null && givenK && (k1 == null || k2 == null)) {
-            throw new BadInputException("option --" + (k1 == null ? "k1" : "k2") + ": missing; the masses need the "
-                    + "semi-amplitudes of both stars (no second star: a single-lined orbit gives only the mass "
-                    + "function)");
-        }
-        if (k1 != null && !(k1 > 0)) {
-            throw new BadInputException("option --k1: expected a semi-amplitude > 0 km/s, got " + k1);
-        }
-        if (k2 != null && !(k2 > 0)) {
-            throw new BadInputException("option --k2: expected a semi-amplitude > 0 km/s, got " + k2);
-        }
-        for (Object[] o : new Object[][] {{"--teff1", teff1}, {"--teff2", teff2}}) {
-            if (o[1] != null && !((Double) o[1] > 0)) {
-                throw new BadInputException("option " + o[0] + ": expected a temperature > 0 K, got " + o[1]);
+        AfterFitSettings s = AfterFitSettings.defaults();
+        for (java.util.Map.Entry<String, Object> e : given.settingsEntries().entrySet()) {
+            if (e.getValue() != null) {
+                s = s.with(e.getKey(), e.getValue());
             }
         }
-        for (Object[] o : new Object[][] {{"--k1-error", k1Error}, {"--k2-error", k2Error},
-            {"--teff1-error", teff1Error}, {"--teff2-error", teff2Error}}) {
-            if (!((Double) o[1] >= 0) || !Double.isFinite((Double) o[1])) {
-                throw new BadInputException("option " + o[0] + ": expected an error >= 0, got " + o[1]);
-            }
+        if (velocities != null || given.k1 == null && given.k2 == null) {
+            // K from the velocities, or from a joint fit in fit.json (checked when it is read)
+            s = s.with("velocities", List.of(velocities != null ? velocities.toString() : fit.toString()));
         }
-        if (draws < 100) {
-            throw new BadInputException("option --draws: expected at least 100 draws, got " + draws);
+        try {
+            s.validated("options");
+        } catch (BadInputException e) {
+            throw new BadInputException(optionNames(e.getMessage()));
         }
+    }
+
+    /** A settings message with the keys turned into option names ({@code key 'k1Error'} → {@code option --k1-error}). */
+    private static String optionNames(String message) {
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("options: key '([A-Za-z0-9]+)'").matcher(message);
+        if (!m.find()) {
+            return message;
+        }
+        String option = "--" + m.group(1).replaceAll("([a-z0-9])([A-Z])", "$1-$2").toLowerCase(java.util.Locale.ROOT);
+        return m.replaceFirst("option " + option);
     }
 
     private VelocityFitResult fitVelocities(VelocityData data, FitJsonInput lc, List<String> notes) {

@@ -17,23 +17,15 @@ import org.twinlight.orbit.RadialVelocityCurve;
 
 /** {@code analyse} with the stages after the fit: dimensions from K given or fitted jointly, the posterior. */
 class AnalyseAfterFitTest {
-    // Demo system (invented): detached pair on a slightly eccentric orbit.
+    // Demo system (invented): the detached, slightly eccentric pair of JointFitCommandTest.
     private static final double PERIOD = 2.8731;
     private static final double EPOCH = 2460000.4123;
     private static final double E = 0.12;
     private static final double OMEGA = 70.0;
     private static final double INCLINATION = 87.6;
-    private static final double K1 = 62.0;
-    private static final double K2 = 85.0;
-    private static final String MODEL = """
-            {
-              "period": 2.8731, "epoch": 2460000.4123,
-              "radius1": 0.118, "radius2": 0.081, "inclination": 87.6,
-              "eccentricity": 0.12, "omega": 70.0, "surfaceBrightnessRatio": 0.58,
-              "limbDarkening1": {"law": "quadratic", "coefficients": [0.40, 0.22]},
-              "limbDarkening2": {"law": "quadratic", "coefficients": [0.45, 0.20]}
-            }
-            """;
+    private static final double K1 = JointFitCommandTest.K1;
+    private static final double K2 = JointFitCommandTest.K2;
+    private static final String MODEL = JointFitCommandTest.MODEL;
     /** A quick analysis: the period and a start given, one start, a few free parameters. */
     private static final String FREE = "epoch,radius1,radius2,inclination,surfaceBrightnessRatio";
 

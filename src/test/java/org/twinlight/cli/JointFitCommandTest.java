@@ -15,7 +15,7 @@ import org.twinlight.orbit.RadialVelocityCurve;
 /** {@code fit --velocities} as a user runs it: files written, exit codes, messages. */
 class JointFitCommandTest {
     // Demo system (invented): eccentric detached pair.
-    private static final String MODEL = """
+    static final String MODEL = """
             {
               "period": 2.8731, "epoch": 2460000.4123,
               "radius1": 0.118, "radius2": 0.081, "inclination": 87.6,
@@ -24,8 +24,8 @@ class JointFitCommandTest {
               "limbDarkening2": {"law": "quadratic", "coefficients": [0.45, 0.20]}
             }
             """;
-    private static final double K1 = 62.0;
-    private static final double K2 = 85.0;
+    static final double K1 = 62.0;
+    static final double K2 = 85.0;
 
     @TempDir
     Path dir;
