@@ -104,8 +104,8 @@ public record AfterFitSettings(boolean posterior, Integer maxSteps, Integer walk
         }
         if (givenK && (k1Kms == null || k2Kms == null)) {
             throw AnalysisSettings.bad(where, k1Kms == null ? "k1" : "k2", "missing; the masses need the "
-                    + "semi-amplitudes of both stars (give k1 and k2 together; a single-lined orbit gives only the "
-                    + "mass function)");
+                    + "semi-amplitudes of both stars (no second star: a single-lined orbit gives only the mass "
+                    + "function; give k1 and k2 together)");
         }
         positive(where, "k1", k1Kms, "a semi-amplitude > 0 km/s");
         positive(where, "k2", k2Kms, "a semi-amplitude > 0 km/s");

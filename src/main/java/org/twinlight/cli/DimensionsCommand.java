@@ -23,7 +23,8 @@ import picocli.CommandLine.Option;
 @Command(name = "dimensions", mixinStandardHelpOptions = true, versionProvider = VersionInfo.class,
         sortOptions = false,
         description = {"Absolute dimensions of a double-lined eclipsing binary: from fit.json (period, e, i, "
-                + "fractional radii, with their correlations) and K1, K2 (fitted from --velocities, or given): "
+                + "fractional radii, with their correlations) and K1, K2 (fitted from --velocities, given, or of the "
+                + "joint light-curve + velocity fit in fit.json when neither is given): "
                 + "a, M1, M2, q, R1, R2, log g, mean densities, synchronous rotation; with --teff1 (and --teff2): "
                 + "luminosities and bolometric magnitudes (IAU 2015 nominal solar values, Resolutions B2 and B3). "
                 + "Errors by sampling: the posterior chain of fit.json when the fit made one, else normal draws "

@@ -77,7 +77,7 @@ class AnalyseAfterFitTest {
      * §2.5, from memory): M1 sin³i = (1 − e²)^{3/2} (K1 + K2)² K2 P / (2π G), in nominal solar
      * masses with the nominal solar mass parameter GM = 1.3271244e20 m³ s⁻² (IAU 2015 Resolution B3).
      */
-    private static double trueMass(int star) {
+    static double trueMass(int star) {
         double periodSeconds = PERIOD * 86400;
         double k1 = K1 * 1e3;
         double k2 = K2 * 1e3;
