@@ -120,9 +120,15 @@ public record AfterFitSettings(boolean posterior, Integer maxSteps, Integer walk
         }
         String[] errorKeys = {"k1Error", "k2Error", "teff1Error", "teff2Error"};
         double[] errors = {k1ErrorKms, k2ErrorKms, teff1ErrorK, teff2ErrorK};
+        Double[] values = {k1Kms, k2Kms, teff1K, teff2K};
         for (int i = 0; i < errors.length; i++) {
             if (!(errors[i] >= 0) || Double.isInfinite(errors[i])) {
                 throw AnalysisSettings.bad(where, errorKeys[i], "expected an error >= 0, got " + errors[i]);
+            }
+            if (errors[i] > 0 && values[i] == null) {
+                String key = errorKeys[i].substring(0, errorKeys[i].length() - "Error".length());
+                throw AnalysisSettings.bad(where, errorKeys[i], "an error without its value: give '" + key
+                        + "' too, or leave the error out");
             }
         }
         if (draws < 100) {

@@ -178,6 +178,9 @@ class AnalyseAfterFitTest {
         Run both = run(quick(out, "--k1", "60", "--k2", "80", "--velocities", rv.toString()).toArray(String[]::new));
         assertThat(both.code()).isEqualTo(2);
         assertThat(both.err()).contains("not both");
+        Run orphan = run(quick(out, "--teff1-error", "80").toArray(String[]::new));
+        assertThat(orphan.code()).isEqualTo(2);
+        assertThat(orphan.err()).contains("'teff1Error'").contains("without its value");
         assertThat(out.resolve("report.html")).doesNotExist();
     }
     @Test
