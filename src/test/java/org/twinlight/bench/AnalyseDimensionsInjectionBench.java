@@ -58,7 +58,8 @@ public final class AnalyseDimensionsInjectionBench {
                 Path lc = AnalysedCurves.writeSpace(Path.of(dir + ".csv"), seed);
                 AnalysisSettings st = AnalysisSettings.defaults().withFiles(List.of(lc.toString()))
                         .withEphemeris(truth.periodDays(), null).with("starts", 2).with("draws", 2000);
-                Random rng = new Random(seed);
+                // scrambled: the first draws of java.util.Random from consecutive seeds are correlated
+                Random rng = new Random(new java.util.SplittableRandom(seed).nextLong());
                 if (mode.equals("velocities")) {
                     st = st.with("velocities", List.of(velocities(Path.of(dir + "-rv.csv"), truth, rng).toString()));
                 } else {
