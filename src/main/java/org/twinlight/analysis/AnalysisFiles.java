@@ -153,6 +153,11 @@ final class AnalysisFiles {
                 + "as quoted: the larger of covariance x max(1, beta) and the residual permutation)",
                 withError(key.get("period")), withError(key.get("radius1")), withError(key.get("radius2")),
                 withError(key.get("inclination")), r.reducedChi2());
+        if (key.containsKey("mass1")) {
+            head += String.format(Locale.ROOT, "; M1 = %s, M2 = %s, R1 = %s, R2 = %s (nominal solar units, "
+                    + "dimensions.txt)", withError(key.get("mass1")), withError(key.get("mass2")),
+                    withError(key.get("radius1Rsun")), withError(key.get("radius2Rsun")));
+        }
         return st.doubts.isEmpty() ? "Done: " + head + "."
                 : "Results with a doubt: " + head + ". " + String.join(" ", st.doubts);
     }

@@ -109,6 +109,7 @@ class AnalyseAfterFitTest {
         JsonNode results = json(out.resolve("results.json"));
         assertThat(results.at("/dimensions/star1/mass")).isEqualTo(d.at("/star1/mass"));
         assertThat(results.at("/dimensions/star1/logLuminosity").isObject()).isTrue();
+        assertThat(r.out()).contains("M1 = ").contains("M2 = ");
         assertThat(Files.readString(out.resolve("report.html"))).contains("id=\"dimensions\"")
                 .contains("mass-radius.png");
     }
