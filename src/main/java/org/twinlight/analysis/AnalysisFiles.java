@@ -55,7 +55,8 @@ final class AnalysisFiles {
     /** Every file an analysis may write. */
     static final List<String> NAMES = List.of("report.html", "results.json", "settings-used.json", "period.json",
             "periodogram.png", "minima.csv", "ephemeris.json", "o-c.png", "fit.json", "residuals.csv", "model.json",
-            "fit.png", "thumbnail.png");
+            "fit.png", "thumbnail.png", "chain.csv.gz", "trace.png", "corner.png", "velocities.png", "dimensions.json",
+            "dimensions.txt", "mass-radius.png", "mass-luminosity.png");
     /** Width of the thumbnail for an index page, pixels. */
     static final int THUMBNAIL_WIDTH = 320;
     /** The names of the key results, in order. */
@@ -82,18 +83,12 @@ final class AnalysisFiles {
         Map<String, byte[]> images = new LinkedHashMap<>();
         List<Path> written = new ArrayList<>();
         Path thumbnail = null;
-        int exit = st.failure != null || !st.doubts.isEmpty() ? 1 : 0;
-        String message = message(st);
+        int exit = 1;
+        String message = null;
         Path out = st.request.outputDir();
         try (ResultSet set = ResultSet.open(out, "analyse")) {
             results.put("target", st.request.label());
             ObjectNode status = results.putObject("status");
-            status.put("exitCode", exit);
-            status.put("verdict", st.failure != null ? "failed" : exit == 0 ? "ok" : "uncertain");
-            status.put("message", message);
-            status.put("failedStage", st.failure != null ? st.failedStage : null);
-            strings(status.putArray("doubts"), st.doubts);
-            strings(status.putArray("notes"), st.notes);
             results.set("data", data(st));
             AnalysisState.Input main = st.inputs.isEmpty() ? null
                     : st.inputs.stream().filter(in -> in.lightCurve() == st.main).findFirst().orElseThrow();
@@ -110,7 +105,16 @@ final class AnalysisFiles {
             }
             if (st.fit != null) {
                 writeFit(st, set, version, results, images);
+                AfterFitFiles.writeDimensions(st, set, version, results, images);
             }
+            exit = st.failure != null || !st.doubts.isEmpty() ? 1 : 0;
+            message = message(st);
+            status.put("exitCode", exit);
+            status.put("verdict", st.failure != null ? "failed" : exit == 0 ? "ok" : "uncertain");
+            status.put("message", message);
+            status.put("failedStage", st.failure != null ? st.failedStage : null);
+            strings(status.putArray("doubts"), st.doubts);
+            strings(status.putArray("notes"), st.notes);
             results.set("starts", starts(st));
             String thumbSource = images.containsKey("fit.png") ? "fit.png"
                     : images.containsKey("periodogram.png") ? "periodogram.png" : null;
@@ -149,6 +153,11 @@ final class AnalysisFiles {
                 + "as quoted: the larger of covariance x max(1, beta) and the residual permutation)",
                 withError(key.get("period")), withError(key.get("radius1")), withError(key.get("radius2")),
                 withError(key.get("inclination")), r.reducedChi2());
+        if (key.containsKey("mass1")) {
+            head += String.format(Locale.ROOT, "; M1 = %s, M2 = %s, R1 = %s, R2 = %s (nominal solar units, "
+                    + "dimensions.txt)", withError(key.get("mass1")), withError(key.get("mass2")),
+                    withError(key.get("radius1Rsun")), withError(key.get("radius2Rsun")));
+        }
         return st.doubts.isEmpty() ? "Done: " + head + "."
                 : "Results with a doubt: " + head + ". " + String.join(" ", st.doubts);
     }
@@ -168,6 +177,7 @@ final class AnalysisFiles {
                 m.put(name, new AnalysisOutcome.Value(e.value(), sigma));
             }
             m.put("reducedChi2", new AnalysisOutcome.Value(st.fit.result().reducedChi2(), Double.NaN));
+            AfterFitFiles.keyResults(st, m);
         } else if (st.ephemeris != null) {
             m.put("period", new AnalysisOutcome.Value(st.ephemeris.periodDays(), Double.NaN));
             m.put("epoch", new AnalysisOutcome.Value(st.ephemeris.epochDays(), Double.NaN));
@@ -227,6 +237,7 @@ final class AnalysisFiles {
         st.estimates.forEach((band, e) -> notes.add((st.estimates.size() > 1 ? "band " + band + ": " : "")
                 + e.describe()));
         FitFiles.putNoise(doc, st.fit.noise(), r);
+        AfterFitFiles.addToFitJson(st, doc);
         List<String> present = new ArrayList<>();
         notes.forEach(n -> present.add(n.asText()));
         st.fit.notes().stream().filter(n -> !present.contains(n)).forEach(notes::add);
@@ -242,6 +253,7 @@ final class AnalysisFiles {
                     st.timeScaleLabel());
             images.put(name, bytes(set.file(name)));
         }
+        AfterFitFiles.writeFitExtras(st, set, images);
         results.set("fit", readJson(set.file("fit.json")));
     }
 
@@ -325,7 +337,7 @@ final class AnalysisFiles {
         values.forEach(a::add);
     }
 
-    private static JsonNode readJson(Path f) {
+    static JsonNode readJson(Path f) {
         try {
             return JSON.readTree(f.toFile());
         } catch (IOException e) {
@@ -333,7 +345,7 @@ final class AnalysisFiles {
         }
     }
 
-    private static byte[] bytes(Path f) {
+    static byte[] bytes(Path f) {
         try {
             return Files.readAllBytes(f);
         } catch (IOException e) {

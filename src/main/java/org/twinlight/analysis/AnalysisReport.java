@@ -64,6 +64,8 @@ final class AnalysisReport {
                 .append(esc(results.path("provenance").path("timeScale").asText())).append(".</p>\n");
         b.append("<nav><a href=\"#data\">Data</a><a href=\"#period\">Period</a><a href=\"#minima\">Minima</a>")
                 .append("<a href=\"#fit\">Fit</a><a href=\"#parameters\">Parameters</a>")
+                .append(results.path("fit").has("posterior") ? "<a href=\"#posterior\">Posterior</a>" : "")
+                .append(results.has("dimensions") ? "<a href=\"#dimensions\">Dimensions</a>" : "")
                 .append("<a href=\"#correlations\">Correlations</a><a href=\"#diagnostics\">Diagnostics</a>")
                 .append("<a href=\"#cautions\">Cautions</a><a href=\"#provenance\">Provenance</a></nav>\n");
         verdict(b, results.path("status"));
@@ -72,6 +74,8 @@ final class AnalysisReport {
         minima(b, results, images);
         fit(b, results, images);
         parameters(b, results.path("fit"));
+        AfterFitReport.posterior(b, results.path("fit"), images);
+        AfterFitReport.dimensions(b, results.path("dimensions"), images);
         correlations(b, results.path("fit").path("correlation"));
         diagnostics(b, results);
         cautions(b, results);
@@ -193,6 +197,12 @@ final class AnalysisReport {
                         + "both eclipses close up; phase from the fitted epoch and period.");
             }
         }
+        for (String name : images.keySet()) {
+            if (name.startsWith("velocities")) {
+                image(b, images, name, "Radial velocities of both stars with the jointly fitted orbit, residuals "
+                        + "below (km/s); phase from the fitted epoch and period.");
+            }
+        }
         b.append("<h3>Starting points</h3>\n<table><tr><th>start</th><th>χ² reached (thinned data)</th>")
                 .append("<th>r₁</th><th>r₂</th><th>i (°)</th><th>e</th></tr>\n");
         for (JsonNode s : results.path("starts")) {
@@ -288,7 +298,8 @@ final class AnalysisReport {
         }
         b.append("<p>Correlated-noise factor β of the light around each timed eclipse (Winn et al. 2008): ")
                 .append(betas.length() == 0 ? "not measured" : esc(betas.toString()))
-                .append(". Autocorrelation times: not sampled (no posterior in this run).</p>\n");
+                .append(". Autocorrelation times: ").append(esc(AfterFitReport.autocorrelationText(results.path("fit"))))
+                .append(".</p>\n");
     }
 
     private static void cautions(StringBuilder b, JsonNode results) {
@@ -325,7 +336,7 @@ final class AnalysisReport {
         b.append("<tr><th>").append(esc(key)).append("</th><td>").append(esc(value)).append("</td></tr>\n");
     }
 
-    private static void list(StringBuilder b, String title, JsonNode items) {
+    static void list(StringBuilder b, String title, JsonNode items) {
         if (items == null || items.size() == 0) {
             return;
         }
@@ -336,7 +347,7 @@ final class AnalysisReport {
         b.append("</ul>\n");
     }
 
-    private static void image(StringBuilder b, Map<String, byte[]> images, String name, String caption) {
+    static void image(StringBuilder b, Map<String, byte[]> images, String name, String caption) {
         byte[] png = images.get(name);
         if (png == null) {
             return;
@@ -346,11 +357,11 @@ final class AnalysisReport {
                 .append(esc(name)).append(": ").append(esc(caption)).append("</figcaption></figure>\n");
     }
 
-    private static String num(JsonNode v, String format) {
+    static String num(JsonNode v, String format) {
         return num(v, 1, format);
     }
 
-    private static String num(JsonNode v, double factor, String format) {
+    static String num(JsonNode v, double factor, String format) {
         if (v == null || !v.isNumber()) {
             return "<td class=\"num\">—</td>";
         }

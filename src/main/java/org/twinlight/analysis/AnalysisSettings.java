@@ -40,14 +40,17 @@ import org.twinlight.time.TimeScale;
  * @param limbDarkening2 limb darkening of star 2
  * @param exposureTimeDays exposure time for smearing, days (null: the median spacing of the points)
  * @param supersample sub-exposures per exposure (null: one per 2 minutes of exposure, at least 1)
- * @param seed seed of every random draw (the bootstrap of the times of minimum)
+ * @param seed seed of every random draw (the bootstrap of the times of minimum, the global search, the
+ *     posterior sampler and the draws of the dimensions)
+ * @param afterFit the stages after the fit: posterior, joint fit with velocities, dimensions
  */
 public record AnalysisSettings(List<String> files, String label, List<String> bands, String timeScale,
         Double timeOffsetDays, String timeColumn, String valueColumn, String errorColumn, String bandColumn,
         String qualityColumn, String values, Integer hdu, Double periodDays, Double epochDays, Double minPeriodDays,
         Double maxPeriodDays, String model, List<String> free, String baseline, double segmentGapDays,
         double clipSigma, int maxIterations, int starts, LimbDarkening limbDarkening1,
-        LimbDarkening limbDarkening2, Double exposureTimeDays, Integer supersample, long seed) {
+        LimbDarkening limbDarkening2, Double exposureTimeDays, Integer supersample, long seed,
+        AfterFitSettings afterFit) {
 
     /**
      * Parameters fitted by default: the ephemeris, the whole geometry, the orbit's shape (e = 0 is an
@@ -70,13 +73,15 @@ public record AnalysisSettings(List<String> files, String label, List<String> ba
         files = files == null ? List.of() : List.copyOf(files);
         bands = bands == null ? List.of() : List.copyOf(bands);
         free = free == null ? DEFAULT_FREE : List.copyOf(free);
+        afterFit = afterFit == null ? AfterFitSettings.defaults() : afterFit;
     }
 
     /** Nothing declared: everything found from the data, with the defaults above. */
     public static AnalysisSettings defaults() {
         return new AnalysisSettings(List.of(), null, List.of(), null, null, null, null, null, null, null, null, null,
                 null, null, null, null, null, DEFAULT_FREE, "offset", 0.5, FitSettings.DEFAULT_CLIP_SIGMA, 200,
-                DEFAULT_STARTS, DEFAULT_LIMB_DARKENING, DEFAULT_LIMB_DARKENING, null, null, 1L);
+                DEFAULT_STARTS, DEFAULT_LIMB_DARKENING, DEFAULT_LIMB_DARKENING, null, null, 1L,
+                AfterFitSettings.defaults());
     }
 
     public AnalysisSettings withFiles(List<String> v) {
@@ -93,10 +98,13 @@ public record AnalysisSettings(List<String> files, String label, List<String> ba
 
 /**
  * A copy with the setting named {@code key} (a key of the settings file) set to {@code v}, of the
- * key's type (String, Double, Integer, Long, List of String or LimbDarkening).
+ * key's type (String, Double, Integer, Long, Boolean, List of String or LimbDarkening).
  */
     @SuppressWarnings("unchecked")
     public AnalysisSettings with(String key, Object v) {
+        if (AfterFitSettings.KEYS.contains(key)) {
+            return withAfterFit(afterFit.with(key, v));
+        }
         return new AnalysisSettings(key.equals("files") ? (List<String>) v : files,
                 key.equals("label") ? (String) v : label,
                 key.equals("bands") ? (List<String>) v : bands,
@@ -124,7 +132,15 @@ public record AnalysisSettings(List<String> files, String label, List<String> ba
                 key.equals("limbDarkening2") ? (LimbDarkening) v : limbDarkening2,
                 key.equals("exposureTime") ? (Double) v : exposureTimeDays,
                 key.equals("supersample") ? (Integer) v : supersample,
-                key.equals("seed") ? (Long) v : seed);
+                key.equals("seed") ? (Long) v : seed, afterFit);
+    }
+
+    /** A copy with the settings of the stages after the fit replaced. */
+    public AnalysisSettings withAfterFit(AfterFitSettings a) {
+        return new AnalysisSettings(files, label, bands, timeScale, timeOffsetDays, timeColumn, valueColumn,
+                errorColumn, bandColumn, qualityColumn, values, hdu, periodDays, epochDays, minPeriodDays,
+                maxPeriodDays, model, free, baseline, segmentGapDays, clipSigma, maxIterations, starts, limbDarkening1,
+                limbDarkening2, exposureTimeDays, supersample, seed, a);
     }
 
     /**
@@ -173,6 +189,7 @@ public record AnalysisSettings(List<String> files, String label, List<String> ba
         if (supersample != null && (supersample < 1 || supersample > 200)) {
             throw bad(where, "supersample", "expected an integer from 1 to 200, got " + supersample);
         }
+        afterFit.validated(where);
         return this;
     }
 

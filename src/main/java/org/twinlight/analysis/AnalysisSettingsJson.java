@@ -88,6 +88,21 @@ public final class AnalysisSettingsJson {
         o.put("exposureTime", s.exposureTimeDays());
         o.put("supersample", s.supersample());
         o.put("seed", s.seed());
+        AfterFitSettings a = s.afterFit();
+        o.put("posterior", a.posterior());
+        o.put("maxSteps", a.maxSteps());
+        o.put("walkers", a.walkers());
+        o.put("threads", a.threads());
+        strings(o.putArray("velocities"), a.velocities());
+        o.put("k1", a.k1Kms());
+        o.put("k1Error", a.k1ErrorKms());
+        o.put("k2", a.k2Kms());
+        o.put("k2Error", a.k2ErrorKms());
+        o.put("teff1", a.teff1K());
+        o.put("teff1Error", a.teff1ErrorK());
+        o.put("teff2", a.teff2K());
+        o.put("teff2Error", a.teff2ErrorK());
+        o.put("draws", a.draws());
         return o;
     }
 
@@ -114,6 +129,12 @@ public final class AnalysisSettingsJson {
                 case "hdu", "supersample" -> s.with(key, integer(key, v));
                 case "maxIterations", "starts" -> s.with(key, required(key, integer(key, v)));
                 case "seed" -> s.with(key, (long) required(key, integer(key, v)));
+                case "posterior" -> s.with(key, bool(key, v));
+                case "maxSteps", "walkers", "threads" -> s.with(key, integer(key, v));
+                case "draws" -> s.with(key, required(key, integer(key, v)));
+                case "velocities" -> s.with(key, paths(key, v));
+                case "k1", "k2", "teff1", "teff2" -> s.with(key, number(key, v));
+                case "k1Error", "k2Error", "teff1Error", "teff2Error" -> s.with(key, required(key, number(key, v)));
                 case "free" -> s.with(key, textList(key, v));
                 case "limbDarkening1", "limbDarkening2" ->
                         s.with(key, ModelFileJson.limbDarkening(v, Path.of(where), key));
@@ -121,7 +142,7 @@ public final class AnalysisSettingsJson {
                         + "files, label, bands, timeScale, timeOffset, timeColumn, valueColumn, errorColumn, "
                         + "bandColumn, qualityColumn, values, hdu, period, epoch, minPeriod, maxPeriod, model, free, "
                         + "baseline, segmentGap, clip, maxIterations, starts, limbDarkening1, limbDarkening2, "
-                        + "exposureTime, supersample, seed)");
+                        + "exposureTime, supersample, seed, " + String.join(", ", AfterFitSettings.KEYS) + ")");
             };
         }
 
@@ -131,6 +152,13 @@ public final class AnalysisSettingsJson {
                 out.add(folder.resolve(f).normalize().toString());
             }
             return out;
+        }
+
+        private boolean bool(String key, JsonNode v) {
+            if (!v.isBoolean()) {
+                throw AnalysisSettings.bad(where, key, "expected true or false, got " + v);
+            }
+            return v.booleanValue();
         }
 
         private String text(String key, JsonNode v) {

@@ -53,6 +53,18 @@ final class AnalysisState {
     List<FitData> fitData;
     MultiStartFit.Outcome fit;
 
+    /** The velocity files of the joint fit and their data, in order (empty without velocities). */
+    final List<Path> velocityFiles = new ArrayList<>();
+    final List<org.twinlight.velocity.VelocityData> velocityData = new ArrayList<>();
+    /** The velocities of the joint fit, null without one. */
+    org.twinlight.fit.JointVelocities joint;
+    /** The problem the fit's result solves when it is not the light curves' alone (the joint fit), else null. */
+    org.twinlight.fit.FitProblem problem;
+    /** The posterior sample, null when not sampled. */
+    org.twinlight.fit.Posterior posterior;
+    /** The absolute dimensions, null when not computed. */
+    org.twinlight.report.DimensionsFromFit.Outcome dimensions;
+
     /** Why the run stopped (null when it did not), with the stage. */
     String failure;
     String failedStage;

@@ -126,6 +126,12 @@ final class MultiStartFit {
      */
     static Outcome fit(List<Start> starts, List<FitData> data, FitSettings settings, double eclipseHalfWidthPhase,
             Consumer<String> sink) {
+        return fit(starts, data, settings, eclipseHalfWidthPhase, sink, GlobalSearch.DEFAULT_SEED);
+    }
+
+    /** As {@link #fit(List, List, FitSettings, double, Consumer)}, with the seed of the global search. */
+    static Outcome fit(List<Start> starts, List<FitData> data, FitSettings settings, double eclipseHalfWidthPhase,
+            Consumer<String> sink, long seed) {
         List<FitData> thinned = new ArrayList<>();
         int total = data.stream().mapToInt(d -> d.lightCurve().size()).sum();
         BinaryParameters ephemeris = starts.get(0).model().common();
@@ -163,7 +169,7 @@ final class MultiStartFit {
         ModelFile from = best.end();
         long searchStart = System.nanoTime();
         try {
-            GlobalSearch.Result search = GlobalSearch.run(FitProblem.of(best.end(), thinned, trialSettings));
+            GlobalSearch.Result search = GlobalSearch.run(FitProblem.of(best.end(), thinned, trialSettings), seed, 0);
             from = search.best().start();
             sink.accept(String.format(Locale.ROOT, "  global search: %d starts, %d distinct minim%s (%.1f s)",
                     search.starts(), search.minima().size(), search.minima().size() == 1 ? "um" : "a",

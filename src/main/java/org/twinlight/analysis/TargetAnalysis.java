@@ -39,7 +39,8 @@ import org.twinlight.timing.period.PeriodSearchSettings;
 /**
  * The whole analysis of one target as one function: read → period search (unless the period is
  * given) → times of minimum and ephemeris → starting values from the eclipses → least-squares fit
- * from several starts → {@code report.html}, {@code results.json}, {@code settings-used.json} and
+ * from several starts → optionally the joint fit with radial velocities, the posterior sample and the
+ * absolute dimensions → {@code report.html}, {@code results.json}, {@code settings-used.json} and
  * the files of each stage, written together into the output folder.
  *
  * <p>Self-contained: no shared mutable state, no exit of the virtual machine, no console output
@@ -74,9 +75,16 @@ public final class TargetAnalysis {
         try {
             st.settings = request.settings().validated("settings");
             read(st, sink);
+            AfterFit.readVelocities(st, sink);
             timed(st, "period search", () -> period(st, sink));
             timed(st, "times of minimum", () -> minima(st, sink));
             timed(st, "fit", () -> fit(st, sink));
+            if (!st.velocityData.isEmpty()) {
+                timed(st, "joint fit with the velocities", () -> AfterFit.jointFit(st, sink));
+            }
+            if (st.settings.afterFit().posterior()) {
+                timed(st, "posterior sample", () -> AfterFit.posterior(st, sink));
+            }
         } catch (BadInputException e) {
             return new AnalysisOutcome(2, e.getMessage(), Map.of(), List.of(), null);
         } catch (WorkFailedException e) {
@@ -286,7 +294,7 @@ public final class TargetAnalysis {
                 Math.max(0, s.starts() - starts.size())));
         StartingValues first = st.estimates.values().iterator().next();
         sink.accept("fit from " + starts.size() + " start(s) ...");
-        st.fit = MultiStartFit.fit(starts, data, st.fitSettings, 0.5 * first.primaryWidth(), sink);
+        st.fit = MultiStartFit.fit(starts, data, st.fitSettings, 0.5 * first.primaryWidth(), sink, s.seed());
         sink.accept(String.format(Locale.ROOT, "fit: χ²ν = %.3f, rms %.0f ppm, %d points", st.fit.result()
                 .reducedChi2(), st.fit.result().rms() * 1e6, st.fit.result().n()));
         if (!st.fit.result().adequacy().describesData()) {

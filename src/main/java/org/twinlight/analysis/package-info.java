@@ -1,7 +1,8 @@
 /**
  * The whole analysis of one target, from raw light curve to report: the stages of the library
  * (reading, period search, times of minimum and ephemeris, starting values, least-squares fit from
- * several starts) wired together as one self-contained unit of work,
+ * several starts, and when asked the joint fit with radial velocities, the posterior sample and the
+ * absolute dimensions) wired together as one self-contained unit of work,
  * {@link org.twinlight.analysis.TargetAnalysis#run(AnalysisRequest)}, and the report page and
  * {@code results.json} that present it.
  *

@@ -4,7 +4,6 @@ import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import org.twinlight.BadInputException;
 import org.twinlight.analysis.AnalysisOutcome;
 import org.twinlight.analysis.AnalysisRequest;
 import org.twinlight.analysis.AnalysisSettings;
@@ -17,7 +16,7 @@ import org.twinlight.analysis.TargetAnalysis;
  *
  * <p>The settings of a target are, from the least to the most specific: the analysis defaults
  * with the batch's options ({@code base}), then the target's settings file (its keys replace
- * those), then the manifest's cells (files, label, period, model). Holds only {@code base}: one
+ * those), then the manifest's cells (files, label, period, model, velocities, K1, K2, temperatures). Holds only {@code base}: one
  * instance serves every target and thread.
  */
 public final class AnalysisUnit implements UnitOfWork {
@@ -30,11 +29,6 @@ public final class AnalysisUnit implements UnitOfWork {
 
     @Override
     public TargetResult run(BatchTarget t) {
-        if (t.velocities() != null) {
-            throw new BadInputException(t.origin() + ", column 'velocities': the analysis of a light curve does not "
-                    + "take velocities yet; leave the cell empty and fit them with the velocities and dimensions "
-                    + "commands");
-        }
         AnalysisOutcome o = TargetAnalysis.run(new AnalysisRequest(settings(t), t.outputDir()));
         Map<String, TargetResult.KeyValue> keys = new LinkedHashMap<>();
         o.keyResults().forEach((name, v) -> keys.put(name, new TargetResult.KeyValue(v.value(), v.uncertainty())));
@@ -52,6 +46,12 @@ public final class AnalysisUnit implements UnitOfWork {
         }
         if (t.model() != null) {
             s = s.with("model", t.model().toString());
+        }
+        if (!t.velocities().isEmpty()) {
+            s = s.with("velocities", t.velocities().stream().map(Path::toString).toList());
+        }
+        for (Map.Entry<String, Double> e : t.afterFit().entrySet()) {
+            s = s.with(e.getKey(), e.getValue());
         }
         return s.validated(t.settings() == null ? t.origin() : t.settings() + " and " + t.origin());
     }

@@ -80,8 +80,9 @@ public final class BatchIndex {
         }
         StringWriter w = new StringWriter();
         w.write("# batch summary: one row per finished target; output is the target's folder beside this file; "
-                + "values in the units of fit.json, period.json and ephemeris.json (days, degrees, fractions of a); "
-                + "empty where there is no value\n");
+                + "values in the units of fit.json, period.json and ephemeris.json (days, degrees, fractions of a) and, "
+                + "for mass1, mass2, radius1Rsun, radius2Rsun, logg1, logg2, logLuminosity1, logLuminosity2, of "
+                + "dimensions.json (nominal solar units, IAU 2015 B3; log10 cgs); empty where there is no value\n");
         w.write("# caution: " + FitFiles.CAUTION + "\n");
         try (CSVPrinter csv = new CSVPrinter(w, CSVFormat.DEFAULT.builder().setRecordSeparator("\n").get())) {
             csv.printRecord(header);

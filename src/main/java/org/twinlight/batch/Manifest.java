@@ -28,7 +28,11 @@ import org.twinlight.report.AtomicFiles;
  * <li>{@code period}: a period in days to use instead of a period search;</li>
  * <li>{@code model}: a model file (starting model);</li>
  * <li>{@code settings}: a settings file for the analysis;</li>
- * <li>{@code velocities}: a radial-velocity file.</li>
+ * <li>{@code velocities}: radial-velocity files (several separated by {@code ;}), fitted jointly with
+ * the light curves, then the absolute dimensions;</li>
+ * <li>{@code k1}, {@code k1Error}, {@code k2}, {@code k2Error} (km/s): semi-amplitudes instead of
+ * velocities, for the dimensions; {@code teff1}, {@code teff1Error}, {@code teff2},
+ * {@code teff2Error} (K): effective temperatures, for luminosities.</li>
  * </ul>
  * Paths are relative to the manifest's folder and may not lead out of it (after {@code ..} and
  * symbolic links are followed) unless outside paths are allowed; every file must exist. Lines
@@ -38,7 +42,10 @@ import org.twinlight.report.AtomicFiles;
  */
 public final class Manifest {
     /** The columns a manifest may have. */
-    public static final List<String> COLUMNS = List.of("file", "label", "period", "model", "settings", "velocities");
+    public static final List<String> COLUMNS = List.of("file", "label", "period", "model", "settings", "velocities",
+            "k1", "k1Error", "k2", "k2Error", "teff1", "teff1Error", "teff2", "teff2Error");
+    /** The columns of numbers for the stages after the fit (the settings keys of the same names). */
+    private static final List<String> NUMBER_COLUMNS = COLUMNS.subList(COLUMNS.indexOf("k1"), COLUMNS.size());
 
     private Manifest() {
     }
@@ -85,10 +92,9 @@ public final class Manifest {
     private static Map<String, String> columns(Path manifest, List<String> header) {
         Map<String, String> byName = new LinkedHashMap<>();
         for (String h : header) {
-            String name = h.trim().toLowerCase(Locale.ROOT);
-            if (name.equals("files")) {
-                name = "file";
-            }
+            String lower = h.trim().toLowerCase(Locale.ROOT);
+            String name = lower.equals("files") ? "file"
+                    : COLUMNS.stream().filter(c -> c.equalsIgnoreCase(lower)).findFirst().orElse(lower);
             if (!COLUMNS.contains(name)) {
                 throw BadInputException.at(manifest, "header", h, "not a manifest column; expected "
                         + String.join(", ", COLUMNS));
@@ -113,15 +119,9 @@ public final class Manifest {
                 throw BadInputException.at(manifest, where, null, rec.size() + " cells for " + columns.size()
                         + " columns in the header");
             }
-            String fileCell = cell("file");
-            List<Path> files = new ArrayList<>();
-            for (String part : fileCell.split(";", -1)) {
-                if (part.isBlank()) {
-                    throw BadInputException.at(manifest, where, columns.get("file"), fileCell.isBlank()
-                            ? "empty; every row needs a light curve" : "an empty name between ';' in '" + fileCell
-                                    + "'; expected file names separated by ';'");
-                }
-                files.add(path("file", part.trim()));
+            List<Path> files = paths("file");
+            if (files.isEmpty()) {
+                throw BadInputException.at(manifest, where, columns.get("file"), "empty; every row needs a light curve");
             }
             String label = cell("label");
             if (label.chars().anyMatch(Character::isISOControl)) {
@@ -133,7 +133,49 @@ public final class Manifest {
             }
             String id = ids.unique(cell("label").isEmpty() ? TargetDiscovery.baseName(label) : label);
             return new BatchTarget(id, label, files, period(), optionalPath("model"), optionalPath("settings"),
-                    optionalPath("velocities"), out.resolve(id), manifest.getFileName() + " " + where);
+                    paths("velocities"), numbers(), out.resolve(id), manifest.getFileName() + " " + where);
+        }
+
+        /** The files of a cell, separated by ';' (empty for an empty cell). */
+        private List<Path> paths(String name) {
+            String text = cell(name);
+            List<Path> out = new ArrayList<>();
+            if (text.isEmpty()) {
+                return out;
+            }
+            for (String part : text.split(";", -1)) {
+                if (part.isBlank()) {
+                    throw BadInputException.at(manifest, where, columns.get(name), "an empty name between ';' in '"
+                            + text + "'; expected file names separated by ';'");
+                }
+                out.add(path(name, part.trim()));
+            }
+            return out;
+        }
+
+        /** The numbers of the stages after the fit given in the row, by column. */
+        private Map<String, Double> numbers() {
+            Map<String, Double> out = new java.util.LinkedHashMap<>();
+            for (String name : NUMBER_COLUMNS) {
+                String text = cell(name);
+                if (text.isEmpty()) {
+                    continue;
+                }
+                double v;
+                try {
+                    v = Double.parseDouble(text);
+                } catch (NumberFormatException e) {
+                    v = Double.NaN;
+                }
+                if (!Double.isFinite(v) || v < 0 || (v == 0 && !name.endsWith("Error"))) {
+                    throw BadInputException.at(manifest, where, columns.get(name), "'" + text + "' is not "
+                            + (name.endsWith("Error") ? "an error; expected a number >= 0" : "a value; expected a "
+                                    + "number > 0") + " (" + (name.startsWith("k") ? "km/s" : "K") + ", a point as "
+                                    + "decimal mark), or an empty cell");
+                }
+                out.put(name, v);
+            }
+            return out;
         }
 
         private String cell(String name) {

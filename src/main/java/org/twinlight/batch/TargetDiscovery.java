@@ -56,7 +56,7 @@ public final class TargetDiscovery {
         for (Path f : files) {
             String name = f.getFileName().toString();
             String id = ids.unique(baseName(name));
-            targets.add(new BatchTarget(id, name, List.of(f), null, null, null, null, out.resolve(id), f.toString()));
+            targets.add(new BatchTarget(id, name, List.of(f), null, null, null, List.of(), null, out.resolve(id), f.toString()));
         }
         return targets;
     }

@@ -23,12 +23,19 @@ import picocli.CommandLine.Spec;
 @Command(name = "analyse", mixinStandardHelpOptions = true, versionProvider = VersionInfo.class, sortOptions = false,
         description = {"The whole analysis of one eclipsing binary, from the raw light curve to a report: period "
                 + "search (unless --period), times of minimum and ephemeris, starting values from the eclipses' "
-                + "depths, widths and phases, and a least-squares fit of the two-sphere model from several starts.",
+                + "depths, widths and phases, and a least-squares fit of the two-sphere model from several starts; "
+                + "then, when asked, the joint fit with radial velocities (--velocities), the posterior sample "
+                + "(--posterior) and the absolute dimensions (from the velocities, or --k1 --k2). --seed seeds every "
+                + "random draw of the run: the bootstrap of the minima, the global search, the sampler and the "
+                + "dimensions' draws.",
             "Writes report.html (one page, plots embedded), results.json (every number of the page), "
                 + "settings-used.json (run it again with --settings to repeat the run) and the files of each "
                 + "stage (period.json, periodogram.png, minima.csv, ephemeris.json, o-c.png, fit.json, fit.png, "
-                + "residuals.csv, model.json). Exit 1 with a report that explains when the data cannot give an "
-                + "answer (no eclipses, one eclipse only, no significant period) or the period is ambiguous.",
+                + "residuals.csv, model.json; with --posterior chain.csv.gz, trace.png, corner.png; with "
+                + "--velocities velocities.png; with --velocities or --k1 --k2 dimensions.json, dimensions.txt, "
+                + "mass-radius.png and, with --teff1, mass-luminosity.png). Exit 1 with a report that explains when "
+                + "the data cannot give an answer (no eclipses, one eclipse only, no significant period), the period is ambiguous, or the "
+                + "posterior sample has not converged.",
             "Every option can also be given in a settings file (docs/analyse.md); options win over the file."})
 public final class AnalyseCommand implements Callable<Integer> {
 
@@ -95,8 +102,17 @@ public final class AnalyseCommand implements Callable<Integer> {
     @Option(names = "--supersample", paramLabel = "N", description = "Sub-exposures per exposure (default: one per 2 minutes of exposure).")
     Integer supersample;
 
-    @Option(names = "--seed", paramLabel = "S", description = "Seed of the random draws (default 1).")
-    Long seed;
+    @Option(names = "--velocities", paramLabel = "RV.csv",
+            description = "Radial velocities of both stars (repeatable, e.g. one file per instrument): after the "
+                    + "light-curve fit, the light curves and velocities are fitted together (as fit --velocities), "
+                    + "then the absolute dimensions are computed from that fit.")
+    List<Path> velocities;
+
+    @Mixin
+    DimensionsOptions dimensions;
+
+    @Mixin
+    PosteriorOptions sampling;
 
     @Mixin
     PhotometryOptions photometry;
@@ -159,7 +175,14 @@ public final class AnalyseCommand implements Callable<Integer> {
         m.put("starts", starts);
         m.put("exposureTime", exposureTime);
         m.put("supersample", supersample);
-        m.put("seed", seed);
+        m.put("seed", sampling.seed);
+        m.put("posterior", sampling.posterior ? Boolean.TRUE : null);
+        m.put("maxSteps", sampling.maxSteps);
+        m.put("walkers", sampling.walkers);
+        m.put("threads", sampling.threads);
+        m.put("velocities", velocities == null ? null : velocities.stream()
+                .map(f -> f.toAbsolutePath().normalize().toString()).toList());
+        m.putAll(dimensions.settingsEntries());
         return m;
     }
 }

@@ -32,7 +32,10 @@ import picocli.CommandLine.Spec;
                     + "results.json and the files of each stage).",
             "Targets: every light curve in a folder (one target per file), or the rows of a manifest CSV with the "
                     + "columns file (several separated by ;), label, period, model, settings (an analyse settings "
-                    + "file), velocities; paths relative to the manifest.",
+                    + "file), velocities (several separated by ;: fitted jointly with the light curves, then absolute "
+                    + "dimensions), k1, k1Error, k2, k2Error (km/s, instead of velocities), teff1, teff1Error, teff2, "
+                    + "teff2Error (K); paths relative to the manifest. With dimensions, summary.csv has mass1, mass2, "
+                    + "radius1Rsun, radius2Rsun, logg1, logg2 (and logLuminosity1, logLuminosity2).",
             "A failing target is recorded with its exit code and message and the batch goes on. An interrupted "
                     + "batch (Ctrl-C, kill) run again with the same --out resumes: finished targets are kept, a "
                     + "half-done one is redone from scratch. Writes summary.csv and index.html to --out.",

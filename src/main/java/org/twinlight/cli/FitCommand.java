@@ -30,10 +30,8 @@ import org.twinlight.report.ModelFileJson;
 import org.twinlight.report.FitPlot;
 import org.twinlight.report.InputDigest;
 import org.twinlight.report.PosteriorFiles;
-import org.twinlight.report.PosteriorPlots;
 import org.twinlight.report.JointFitFiles;
 import org.twinlight.report.ResultSet;
-import org.twinlight.report.VelocityPlot;
 import org.twinlight.time.TimeScale;
 import org.twinlight.velocity.VelocityData;
 import picocli.CommandLine.Command;
@@ -304,14 +302,10 @@ public final class FitCommand implements Callable<Integer> {
                         scale.label());
             }
             if (posterior != null) {
-                PosteriorFiles.writeChain(set.file(PosteriorFiles.CHAIN_FILE), posterior);
-                PosteriorPlots.writeTrace(set.file("trace.png"), posterior, "Posterior of " + files.get(0).getFileName());
-                PosteriorPlots.writeCorner(set.file("corner.png"), posterior, "Posterior of " + files.get(0).getFileName());
+                PosteriorFiles.writeAll(set::file, posterior, "Posterior of " + files.get(0).getFileName());
             }
-            for (int f = 0; joint != null && f < velocityData.size(); f++) {
-                String name = f == 0 ? "velocities.png" : "velocities-" + safe(baseName(velocityFiles.get(f))) + ".png";
-                VelocityPlot.write(joint.solution(r, f), velocityData.get(f), set.file(name), "Radial velocities of "
-                        + velocityFiles.get(f).getFileName() + ", joint fit with " + files.get(0).getFileName());
+            if (joint != null) {
+                JointFitFiles.writePlots(set::file, r, joint, velocityFiles, files.get(0).getFileName().toString());
             }
             set.commit();
         }

@@ -65,6 +65,32 @@ public final class JointFitFiles {
         notes.add(VelocityFiles.CAUTION);
     }
 
+    /**
+     * The velocity plots of a joint fit, one per velocity file ({@code velocities.png}, then
+     * {@code velocities-NAME.png}), each to {@code target.apply(name)}.
+     *
+     * @param lightCurve name of the light curve, for the titles
+     * @return the names written, in order
+     */
+    public static List<String> writePlots(java.util.function.Function<String, Path> target, FitResult r,
+            JointVelocities v, List<Path> files, String lightCurve) {
+        List<String> names = new java.util.ArrayList<>();
+        for (int f = 0; f < files.size(); f++) {
+            String name = f == 0 ? "velocities.png" : "velocities-" + safeName(files.get(f)) + ".png";
+            VelocityPlot.write(v.solution(r, f), v.files().get(f), target.apply(name), "Radial velocities of "
+                    + files.get(f).getFileName() + ", joint fit with " + lightCurve);
+            names.add(name);
+        }
+        return names;
+    }
+
+    /** A file's name without its extension, with every character but letters, digits, _ . - replaced by _. */
+    private static String safeName(Path f) {
+        String n = f.getFileName().toString();
+        int dot = n.lastIndexOf('.');
+        return (dot > 0 ? n.substring(0, dot) : n).replaceAll("[^A-Za-z0-9_.-]", "_");
+    }
+
     /** The terminal lines of the velocity part (K1, K2, γ and the offsets are in the parameter table). */
     public static String summary(FitResult r, JointVelocities v) {
         StringBuilder sb = new StringBuilder();

@@ -90,6 +90,17 @@ public final class PosteriorFiles {
     }
 
     /**
+     * The chain, {@code trace.png} and {@code corner.png}, each to {@code target.apply(name)}.
+     *
+     * @param title title of the plots
+     */
+    public static void writeAll(java.util.function.Function<String, Path> target, Posterior p, String title) {
+        writeChain(target.apply(CHAIN_FILE), p);
+        PosteriorPlots.writeTrace(target.apply("trace.png"), p, title);
+        PosteriorPlots.writeCorner(target.apply("corner.png"), p, title);
+    }
+
+    /**
      * {@code chain.csv.gz}: header {@code step,walker,logPosterior,NAME,...}, one row per walker and
      * step after burn-in (steps counted from the start of the run).
      */

@@ -22,8 +22,8 @@ class BatchIndexTest {
     @Test
     void aHostileLabelAndMessageAreEscapedOnThePageAndKeptVerbatimInTheTable() throws Exception {
         Path f = Files.writeString(dir.resolve("a.csv"), "x");
-        BatchTarget t = new BatchTarget("a", HOSTILE, List.of(f), null, null, null, null, dir.resolve("a"), "test");
-        BatchTarget u = new BatchTarget("b", "plain", List.of(f), null, null, null, null, dir.resolve("b"), "test");
+        BatchTarget t = new BatchTarget("a", HOSTILE, List.of(f), null, null, null, List.of(), null, dir.resolve("a"), "test");
+        BatchTarget u = new BatchTarget("b", "plain", List.of(f), null, null, null, List.of(), null, dir.resolve("b"), "test");
         TargetResult ok = new TargetResult(0, "fine </td><b>bold</b>",
                 Map.of("radius1", new TargetResult.KeyValue(0.10512, 0.00031)), List.of("fit.png"), "fit.png");
         BatchIndex.write(dir, List.of(t, u), List.of(new BatchJournal.Entry("a", t.fingerprint(), ok, 1.0),

@@ -193,7 +193,7 @@ class BatchRunnerTest {
         Path out = dir.resolve("out");
         new BatchRunner(t -> writeResult(t, "run"), 1, false).run(targets, out, BatchRunner.Progress.NONE);
         BatchTarget t1 = targets.get(0);
-        BatchTarget changed = new BatchTarget(t1.id(), t1.label(), t1.files(), 2.5, null, null, null, t1.outputDir(),
+        BatchTarget changed = new BatchTarget(t1.id(), t1.label(), t1.files(), 2.5, null, null, List.of(), null, t1.outputDir(),
                 t1.origin());
         List<String> ran = new ArrayList<>();
         new BatchRunner(t -> {

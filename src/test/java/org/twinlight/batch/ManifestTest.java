@@ -106,4 +106,34 @@ class ManifestTest {
         assertThatThrownBy(() -> Manifest.read(manifest("file,label\ncurves/a.csv,\"two\nlines\"\n"), out, false))
                 .hasMessageContaining("column 'label'").hasMessageContaining("control character");
     }
+    @Test
+    void velocitiesAndNumbersOfTheDimensionsAreReadFromTheirColumns() throws Exception {
+        Files.writeString(base.resolve("curves/a-rv1.csv"), "x\n");
+        Files.writeString(base.resolve("curves/a-rv2.csv"), "x\n");
+        List<BatchTarget> t = Manifest.read(manifest("""
+                file,velocities,k1,k1Error,k2,teff1
+                curves/a.csv,curves/a-rv1.csv; curves/a-rv2.csv,,,,5800
+                curves/b.fits,,61.5,0.4,80.2,
+                """), out, false);
+        assertThat(t.get(0).velocities()).containsExactly(base.resolve("curves/a-rv1.csv"),
+                base.resolve("curves/a-rv2.csv"));
+        assertThat(t.get(0).afterFit()).containsExactly(java.util.Map.entry("teff1", 5800.0));
+        assertThat(t.get(1).velocities()).isEmpty();
+        assertThat(t.get(1).afterFit()).containsEntry("k1", 61.5).containsEntry("k1Error", 0.4)
+                .containsEntry("k2", 80.2).hasSize(3);
+        assertThat(t.get(1).fingerprint()).isNotEqualTo(Manifest.read(manifest("""
+                file,k1,k2
+                curves/b.fits,61.5,80.3
+                """), out, false).get(0).fingerprint());
+        assertThatThrownBy(() -> Manifest.read(manifest("""
+                file,k1
+                curves/a.csv,fast
+                """), out, false)).isInstanceOf(BadInputException.class).hasMessageContaining("column 'k1'")
+                .hasMessageContaining("'fast'");
+        assertThatThrownBy(() -> Manifest.read(manifest("""
+                file,velocities
+                curves/a.csv,../secret.csv
+                """), out, false)).isInstanceOf(BadInputException.class).hasMessageContaining("velocities")
+                .hasMessageContaining("--allow-outside");
+    }
 }

@@ -15,7 +15,7 @@ import org.twinlight.orbit.RadialVelocityCurve;
 /** {@code fit --velocities} as a user runs it: files written, exit codes, messages. */
 class JointFitCommandTest {
     // Demo system (invented): eccentric detached pair.
-    private static final String MODEL = """
+    static final String MODEL = """
             {
               "period": 2.8731, "epoch": 2460000.4123,
               "radius1": 0.118, "radius2": 0.081, "inclination": 87.6,
@@ -24,8 +24,8 @@ class JointFitCommandTest {
               "limbDarkening2": {"law": "quadratic", "coefficients": [0.45, 0.20]}
             }
             """;
-    private static final double K1 = 62.0;
-    private static final double K2 = 85.0;
+    static final double K1 = 62.0;
+    static final double K2 = 85.0;
 
     @TempDir
     Path dir;
@@ -90,6 +90,19 @@ class JointFitCommandTest {
         assertThat(json.at("/velocities/residualRmsKms/star1").asDouble()).isBetween(0.9, 2.1);
         assertThat(json.at("/velocities/residualRmsKms/star2").asDouble()).isBetween(1.2, 2.8);
         assertThat(fit.out()).contains("velocity residual RMS");
+        // dimensions takes K1 and K2 of the joint fit when neither --velocities nor --k1 --k2 is given
+        Path dims = dir.resolve("dims");
+        Run d = run("dimensions", "--fit", out.resolve("fit.json").toString(), "--draws", "2000", "--out",
+                dims.toString());
+        assertThat(d.code()).as(d.out() + d.err()).isZero();
+        JsonNode dj = new ObjectMapper().readTree(dims.resolve("dimensions.json").toFile());
+        assertThat(dj.at("/input/velocities").asText()).contains("jointly");
+        for (int star = 1; star <= 2; star++) {
+            JsonNode m = dj.at("/star" + star + "/mass");
+            // truth from Kepler's third law (AnalyseAfterFitTest.trueMass); 4σ
+            assertThat(Math.abs(m.get("value").asDouble() - AnalyseAfterFitTest.trueMass(star))).as("M" + star)
+                    .isLessThan(4 * m.get("uncertainty").asDouble());
+        }
     }
 
     @Test
