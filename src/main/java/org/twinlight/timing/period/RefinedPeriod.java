@@ -27,8 +27,8 @@ public record RefinedPeriod(double periodDays, double periodErrorDays, double ep
     /** Refined from eclipse timings (a weighted straight line through them). */
     static RefinedPeriod fromTimings(PeriodRefinement.Ephemeris e, PeriodRefinement.Trapezoid shape) {
         boolean scaled = e.timings() > 2 && e.reducedChiSquare() > 1;
-        String method = String.format(Locale.ROOT, "weighted linear fit of %d primary-eclipse timings (trapezoid"
-                + " template, Fisher-information errors%s)", e.timings(), scaled ? String.format(Locale.ROOT,
+        String method = String.format(Locale.ROOT, "weighted linear fit of %d primary-eclipse timings (template"
+                + " of two limb-darkened discs, Fisher-information errors%s)", e.timings(), scaled ? String.format(Locale.ROOT,
                         ", scaled by √χ²ν = %.2f", Math.sqrt(e.reducedChiSquare())) : "");
         return new RefinedPeriod(e.periodDays(), e.periodErrorDays(), e.epochDays(), e.epochErrorDays(), shape.width(),
                 shape.ingress() / (0.5 * shape.width()), shape.level(), e.timings(),
@@ -78,7 +78,11 @@ public record RefinedPeriod(double periodDays, double periodErrorDays, double ep
             if (shape == null) {
                 break;
             }
-            PeriodRefinement.Ephemeris eph = pr.refine(period, epoch, shape);
+            PeriodRefinement.DiscShape disc = pr.fitDiscShape(period, epoch, shape);
+            if (disc == null) {
+                break;
+            }
+            PeriodRefinement.Ephemeris eph = pr.refine(period, epoch, disc);
             if (eph == null) {
                 break;
             }
