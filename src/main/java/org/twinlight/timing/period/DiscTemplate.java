@@ -12,7 +12,7 @@ import org.twinlight.eclipse.Occultation;
  * law); the profile is normalised to 1 at mid-eclipse and tabulated against the distance from
  * mid-eclipse in units of the half width (first to last contact), between samples linearly.
  */
-final class DiscTemplate {
+final class DiscTemplate implements PeriodRefinement.EclipseProfile {
     /**
      * Quadratic limb darkening (u₁, u₂) = (0.4, 0.25), typical of Sun-like stars in the visual (recalled
      * from memory of the tables of Claret 2000, A&amp;A 363, 1081; order of magnitude only). The radii and
@@ -22,7 +22,7 @@ final class DiscTemplate {
     /** Largest impact parameter, as a fraction of the sum of the radii (a grazing eclipse keeps some depth). */
     static final double MAX_IMPACT_SHARE = 0.95;
     /** Table samples from mid-eclipse to the last contact. */
-    private static final int SAMPLES = 160;
+    private static final int SAMPLES = 96;
 
     private final double halfWidth;
     private final double radiusRatio;
@@ -49,7 +49,8 @@ final class DiscTemplate {
         }
     }
 
-    double halfWidth() {
+    @Override
+    public double halfWidth() {
         return halfWidth;
     }
 
@@ -62,7 +63,8 @@ final class DiscTemplate {
     }
 
     /** Hidden light at distance {@code d} from mid-eclipse (same unit as the half width), 1 at mid-eclipse. */
-    double profile(double d) {
+    @Override
+    public double profile(double d) {
         double x = Math.abs(d) / halfWidth * SAMPLES;
         if (x >= SAMPLES) {
             return 0;
@@ -72,7 +74,8 @@ final class DiscTemplate {
     }
 
     /** Derivative of {@link #profile} with respect to d (negative after mid-eclipse, positive before). */
-    double slope(double d) {
+    @Override
+    public double slope(double d) {
         double x = Math.abs(d) / halfWidth * SAMPLES;
         if (x >= SAMPLES) {
             return 0;

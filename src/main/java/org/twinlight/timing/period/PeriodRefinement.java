@@ -6,6 +6,7 @@ import org.apache.commons.math3.analysis.MultivariateFunction;
 import org.apache.commons.math3.analysis.UnivariateFunction;
 import org.apache.commons.math3.optim.InitialGuess;
 import org.apache.commons.math3.optim.MaxEval;
+import org.apache.commons.math3.distribution.TDistribution;
 import org.apache.commons.math3.exception.TooManyEvaluationsException;
 import org.apache.commons.math3.optim.nonlinear.scalar.GoalType;
 import org.apache.commons.math3.optim.nonlinear.scalar.ObjectiveFunction;
@@ -14,6 +15,7 @@ import org.apache.commons.math3.optim.nonlinear.scalar.noderiv.SimplexOptimizer;
 import org.apache.commons.math3.optim.univariate.BrentOptimizer;
 import org.apache.commons.math3.optim.univariate.SearchInterval;
 import org.apache.commons.math3.optim.univariate.UnivariateObjectiveFunction;
+import org.twinlight.statistics.FitStatistics;
 
 /**
  * Refines a period and gives its uncertainty from eclipse timings.
@@ -40,20 +42,47 @@ final class PeriodRefinement {
     }
 
     /** Shape of the folded primary: total width and ingress (phase), depth and out-of-eclipse level. */
-    record Trapezoid(double width, double ingress, double depth, double level) {
-        /** Model flux at phase distance d from the centre. */
-        double model(double d) {
-            return level - depth * profile(d);
+    record Trapezoid(double width, double ingress, double depth, double level) implements EclipseProfile {
+        @Override
+        public double halfWidth() {
+            return 0.5 * width;
         }
 
-        double profile(double d) {
+        @Override
+        public double profile(double d) {
+            double a = Math.abs(d);
             double half = 0.5 * width;
-            if (d >= half) {
+            if (a >= half) {
                 return 0;
             }
             double flat = half - ingress;
-            return d <= flat ? 1 : (half - d) / ingress;
+            return a <= flat ? 1 : (half - a) / ingress;
         }
+
+        @Override
+        public double slope(double d) {
+            double a = Math.abs(d);
+            return a > 0.5 * width - ingress && a < 0.5 * width ? -Math.signum(d) / ingress : 0;
+        }
+    }
+
+    /** The shape of an eclipse against the distance d from mid-eclipse (phase): 1 at mid-eclipse, 0 outside. */
+    interface EclipseProfile {
+        /** Half of the full width, phase. */
+        double halfWidth();
+
+        /** Hidden share of the depth at mid-eclipse, at distance d (either sign). */
+        double profile(double d);
+
+        /** Derivative of {@link #profile} with respect to d. */
+        double slope(double d);
+    }
+
+    /**
+     * A template fitted to the folded primary: its shape, its depth, the scatter about it (never below the
+     * light curve's), the χ² of the fold about it (unweighted) and its name.
+     */
+    record TimingTemplate(EclipseProfile shape, double depth, double sigma, double chi2, String name) {
     }
 
     private final double[] timesDays;
@@ -114,18 +143,18 @@ final class PeriodRefinement {
         return best;
     }
 
-    /** The disc template fitted to the folded primary: its shape, depth and the scatter about it. */
-    record DiscShape(DiscTemplate template, double depth, double sigma) {
-    }
-
     /**
      * Fits the disc template ({@link DiscTemplate}: half width, radius ratio, impact parameter) to the
      * primary eclipse folded at the trial ephemeris, starting from the trapezoid; the depth and the
      * out-of-eclipse levels (one per well-covered cycle, ground nights having zero-point offsets) by linear
-     * least squares at each trial shape, the shape by the Nelder–Mead simplex (Commons Math). Null when the
-     * fold holds too few points or no dip.
+     * least squares at each trial shape, the shape by the Nelder–Mead simplex (Commons Math). The trapezoid
+     * is judged on the same points with the same levels. Returns both, the one with the lower χ² first (two
+     * limb-darkened stars are best described by the discs; a template that does not match the eclipse's
+     * shape makes timings depend on where the points fall); empty when the fold holds too few points or no
+     * dip. Without {@code withDiscs} only the trapezoid is judged (a first pass that only needs to bring the
+     * trial period close).
      */
-    DiscShape fitDiscShape(double periodDays, double epochDays, Trapezoid start) {
+    List<TimingTemplate> fitTemplates(double periodDays, double epochDays, Trapezoid start, boolean withDiscs) {
         double startHalf = 0.5 * start.width();
         double window = WINDOW_HALF_WIDTHS * startHalf;
         List<double[]> pts = new ArrayList<>();
@@ -139,13 +168,25 @@ final class PeriodRefinement {
         }
         LevelPools pools = LevelPools.of(pts, 2);
         if (pts.size() < pools.count() + 4) {
-            return null;
+            return List.of();
         }
         double[][] p = pts.toArray(double[][]::new);
         int[] pool = pools.indices();
+        List<TimingTemplate> out = new ArrayList<>();
+        if (withDiscs) {
+            addTemplate(out, fitDiscs(p, pool, pools.count(), startHalf), "two limb-darkened discs", 4, p, pool,
+                    pools.count());
+        }
+        addTemplate(out, start, "trapezoid", 3, p, pool, pools.count());
+        out.sort(java.util.Comparator.comparingDouble(TimingTemplate::chi2));
+        return out;
+    }
+
+    /** The disc template of least χ² over the points {d, flux, cycle} with their level pools. */
+    private static DiscTemplate fitDiscs(double[][] p, int[] pool, int pools, double startHalf) {
         MultivariateFunction chi2 = x -> {
             DiscTemplate t = template(x, startHalf);
-            return t == null ? Double.MAX_VALUE : LevelPools.fit(p, pool, pools.count(), t, 0)[1];
+            return t == null ? Double.MAX_VALUE : LevelPools.fit(p, pool, pools, t, 0)[1];
         };
         double[] best = null;
         double bestChi2 = Double.POSITIVE_INFINITY;
@@ -159,7 +200,7 @@ final class PeriodRefinement {
                 }
             }
         }
-        // The simplex stops at a relative change of 1e-7 in χ² or after MAX_SHAPE_EVALUATIONS; the best shape
+        // The simplex stops at a relative change of 1e-6 in χ² or after MAX_SHAPE_EVALUATIONS; the best shape
         // seen is kept either way.
         double[][] seen = {best.clone(), {bestChi2}};
         MultivariateFunction tracked = x -> {
@@ -171,20 +212,25 @@ final class PeriodRefinement {
             return c;
         };
         try {
-            new SimplexOptimizer(1e-7, 1e-12).optimize(new MaxEval(MAX_SHAPE_EVALUATIONS), new ObjectiveFunction(tracked),
+            new SimplexOptimizer(1e-6, 1e-12).optimize(new MaxEval(MAX_SHAPE_EVALUATIONS), new ObjectiveFunction(tracked),
                     GoalType.MINIMIZE, new InitialGuess(best), new NelderMeadSimplex(new double[] {0.08, 0.3, 0.15}));
         } catch (TooManyEvaluationsException e) {
             // keep the best shape seen
         }
         best = seen[0];
-        DiscTemplate t = template(best, startHalf);
-        double[] fit = LevelPools.fit(p, pool, pools.count(), t, 0);
-        if (!(fit[0] > 0)) {
-            return null;
+        return template(best, startHalf);
+    }
+
+    private void addTemplate(List<TimingTemplate> out, EclipseProfile shape, String name, int shapeParameters,
+            double[][] p, int[] pool, int pools) {
+        if (shape == null) {
+            return;
         }
-        int dof = p.length - pools.count() - 4;
-        double sigma = Math.max(scatter, dof > 0 ? Math.sqrt(fit[1] / dof) : 0);
-        return new DiscShape(t, fit[0], sigma);
+        double[] fit = LevelPools.fit(p, pool, pools, shape, 0);
+        int dof = p.length - pools - shapeParameters;
+        if (fit[0] > 0 && dof > 0) {
+            out.add(new TimingTemplate(shape, fit[0], Math.max(scatter, Math.sqrt(fit[1] / dof)), fit[1], name));
+        }
     }
 
     /** Most evaluations of the disc template's χ² in one shape fit. */
@@ -239,7 +285,7 @@ final class PeriodRefinement {
          * Linear least squares of flux = level(pool) − depth·profile(d − shift) over points {d, flux, ..}:
          * {depth, χ² (unweighted)}; with {@code fixedDepth} &gt; 0 only the levels are fitted.
          */
-        static double[] fit(double[][] p, int[] pool, int count, DiscTemplate t, double shift, double fixedDepth) {
+        static double[] fit(double[][] p, int[] pool, int count, EclipseProfile t, double shift, double fixedDepth) {
             double[] n = new double[count];
             double[] sy = new double[count];
             double[] sg = new double[count];
@@ -274,17 +320,17 @@ final class PeriodRefinement {
             return new double[] {depth, depth > 0 ? syy - syg * syg / sgg : Double.MAX_VALUE};
         }
 
-        static double[] fit(double[][] p, int[] pool, int count, DiscTemplate t, double fixedDepth) {
+        static double[] fit(double[][] p, int[] pool, int count, EclipseProfile t, double fixedDepth) {
             return fit(p, pool, count, t, 0, fixedDepth);
         }
     }
 
     /**
-     * Times the primary eclipses folded at the trial ephemeris with the fitted disc template and fits a
+     * Times the primary eclipses folded at the trial ephemeris with a fitted template and fits a
      * straight line; null when fewer than two timings with distinct cycles can be made.
      */
-    Ephemeris refine(double periodDays, double epochDays, DiscShape shape) {
-        double halfWidthDays = shape.template().halfWidth() * periodDays;
+    Ephemeris refine(double periodDays, double epochDays, TimingTemplate shape) {
+        double halfWidthDays = shape.shape().halfWidth() * periodDays;
         // Points near a primary eclipse, by cycle.
         List<int[]> cycles = new ArrayList<>();
         int i = 0;
@@ -327,7 +373,7 @@ final class PeriodRefinement {
     }
 
     /** {mean cycle, shift (days), shift error (days)} of one group, or null without ingress/egress points. */
-    private double[] timeGroup(List<int[]> group, double periodDays, double epochDays, DiscShape shape,
+    private double[] timeGroup(List<int[]> group, double periodDays, double epochDays, TimingTemplate shape,
             double halfWidthDays) {
         List<double[]> pts = new ArrayList<>();
         for (int[] c : group) {
@@ -341,7 +387,7 @@ final class PeriodRefinement {
         LevelPools pools = LevelPools.of(pts, 2);
         double[][] p = pts.toArray(double[][]::new);
         int[] pool = pools.indices();
-        DiscTemplate t = shape.template();
+        EclipseProfile t = shape.shape();
         double range = 0.5 * t.halfWidth();
         UnivariateFunction chi2 = shift -> LevelPools.fit(p, pool, pools.count(), t, shift, shape.depth())[1];
         // Coarse scan, then Brent's method around the best point (shifts in phase).
@@ -383,6 +429,17 @@ final class PeriodRefinement {
         return new double[] {cycleWeight / sumSquares, shift * periodDays, shape.sigma() / Math.sqrt(fisher)};
     }
 
+    /**
+     * The quantile of Student's t with {@code dof} degrees of freedom at the Gaussian 1σ point (0.8413): the
+     * factor that gives an error scaled by the scatter of few points the coverage of a Gaussian 1σ.
+     */
+    static double smallSampleFactor(int dof) {
+        return new TDistribution(null, dof).inverseCumulativeProbability(GAUSSIAN_ONE_SIGMA_QUANTILE);
+    }
+
+    /** Φ(1), the probability of a standard normal variable below 1. */
+    private static final double GAUSSIAN_ONE_SIGMA_QUANTILE = 0.8413447460685429;
+
     private static Ephemeris fitLine(List<double[]> timings, double periodDays, double epochDays) {
         if (timings.size() < 2) {
             return null;
@@ -418,7 +475,14 @@ final class PeriodRefinement {
         }
         int dof = timings.size() - 2;
         double reduced = dof > 0 ? chi2 / dof : Double.NaN;
-        double inflate = dof > 0 ? Math.sqrt(Math.max(1, reduced)) : 1;
+        double inflate = Math.sqrt(FitStatistics.varianceScale(chi2, dof, false));
+        if (inflate > 1) {
+            // The errors now come from the timings' own scatter, estimated on ν degrees of freedom: the
+            // slope over its error then follows Student's t with ν degrees of freedom, not a Gaussian
+            // (Student 1908, Biometrika 6, 1). Widen to the t quantile of a Gaussian 1σ (68.27 %, two-sided):
+            // 1.84 for ν = 1, 1.32 for ν = 2, 1.20 for ν = 3, 1.05 for ν = 10.
+            inflate *= smallSampleFactor(dof);
+        }
         double period = periodDays + slope;
         double periodError = inflate / Math.sqrt(see);
         long refCycle = Math.round(meanCycle);
