@@ -19,6 +19,11 @@ final class DiscTemplate implements PeriodRefinement.EclipseProfile {
      * the impact parameter are fitted, so the law only needs to give the right kind of curvature.
      */
     static final LimbDarkening TYPICAL_LIMB_DARKENING = LimbDarkening.quadratic(0.4, 0.25);
+    /**
+     * Discs of uniform brightness: the other extreme of limb darkening, whose timings show how much the
+     * period depends on the law assumed.
+     */
+    static final LimbDarkening NO_LIMB_DARKENING = LimbDarkening.uniform();
     /** Largest impact parameter, as a fraction of the sum of the radii (a grazing eclipse keeps some depth). */
     static final double MAX_IMPACT_SHARE = 0.95;
     /** Table samples from mid-eclipse to the last contact. */
@@ -34,18 +39,19 @@ final class DiscTemplate implements PeriodRefinement.EclipseProfile {
      *     given to {@link #profile} (phase)
      * @param radiusRatio radius of the front disc over that of the eclipsed star, &gt; 0
      * @param impactShare impact parameter over the sum of the radii, in [0, {@link #MAX_IMPACT_SHARE}]
+     * @param ld intensity profile of the eclipsed star
      */
-    DiscTemplate(double halfWidth, double radiusRatio, double impactShare) {
+    DiscTemplate(double halfWidth, double radiusRatio, double impactShare, LimbDarkening ld) {
         this.halfWidth = halfWidth;
         this.radiusRatio = radiusRatio;
         double sum = 1 + radiusRatio;
         this.impact = Math.max(0, Math.min(MAX_IMPACT_SHARE, impactShare)) * sum;
         double chord = Math.sqrt((sum - impact) * (sum + impact));
-        double centre = Occultation.hiddenFraction(TYPICAL_LIMB_DARKENING, radiusRatio, impact);
+        double centre = Occultation.hiddenFraction(ld, radiusRatio, impact);
         table = new double[SAMPLES + 2];
         for (int j = 0; j < SAMPLES; j++) {
             double x = chord * j / SAMPLES;
-            table[j] = Occultation.hiddenFraction(TYPICAL_LIMB_DARKENING, radiusRatio, Math.hypot(impact, x)) / centre;
+            table[j] = Occultation.hiddenFraction(ld, radiusRatio, Math.hypot(impact, x)) / centre;
         }
     }
 

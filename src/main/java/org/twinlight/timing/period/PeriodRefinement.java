@@ -15,6 +15,7 @@ import org.apache.commons.math3.optim.nonlinear.scalar.noderiv.SimplexOptimizer;
 import org.apache.commons.math3.optim.univariate.BrentOptimizer;
 import org.apache.commons.math3.optim.univariate.SearchInterval;
 import org.apache.commons.math3.optim.univariate.UnivariateObjectiveFunction;
+import org.twinlight.eclipse.LimbDarkening;
 import org.twinlight.statistics.FitStatistics;
 
 /**
@@ -151,10 +152,11 @@ final class PeriodRefinement {
      * is judged on the same points with the same levels. Returns both, the one with the lower χ² first (two
      * limb-darkened stars are best described by the discs; a template that does not match the eclipse's
      * shape makes timings depend on where the points fall); empty when the fold holds too few points or no
-     * dip. Without {@code withDiscs} only the trapezoid is judged (a first pass that only needs to bring the
-     * trial period close).
+     * dip. Which templates: {@link #TRAPEZOID_ONLY} (a first pass that only needs to bring the trial period
+     * close), {@link #WITH_DISCS}, or {@link #WITH_UNIFORM_DISCS} (also discs without limb darkening, the other
+     * extreme of the law, to see how much the timings depend on it).
      */
-    List<TimingTemplate> fitTemplates(double periodDays, double epochDays, Trapezoid start, boolean withDiscs) {
+    List<TimingTemplate> fitTemplates(double periodDays, double epochDays, Trapezoid start, int templates) {
         double startHalf = 0.5 * start.width();
         double window = WINDOW_HALF_WIDTHS * startHalf;
         List<double[]> pts = new ArrayList<>();
@@ -173,9 +175,13 @@ final class PeriodRefinement {
         double[][] p = pts.toArray(double[][]::new);
         int[] pool = pools.indices();
         List<TimingTemplate> out = new ArrayList<>();
-        if (withDiscs) {
-            addTemplate(out, fitDiscs(p, pool, pools.count(), startHalf), "two limb-darkened discs", 4, p, pool,
-                    pools.count());
+        if (templates >= WITH_DISCS) {
+            addTemplate(out, fitDiscs(p, pool, pools.count(), startHalf, DiscTemplate.TYPICAL_LIMB_DARKENING),
+                    "two limb-darkened discs", 4, p, pool, pools.count());
+        }
+        if (templates >= WITH_UNIFORM_DISCS) {
+            addTemplate(out, fitDiscs(p, pool, pools.count(), startHalf, DiscTemplate.NO_LIMB_DARKENING),
+                    "two uniform discs", 4, p, pool, pools.count());
         }
         addTemplate(out, start, "trapezoid", 3, p, pool, pools.count());
         out.sort(java.util.Comparator.comparingDouble(TimingTemplate::chi2));
@@ -183,9 +189,9 @@ final class PeriodRefinement {
     }
 
     /** The disc template of least χ² over the points {d, flux, cycle} with their level pools. */
-    private static DiscTemplate fitDiscs(double[][] p, int[] pool, int pools, double startHalf) {
+    private static DiscTemplate fitDiscs(double[][] p, int[] pool, int pools, double startHalf, LimbDarkening ld) {
         MultivariateFunction chi2 = x -> {
-            DiscTemplate t = template(x, startHalf);
+            DiscTemplate t = template(x, startHalf, ld);
             return t == null ? Double.MAX_VALUE : LevelPools.fit(p, pool, pools, t, 0)[1];
         };
         double[] best = null;
@@ -218,7 +224,7 @@ final class PeriodRefinement {
             // keep the best shape seen
         }
         best = seen[0];
-        return template(best, startHalf);
+        return template(best, startHalf, ld);
     }
 
     private void addTemplate(List<TimingTemplate> out, EclipseProfile shape, String name, int shapeParameters,
@@ -233,6 +239,12 @@ final class PeriodRefinement {
         }
     }
 
+    /** Templates fitted by {@link #fitTemplates}: the trapezoid alone. */
+    static final int TRAPEZOID_ONLY = 0;
+    /** The trapezoid and the limb-darkened discs. */
+    static final int WITH_DISCS = 1;
+    /** The trapezoid, the limb-darkened and the uniform discs. */
+    static final int WITH_UNIFORM_DISCS = 2;
     /** Most evaluations of the disc template's χ² in one shape fit. */
     private static final int MAX_SHAPE_EVALUATIONS = 300;
     /** Half widths of the trapezoid around each eclipse used to fit the disc template. */
@@ -241,14 +253,14 @@ final class PeriodRefinement {
     private static final double MAX_WIDTH_STRETCH = 1.5;
 
     /** The template for simplex coordinates {ln(half width / trapezoid's), ln k, b/(1 + k)}; null out of range. */
-    private static DiscTemplate template(double[] x, double startHalf) {
+    private static DiscTemplate template(double[] x, double startHalf, LimbDarkening ld) {
         double stretch = Math.exp(x[0]);
         double k = Math.exp(x[1]);
         if (stretch < 0.3 || stretch > MAX_WIDTH_STRETCH || k < 0.05 || k > 20 || x[2] < 0
                 || x[2] > DiscTemplate.MAX_IMPACT_SHARE) {
             return null;
         }
-        return new DiscTemplate(stretch * startHalf, k, x[2]);
+        return new DiscTemplate(stretch * startHalf, k, x[2], ld);
     }
 
     /**

@@ -29,19 +29,19 @@ public record RefinedPeriod(double periodDays, double periodErrorDays, double ep
         String method, Optional<String> caution) {
 
     /**
-     * Most timings for which the period carries a caution and its error is at least the spread between
-     * the periods timed with the two templates: with two or three timings the line has at most one degree of
+     * Most timings for which the period carries a caution and its error is at least the difference between
+     * the periods timed with the best and the next-best template: with two or three timings the line has at most one degree of
      * freedom, and the χ²ν that would reveal optimistic errors means nothing (common practice, no source).
      */
     static final int FEW_TIMINGS = 3;
 
     /**
      * Refined from eclipse timings (a weighted straight line through them) with the template that fits the
-     * fold best; {@code other}, the ephemeris timed with the other template (null when there is none), sets
-     * a floor on the errors when the timings are few.
+     * fold best; {@code other}, the ephemeris timed with the next-best template {@code otherName} (null when
+     * there is none), sets a floor on the errors when the timings are few.
      */
     static RefinedPeriod fromTimings(PeriodRefinement.Ephemeris e, PeriodRefinement.Trapezoid shape,
-            String templateName, PeriodRefinement.Ephemeris other, double lastTimeDays) {
+            String templateName, String otherName, PeriodRefinement.Ephemeris other, double lastTimeDays) {
         boolean scaled = e.timings() > 2 && e.reducedChiSquare() > 1;
         String method = String.format(Locale.ROOT, "weighted linear fit of %d primary-eclipse timings (template: %s;"
                 + " Fisher-information errors%s)", e.timings(), templateName, scaled ? String.format(Locale.ROOT,
@@ -56,8 +56,8 @@ public record RefinedPeriod(double periodDays, double periodErrorDays, double ep
                 double de = other.epochDays() - e.epochDays();
                 de = Math.abs(de - Math.rint(de / e.periodDays()) * e.periodDays());
                 if (dp > periodError || de > epochError) {
-                    method += String.format(Locale.ROOT, "; at least the difference between the two templates'"
-                            + " timings (%.2g d in the period)", dp);
+                    method += String.format(Locale.ROOT, "; at least the difference from the timings with the"
+                            + " next-best template, %s (%.2g d in the period)", otherName, dp);
                 }
                 periodError = Math.max(periodError, dp);
                 epochError = Math.max(epochError, de);
@@ -106,8 +106,9 @@ public record RefinedPeriod(double periodDays, double periodErrorDays, double ep
      * Refines a trial period: the best box of the periodogram at that period gives the dip; a trapezoid
      * and a template of two limb-darkened discs fitted to the folded dip, and a straight line through the
      * eclipse timings made with the better of the two give the period and its error (two passes, see
-     * {@link PeriodRefinement}); with at most {@link #FEW_TIMINGS} timings the errors are at least the
-     * difference the other template makes, and a caution asks for the next minimum.
+     * {@link PeriodRefinement}); with at most {@link #FEW_TIMINGS} timings, discs without limb darkening are
+     * fitted too, the errors are at least the difference the next-best template makes, and a caution asks for
+     * the next minimum.
      */
     static RefinedPeriod at(SearchData data, BoxLeastSquares bls, FrequencyGrid grid, double scatter,
             double trialPeriodDays) {
@@ -127,7 +128,8 @@ public record RefinedPeriod(double periodDays, double periodErrorDays, double ep
                 break;
             }
             // The first pass times with the trapezoid to bring the period close; the second fits the discs too.
-            List<PeriodRefinement.TimingTemplate> templates = pr.fitTemplates(period, epoch, shape, pass > 0);
+            List<PeriodRefinement.TimingTemplate> templates = pr.fitTemplates(period, epoch, shape,
+                    pass == 0 ? PeriodRefinement.TRAPEZOID_ONLY : PeriodRefinement.WITH_DISCS);
             if (templates.isEmpty()) {
                 break;
             }
@@ -135,11 +137,18 @@ public record RefinedPeriod(double periodDays, double periodErrorDays, double ep
             if (eph == null) {
                 break;
             }
-            PeriodRefinement.Ephemeris other = eph.timings() <= FEW_TIMINGS && templates.size() > 1
-                    ? pr.refine(period, epoch, templates.get(1)) : null;
+            PeriodRefinement.Ephemeris other = null;
+            if (pass > 0 && eph.timings() <= FEW_TIMINGS) {
+                // Few timings: the next-best of three templates (the uniform discs added) gives the floor.
+                templates = pr.fitTemplates(period, epoch, shape, PeriodRefinement.WITH_UNIFORM_DISCS);
+                PeriodRefinement.Ephemeris best = pr.refine(period, epoch, templates.get(0));
+                other = templates.size() > 1 ? pr.refine(period, epoch, templates.get(1)) : null;
+                eph = best != null ? best : eph;
+            }
             period = eph.periodDays();
             epoch = eph.epochDays();
-            result = fromTimings(eph, shape, templates.get(0).name(), other, lastTime);
+            result = fromTimings(eph, shape, templates.get(0).name(), templates.size() > 1 ? templates.get(1).name()
+                    : null, other, lastTime);
         }
         return result;
     }
