@@ -71,22 +71,16 @@ final class DiscTemplate implements PeriodRefinement.EclipseProfile {
     /** Hidden light at distance {@code d} from mid-eclipse (same unit as the half width), 1 at mid-eclipse. */
     @Override
     public double profile(double d) {
+        // Beyond the last contact j = SAMPLES, where the table holds zeros.
         double x = Math.abs(d) / halfWidth * SAMPLES;
-        if (x >= SAMPLES) {
-            return 0;
-        }
-        int j = (int) x;
+        int j = (int) Math.min(x, SAMPLES);
         return table[j] + (x - j) * (table[j + 1] - table[j]);
     }
 
     /** Derivative of {@link #profile} with respect to d (negative after mid-eclipse, positive before). */
     @Override
     public double slope(double d) {
-        double x = Math.abs(d) / halfWidth * SAMPLES;
-        if (x >= SAMPLES) {
-            return 0;
-        }
-        int j = (int) x;
+        int j = (int) Math.min(Math.abs(d) / halfWidth * SAMPLES, SAMPLES);
         return Math.signum(d) * (table[j + 1] - table[j]) * SAMPLES / halfWidth;
     }
 }
