@@ -52,8 +52,8 @@ public final class PeriodDecisionBench {
             {1.55, 6, 20, 0}, {1.174, 3, 10, 0}, {1.174, 2.5, 10, 0}, {1.174, 6, 10, 1}, {1.32, 6, 20, 1},
             {1.05, 4, 30, 1}};
         for (double[] run : runs) {
-            String name = String.format(Locale.ROOT, "%s P = %.3f d, %.0f d at %.0f min",
-                    run[3] > 0 ? "ground nights" : "continuous", run[0], run[1], run[2]);
+            String name = String.format(Locale.ROOT, "%s P = %.3f d, %s d at %.0f min",
+                    run[3] > 0 ? "ground nights" : "continuous", run[0], run[1] % 1 == 0 ? String.format(Locale.ROOT, "%.0f", run[1]) : String.valueOf(run[1]), run[2]);
             Tally t = Tally.over(name, seeds, s -> PeriodScenarios.shortUnequal(s, run[0], run[1], run[2], run[3] > 0));
             System.out.printf(Locale.ROOT, "| %s | %d | %d | %d | %d | %d | %d | %d | %d | %.1f |   (%.1f s)%n", name,
                     seeds, t.right, t.rightCycleOutside, t.listed, t.unlisted, t.wrongCycle, t.none, t.cautioned,
