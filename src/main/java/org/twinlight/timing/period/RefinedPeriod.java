@@ -45,8 +45,8 @@ public record RefinedPeriod(double periodDays, double periodErrorDays, double ep
         boolean scaled = e.timings() > 2 && e.reducedChiSquare() > 1;
         String method = String.format(Locale.ROOT, "weighted linear fit of %d primary-eclipse timings (template: %s;"
                 + " Fisher-information errors%s)", e.timings(), templateName, scaled ? String.format(Locale.ROOT,
-                        ", scaled by √χ²ν = %.2f and Student's t for %d degrees of freedom",
-                        Math.sqrt(e.reducedChiSquare()), e.timings() - 2) : "");
+                        ", scaled by √χ²ν = %.2f and Student's t for %d degree%s of freedom",
+                        Math.sqrt(e.reducedChiSquare()), e.timings() - 2, e.timings() == 3 ? "" : "s") : "");
         double periodError = e.periodErrorDays();
         double epochError = e.epochErrorDays();
         Optional<String> caution = Optional.empty();
