@@ -87,6 +87,7 @@ public final class PeriodCommand implements Callable<Integer> {
                 s.minPeriodDays(), s.maxPeriodDays());
         w.printf(Locale.ROOT, "period  %s d  (%s)%n", Messages.valueWithUncertainty(r.periodDays(),
                 r.periodUncertaintyDays(), 8), r.uncertaintyMethod());
+        r.periodCaution().ifPresent(c -> w.println("CAUTION " + c));
         w.printf(Locale.ROOT, "epoch   %.6f ± %.6f (time scale %s), primary depth %.5f, S/N %.1f%n", r.epochDays(),
                 r.epochUncertaintyDays(), lc.timeScale().label(), r.primary().depth(), r.primary().signalToNoise());
         w.println("signal  " + r.significanceNote());

@@ -17,7 +17,8 @@ import org.twinlight.timing.period.PeriodSearchResult;
 /**
  * Writes {@code period.json}: the contract's {@code period}, {@code method}, {@code secondaryPhase} and
  * {@code candidates}, plus the epoch, the time scale, the eclipses, the period decision (confident, ambiguous
- * or not significant) with its evidence and what would settle it, the comparison of alternate eclipses, the search settings, the input file and the software version.
+ * or not significant) with its evidence and what would settle it, the caution that goes with the period (null
+ * when there is none), the comparison of alternate eclipses, the search settings, the input file and the software version.
  * Numbers that do not exist (NaN) are written as null.
  */
 public final class PeriodResultJson {
@@ -60,6 +61,7 @@ public final class PeriodResultJson {
         root.put("method", "BLS");
         root.put("methodReference", "box least squares, Kovács, Zucker & Mazeh 2002, A&A 391, 369");
         root.put("uncertaintyMethod", r.uncertaintyMethod());
+        text(root, "caution", r.periodCaution().orElse(null));
         root.put("significant", r.significant());
         number(root, "sde", r.sde());
         root.put("significance", r.significanceNote());
@@ -94,6 +96,7 @@ public final class PeriodResultJson {
             number(o, "pdmTheta", c.pdmTheta());
             number(o, "timingReducedChi2", c.refined().timingReducedChiSquare().orElse(Double.NaN));
             o.put("timings", c.refined().timings());
+            text(o, "caution", c.refined().caution().orElse(null));
             o.put("coherent", c.consistent());
             o.put("assessment", c.assessment());
         }
@@ -174,6 +177,14 @@ public final class PeriodResultJson {
     private static void valueWithError(ObjectNode o, double value, double error) {
         number(o, "value", value);
         number(o, "uncertainty", error);
+    }
+
+    private static void text(ObjectNode o, String key, String v) {
+        if (v == null) {
+            o.putNull(key);
+        } else {
+            o.put(key, v);
+        }
     }
 
     private static void number(ObjectNode o, String key, double v) {

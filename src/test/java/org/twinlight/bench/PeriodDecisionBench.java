@@ -47,15 +47,17 @@ public final class PeriodDecisionBench {
     private static void shortRuns(int seeds) {
         System.out.printf(Locale.ROOT, "| case | seeds | confident, right (5σ) | confident, right cycle, outside 5σ |"
                 + " ambiguous, truth listed | ambiguous, truth not listed | confident, WRONG CYCLE |"
-                + " not significant |%n|---|---|---|---|---|---|---|---|%n");
+                + " not significant | period with a caution | largest pull |%n|---|---|---|---|---|---|---|---|---|---|%n");
         double[][] runs = {{1.174, 5, 10, 0}, {1.174, 5, 20, 0}, {1.174, 5, 30, 0}, {0.85, 3, 20, 0},
-            {1.55, 6, 20, 0}, {1.174, 6, 10, 1}, {1.32, 6, 20, 1}, {1.05, 4, 30, 1}};
+            {1.55, 6, 20, 0}, {1.174, 3, 10, 0}, {1.174, 2.5, 10, 0}, {1.174, 6, 10, 1}, {1.32, 6, 20, 1},
+            {1.05, 4, 30, 1}};
         for (double[] run : runs) {
-            String name = String.format(Locale.ROOT, "%s P = %.3f d, %.0f d at %.0f min",
-                    run[3] > 0 ? "ground nights" : "continuous", run[0], run[1], run[2]);
+            String name = String.format(Locale.ROOT, "%s P = %.3f d, %s d at %.0f min",
+                    run[3] > 0 ? "ground nights" : "continuous", run[0], run[1] % 1 == 0 ? String.format(Locale.ROOT, "%.0f", run[1]) : String.valueOf(run[1]), run[2]);
             Tally t = Tally.over(name, seeds, s -> PeriodScenarios.shortUnequal(s, run[0], run[1], run[2], run[3] > 0));
-            System.out.printf(Locale.ROOT, "| %s | %d | %d | %d | %d | %d | %d | %d |   (%.1f s)%n", name, seeds,
-                    t.right, t.rightCycleOutside, t.listed, t.unlisted, t.wrongCycle, t.none, t.seconds);
+            System.out.printf(Locale.ROOT, "| %s | %d | %d | %d | %d | %d | %d | %d | %d | %.1f |   (%.1f s)%n", name,
+                    seeds, t.right, t.rightCycleOutside, t.listed, t.unlisted, t.wrongCycle, t.none, t.cautioned,
+                    t.largestPull, t.seconds);
         }
     }
 
@@ -73,6 +75,9 @@ public final class PeriodDecisionBench {
         int unlisted;
         int wrongCycle;
         int none;
+        int cautioned;
+        /** Largest |found − true|/σ among the confident periods of the right cycle. */
+        double largestPull;
         double seconds;
 
         static Tally over(String name, int seeds, LongFunction<PeriodScenarios.Case> make) {
@@ -89,6 +94,10 @@ public final class PeriodDecisionBench {
 
         private void add(String name, long seed, double truth, PeriodSearchResult r) {
             PeriodDecision d = r.decision();
+            cautioned += r.periodCaution().isPresent() ? 1 : 0;
+            if (d.confident() && Math.abs(r.periodDays() - truth) <= 1e-3 * truth) {
+                largestPull = Math.max(largestPull, Math.abs(r.periodDays() - truth) / r.periodUncertaintyDays());
+            }
             if (d.status() == PeriodDecision.Status.NOT_SIGNIFICANT) {
                 none++;
             } else if (Double.isNaN(truth)) {

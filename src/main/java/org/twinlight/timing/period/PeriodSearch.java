@@ -92,7 +92,7 @@ public final class PeriodSearch {
             return new PeriodSearchResult(peak.periodDays(), peak.periodErrorDays(), peak.method(), peak.epochDays(),
                     peak.epochErrorDays(), det.sde(), det.note(), det.dip().toEvent(det.dip().centre()),
                     Optional.empty(), PeriodDecision.notSignificant(peak.periodDays(), det.note()), Optional.empty(),
-                    List.of(top), det.periodogram(), summary);
+                    List.of(top), det.periodogram(), summary, Optional.empty());
         }
         CandidateComparison.Comparison comparison = CandidateComparison.compare(data, det, range, scatter);
         PeriodDecider.Outcome outcome = PeriodDecider.decide(data, range, comparison, settings.durationFractions());
@@ -149,6 +149,6 @@ public final class PeriodSearch {
         }
         return new PeriodSearchResult(period, refined.periodErrorDays(), refined.method(), epoch, epochError,
                 det.sde(), note, primary.toEvent(primary.centre()), secondary, decision.withPeriodDays(period),
-                Optional.ofNullable(outcome.oddEven()), candidates, det.periodogram(), summary);
+                Optional.ofNullable(outcome.oddEven()), candidates, det.periodogram(), summary, refined.caution());
     }
 }

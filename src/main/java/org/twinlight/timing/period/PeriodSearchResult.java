@@ -20,11 +20,14 @@ import java.util.Optional;
  * @param candidates the candidate periods compared, each refined
  * @param periodogram the BLS periodogram
  * @param search what was searched
+ * @param periodCaution a warning that goes with the period (so few eclipses timed that the next minimum
+ *     should be observed to confirm it), empty when there is none
  */
 public record PeriodSearchResult(double periodDays, double periodUncertaintyDays, String uncertaintyMethod,
         double epochDays, double epochUncertaintyDays, double sde, String significanceNote, EclipseEvent primary,
         Optional<EclipseEvent> secondary, PeriodDecision decision, Optional<OddEvenComparison> oddEven,
-        List<PeriodCandidate> candidates, Periodogram periodogram, SearchSummary search) {
+        List<PeriodCandidate> candidates, Periodogram periodogram, SearchSummary search,
+        Optional<String> periodCaution) {
 
     public PeriodSearchResult {
         candidates = List.copyOf(candidates);
