@@ -36,18 +36,27 @@ public final class PosteriorBench {
     private PosteriorBench() {
     }
 
+    /** The benchmark's data (noise from seed 100 + {@code seed}) and its 8-parameter fit problem. */
+    record Case(LightCurve lightCurve, FitProblem problem) {
+        static Case of(long seed) {
+            double[] t = SyntheticLightCurve.regularTimes(2460000.0, 2460000.0 + 20_000 * 2 / 1440.0 - 1e-9, 2,
+                    List.of(), null);
+            LightCurve lc = SyntheticLightCurve.observe(new BinaryModel(TRUTH), t, 1000, 100 + seed, "T", "T",
+                    TimeScale.BJD_TDB);
+            FitSettings settings = FitSettings.defaults().withFree(new java.util.LinkedHashSet<>(List.of("period",
+                    "epoch", "radius1", "radius2", "inclination", "surfaceBrightnessRatio", "limbDarkening1")));
+            return new Case(lc, FitProblem.of(ModelFile.of(TRUTH.withRadii(0.2, 0.13).withInclinationDeg(80.5)),
+                    List.of(new FitData(lc, "T")), settings));
+        }
+    }
+
     public static void main(String[] args) {
         String threadList = args.length > 0 ? args[0] : "1,2";
         long seed = args.length > 1 ? Long.parseLong(args[1]) : 1;
         int maxSteps = args.length > 2 ? Integer.parseInt(args[2]) : 20_000;
-        double[] t = SyntheticLightCurve.regularTimes(2460000.0, 2460000.0 + 20_000 * 2 / 1440.0 - 1e-9, 2, List.of(),
-                null);
-        LightCurve lc = SyntheticLightCurve.observe(new BinaryModel(TRUTH), t, 1000, 100 + seed, "T", "T",
-                TimeScale.BJD_TDB);
-        FitSettings settings = FitSettings.defaults().withFree(new java.util.LinkedHashSet<>(List.of("period", "epoch",
-                "radius1", "radius2", "inclination", "surfaceBrightnessRatio", "limbDarkening1")));
-        FitProblem problem = FitProblem.of(ModelFile.of(TRUTH.withRadii(0.2, 0.13).withInclinationDeg(80.5)),
-                List.of(new FitData(lc, "T")), settings);
+        Case c = Case.of(seed);
+        LightCurve lc = c.lightCurve();
+        FitProblem problem = c.problem();
         long f0 = System.nanoTime();
         FitResult best = EclipseFitter.optimize(problem);
         System.out.printf(Locale.ROOT, "%d points, least squares %.1f s%n", lc.size(), (System.nanoTime() - f0) / 1e9);
