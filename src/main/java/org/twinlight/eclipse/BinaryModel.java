@@ -211,10 +211,7 @@ public final class BinaryModel {
      * time the light of the star behind left it; +∞ when the stars are surely apart.
      */
     private double eclipseSeparation(double timeDays) {
-        if (positions.surelyApart(timeDays, contactPhaseHalfWidth)) {
-            return Double.POSITIVE_INFINITY;
-        }
-        double d = positions.signedSeparation(timeDays);
+        double d = positions.separationNearConjunction(timeDays, contactPhaseHalfWidth);
         if (d < 0 && secondaryDelayDays != 0) {
             // star 1 in front: the light of star 2 left it a little earlier or later
             d = positions.signedSeparation(timeDays - secondaryDelayDays);

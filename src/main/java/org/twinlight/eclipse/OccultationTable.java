@@ -14,8 +14,8 @@ package org.twinlight.eclipse;
  * tabulated at {@link #STEPS} steps uniform in s = δ^{1/4}, δ measured from the piece's contact,
  * in which those powers are polynomials; the nodes crowd where h turns fastest. Between nodes h
  * is the Lagrange polynomial of degree {@link #DEGREE} through the nearest eight nodes (Abramowitz
- * &amp; Stegun 1964, 25.2.2, Lagrange's interpolation formula; from memory), evaluated as
- * products without a division. Only the part of each piece between the smallest and the largest z
+ * &amp; Stegun 1964, 25.2.2, Lagrange's interpolation formula; from memory), expanded once per
+ * step in powers of the position within the step and evaluated by Horner's rule. Only the part of each piece between the smallest and the largest z
  * asked for is tabulated, so the steps are as fine as the data allow. Under full cover (z ≤ p − 1)
  * and beyond the outer contact the value is exact (1 and 0).
  *
@@ -32,18 +32,36 @@ final class OccultationTable {
      * table (which costs up to 3 × 65 exact values).
      */
     static final int MIN_POINTS = 64;
-    /** 1 / Π_{m≠j} (j − m) for the nodes 0 … 7: (−1)^{7−j} / (j! (7−j)!). */
-    private static final double[] BASIS = new double[DEGREE + 1];
+    private static final int NODES = DEGREE + 1;
+    /**
+     * POWER[off][m · NODES + j]: the coefficient of v^m in the Lagrange basis polynomial of node j
+     * of a stencil of eight nodes at v = j − off, so that on the step whose left node is the
+     * stencil's node {@code off} the interpolant is Σ_m v^m Σ_j POWER[off][m·8 + j] f_j, 0 ≤ v ≤ 1.
+     */
+    private static final double[][] POWER = new double[NODES][NODES * NODES];
 
     static {
-        for (int j = 0; j <= DEGREE; j++) {
-            double d = 1;
-            for (int m = 0; m <= DEGREE; m++) {
-                if (m != j) {
-                    d *= j - m;
+        for (int off = 0; off < NODES; off++) {
+            for (int j = 0; j < NODES; j++) {
+                // Π_{m≠j} (v − (m − off)) / (j − m), expanded in powers of v
+                double[] poly = {1};
+                for (int m = 0; m < NODES; m++) {
+                    if (m == j) {
+                        continue;
+                    }
+                    double root = m - off;
+                    double scale = 1.0 / (j - m);
+                    double[] next = new double[poly.length + 1];
+                    for (int q = 0; q < poly.length; q++) {
+                        next[q + 1] += poly[q] * scale;
+                        next[q] -= poly[q] * root * scale;
+                    }
+                    poly = next;
+                }
+                for (int m = 0; m < NODES; m++) {
+                    POWER[off][m * NODES + j] = poly[m];
                 }
             }
-            BASIS[j] = 1 / d;
         }
     }
 
@@ -87,7 +105,9 @@ final class OccultationTable {
     }
 
     /**
-     * One piece: h at z = contact + direction · s⁴, s = sFirst + k · step, k = 0 … STEPS.
+     * One piece: h at z = contact + direction · s⁴ tabulated at s = sFirst + k · step,
+     * k = 0 … STEPS, held as the interpolating polynomial of each step in powers of the position
+     * v (0 … 1) within the step.
      */
     private static final class Piece {
         private final double contact;
@@ -96,17 +116,18 @@ final class OccultationTable {
         private final double zHigh;
         private final double sFirst;
         private final double inverseStep;
-        private final double[] values;
+        /** coefficients[k · NODES + m]: the coefficient of v^m on step k. */
+        private final double[] coefficients;
 
         private Piece(double contact, double direction, double zLow, double zHigh, double sFirst,
-                double inverseStep, double[] values) {
+                double inverseStep, double[] coefficients) {
             this.contact = contact;
             this.direction = direction;
             this.zLow = zLow;
             this.zHigh = zHigh;
             this.sFirst = sFirst;
             this.inverseStep = inverseStep;
-            this.values = values;
+            this.coefficients = coefficients;
         }
 
         /**
@@ -134,7 +155,20 @@ final class OccultationTable {
                 double z = Math.max(0.0, contact + direction * s2 * s2);
                 values[k] = Occultation.hiddenFraction(ld, p, z);
             }
-            return new Piece(contact, direction, lo, hi, sFirst, 1 / step, values);
+            // each step takes the eight nodes centred on it (shifted inwards at the ends)
+            double[] coefficients = new double[STEPS * NODES];
+            for (int k = 0; k < STEPS; k++) {
+                int first = Math.max(0, Math.min(STEPS - DEGREE, k - (DEGREE - 1) / 2));
+                double[] power = POWER[k - first];
+                for (int m = 0; m < NODES; m++) {
+                    double c = 0;
+                    for (int j = 0; j < NODES; j++) {
+                        c += power[m * NODES + j] * values[first + j];
+                    }
+                    coefficients[k * NODES + m] = c;
+                }
+            }
+            return new Piece(contact, direction, lo, hi, sFirst, 1 / step, coefficients);
         }
 
         boolean covers(double z) {
@@ -145,32 +179,18 @@ final class OccultationTable {
         double at(double z) {
             double delta = Math.max(0.0, direction * (z - contact));
             double x = (Math.sqrt(Math.sqrt(delta)) - sFirst) * inverseStep;
-            int first = Math.max(0, Math.min(STEPS - DEGREE, (int) x - (DEGREE - 1) / 2));
-            double u = x - first;
-            double d0 = u;
-            double d1 = u - 1;
-            double d2 = u - 2;
-            double d3 = u - 3;
-            double d4 = u - 4;
-            double d5 = u - 5;
-            double d6 = u - 6;
-            double d7 = u - 7;
-            // Lagrange basis l_j = BASIS[j] · Π_{m≠j} (u − m), as products of the factors left and right of j
-            double l01 = d0 * d1;
-            double l012 = l01 * d2;
-            double l0123 = l012 * d3;
-            double r67 = d6 * d7;
-            double r567 = d5 * r67;
-            double r4567 = d4 * r567;
-            double[] v = values;
-            double sum = BASIS[0] * v[first] * d1 * d2 * d3 * r4567
-                    + BASIS[1] * v[first + 1] * d0 * d2 * d3 * r4567
-                    + BASIS[2] * v[first + 2] * l01 * d3 * r4567
-                    + BASIS[3] * v[first + 3] * l012 * r4567
-                    + BASIS[4] * v[first + 4] * l0123 * r567
-                    + BASIS[5] * v[first + 5] * l0123 * d4 * r67
-                    + BASIS[6] * v[first + 6] * l0123 * d4 * d5 * d7
-                    + BASIS[7] * v[first + 7] * l0123 * d4 * d5 * d6;
+            int k = Math.max(0, Math.min(STEPS - 1, (int) x));
+            double v = x - k;
+            double[] c = coefficients;
+            int o = k * NODES;
+            double sum = c[o + 7];
+            sum = sum * v + c[o + 6];
+            sum = sum * v + c[o + 5];
+            sum = sum * v + c[o + 4];
+            sum = sum * v + c[o + 3];
+            sum = sum * v + c[o + 2];
+            sum = sum * v + c[o + 1];
+            sum = sum * v + c[o];
             return Math.max(0.0, Math.min(1.0, sum));
         }
     }

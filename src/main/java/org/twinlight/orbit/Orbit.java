@@ -60,6 +60,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
         private final double sinOmega;
         private final double cosOmega;
         private final double cos2i;
+        private final double sin2i;
         private final double meanAnomalyAtEpoch;
         private final double sqrtOnePlusE;
         private final double sqrtOneMinusE;
@@ -76,6 +77,8 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
             double inc = Math.toRadians(o.inclinationDeg);
             double ci = Math.cos(inc);
             cos2i = ci * ci;
+            double si = Math.sin(inc);
+            sin2i = si * si;
             meanAnomalyAtEpoch = KeplerEquation.meanAnomalyOfTrueAnomaly(Math.PI / 2 - w, e);
             sqrtOnePlusE = Math.sqrt(1 + e);
             sqrtOneMinusE = Math.sqrt(1 - e);
@@ -89,14 +92,35 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * in front.
          */
         public double signedSeparation(double timeDays) {
-            double phaseRad = 2 * Math.PI * ((timeDays - epochDays) / periodDays);
-            if (e == 0) {
-                // ν + ω = 90° + phase: sin(ν+ω) = cos φ
-                double c = Math.cos(phaseRad);
-                double s = Math.sin(phaseRad);
-                double d = Math.sqrt(s * s + cos2i * c * c);
-                return c >= 0 ? d : -d;
+            return separationAtCycles((timeDays - epochDays) / periodDays);
+        }
+
+        /**
+         * {@link #signedSeparation(double)} when the time lies within {@code phaseHalfWidth} of a
+         * conjunction, +∞ where {@link #surelyApart(double, double)} is true: the phase is formed
+         * once for both (the same numbers as calling the two).
+         */
+        public double separationNearConjunction(double timeDays, double phaseHalfWidth) {
+            double cycles = (timeDays - epochDays) / periodDays;
+            double f = cycles - Math.floor(cycles);
+            if (circularDistance(f, 0) > phaseHalfWidth && circularDistance(f, secondaryPhase) > phaseHalfWidth) {
+                return Double.POSITIVE_INFINITY;
             }
+            return separationAtCycles(cycles);
+        }
+
+        /** The signed separation at {@code cycles} = (t − epoch) / period. */
+        private double separationAtCycles(double cycles) {
+            if (e == 0) {
+                // ν + ω = 90° + φ, φ = 2π cycles: d² = sin²φ + cos²i cos²φ = cos²i + sin²i sin²φ (a sum of
+                // positive terms); with cycles = N/2 + g, |g| ≤ ¼, sin φ = ±sin 2πg and cos φ has the sign
+                // (−1)^N, so one sine of a reduced angle suffices
+                double halfTurns = Math.rint(2 * cycles);
+                double s = Math.sin(2 * Math.PI * (cycles - 0.5 * halfTurns));
+                double d = Math.sqrt(cos2i + sin2i * s * s);
+                return (((long) halfTurns) & 1) == 0 ? d : -d;
+            }
+            double phaseRad = 2 * Math.PI * cycles;
             double ecc = KeplerEquation.eccentricAnomaly(meanAnomalyAtEpoch + phaseRad, e);
             double half = 0.5 * ecc;
             double sh = Math.sin(half);
