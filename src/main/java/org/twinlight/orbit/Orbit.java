@@ -159,9 +159,20 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * <p>d = r√(cos²(ν+ω) + cos²i sin²(ν+ω)) ≥ r|sin(ν − ν_c)| ≥ (1−e) sin Δν beyond Δν of the true
          * anomaly ν_c of a conjunction, so Δν = arcsin(s/(1−e)) suffices; and since dM/dν =
          * (1−e²)^{3/2}/(1+e cos ν)² ≤ (1+e)^{3/2}/(1−e)^{1/2}, a mean-anomaly distance of Δν times
-         * that bound guarantees it (for a circular orbit simply arcsin s).
+         * that bound guarantees it. A circular orbit has d² = cos²i + sin²i sin²φ exactly, φ the phase
+         * angle from conjunction, so the window is arcsin √((s² − cos²i)/sin²i), none when s ≤ cos i.
          */
         public double conjunctionHalfWidth(double separation) {
+            if (e == 0) {
+                // circular: d² = cos²i + sin²i sin²φ (φ the phase angle from conjunction), so d < s only where
+                // sin²φ < (s² − cos²i) / sin²i
+                double sin2Phase = (separation * separation - cos2i) / sin2i;
+                if (sin2Phase >= 1) {
+                    return 0.5;
+                }
+                double dPhase = sin2Phase > 0 ? Math.asin(Math.sqrt(sin2Phase)) : 0.0;
+                return Math.min(0.5, dPhase / (2 * Math.PI) * (1 + 1e-9) + 1e-12);
+            }
             double sinDnu = separation / (1 - e);
             if (sinDnu >= 1) {
                 return 0.5;
