@@ -99,13 +99,27 @@ public final class BinaryModel {
     public void flux(double[] timesDays, double[] out) {
         EclipseRanges ranges = new EclipseRanges();
         boolean instantaneous = subExposureOffsets.length == 1;
+        // in a run of ascending times, those before the next conjunction window need no test
+        double previous = Double.NEGATIVE_INFINITY;
+        double skipUntil = Double.NEGATIVE_INFINITY;
         for (int i = 0; i < timesDays.length; i++) {
-            for (double dt : subExposureOffsets) {
-                double d = eclipseSeparation(timesDays[i] + dt);
-                ranges.add(d);
-                if (instantaneous) {
+            if (instantaneous) {
+                double t = timesDays[i];
+                if (t >= previous && t < skipUntil) {
+                    out[i] = Double.POSITIVE_INFINITY;
+                } else {
+                    double d = eclipseSeparation(t);
+                    ranges.add(d);
                     out[i] = d; // kept for the second pass
+                    if (d == Double.POSITIVE_INFINITY) {
+                        skipUntil = positions.nextWindowStart(t, contactPhaseHalfWidth);
+                    }
                 }
+                previous = t;
+                continue;
+            }
+            for (double dt : subExposureOffsets) {
+                ranges.add(eclipseSeparation(timesDays[i] + dt));
             }
         }
         OccultationTable table1 = ranges.table(ld1, r2 / r1, r1, ranges.count1, ranges.min1, ranges.max1);

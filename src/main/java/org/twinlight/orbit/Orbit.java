@@ -109,6 +109,28 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
             return separationAtCycles(cycles);
         }
 
+        /**
+         * For a time outside the windows of {@link #surelyApart(double, double)} (half-width
+         * {@code phaseHalfWidth} around each conjunction): a time before which every later time is
+         * outside them too (the start of the next window, less 1e-7 of the period); the time itself
+         * when it lies in a window. Lets a caller walking through sorted times skip to the next
+         * window.
+         */
+        public double nextWindowStart(double timeDays, double phaseHalfWidth) {
+            double cycles = (timeDays - epochDays) / periodDays;
+            double n = Math.floor(cycles);
+            double f = cycles - n;
+            double start;
+            if (f > phaseHalfWidth && f < secondaryPhase - phaseHalfWidth) {
+                start = secondaryPhase - phaseHalfWidth;
+            } else if (f > secondaryPhase + phaseHalfWidth && f < 1 - phaseHalfWidth) {
+                start = 1 - phaseHalfWidth;
+            } else {
+                return timeDays;
+            }
+            return Math.max(timeDays, epochDays + periodDays * (n + start - 1e-7));
+        }
+
         /** The signed separation at {@code cycles} = (t − epoch) / period. */
         private double separationAtCycles(double cycles) {
             if (e == 0) {

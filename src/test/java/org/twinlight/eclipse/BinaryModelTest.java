@@ -79,9 +79,18 @@ class BinaryModelTest {
         for (int i = 0; i < t.length; i++) {
             t[i] = -0.3 + 4.6 * i / t.length;
         }
+        // times in reverse order too: the skip between conjunction windows applies only to ascending runs
+        double[] reversed = new double[t.length];
+        for (int i = 0; i < t.length; i++) {
+            reversed[i] = t[t.length - 1 - i];
+        }
         for (BinaryParameters p : cases) {
             BinaryModel m = new BinaryModel(p);
             double[] many = m.flux(t);
+            double[] backwards = m.flux(reversed);
+            for (int i = 0; i < t.length; i++) {
+                assertThat(backwards[t.length - 1 - i]).isEqualTo(many[i]);
+            }
             int primary = 0;
             int secondary = 0;
             for (int i = 0; i < t.length; i++) {
