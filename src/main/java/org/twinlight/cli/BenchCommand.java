@@ -151,7 +151,8 @@ public final class BenchCommand implements Callable<Integer> {
      */
     private static double medianMillis(Runnable r, int repeats) {
         ThreadMXBean mx = ManagementFactory.getThreadMXBean();
-        for (int i = 0; i < Math.max(20, repeats / 5); i++) {
+        // enough runs for the compiler to have finished with the code measured
+        for (int i = 0; i < Math.max(200, repeats); i++) {
             r.run();
         }
         double[] ms = new double[repeats];
