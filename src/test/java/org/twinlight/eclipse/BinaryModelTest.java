@@ -73,8 +73,12 @@ class BinaryModelTest {
         // flux(t) evaluates the occultation exactly (Mandel & Agol 2002 for the quadratic star, the
         // quadrature checked against Commons Math for the power-2 one): they must agree to 1e-8
         BinaryParameters circular = new BinaryParameters(2.0, 0.0, 0.15, 0.11, 86.0, 0, 90, 0.8, 0, LD1, LD2, 0, 1);
+        // with proximity effects and the light-travel delay of the secondary eclipse too
+        BinaryParameters close = circular.withProximity(new ProximityEffects(0.8, null, 95.0, 118.75,
+                ProximityEffects.Ellipsoidal.fromPhysics(0.32, 0.32), new ProximityEffects.Reflection(0.5, 0.5),
+                ProximityEffects.Beaming.fromVelocities(1.0, 1.1)));
         BinaryParameters[] cases = {circular, circular.withEccentricityOmega(0.2, 70),
-            circular.withExposure(0.02, 5), circular.withRadii(0.11, 0.15)};
+            circular.withExposure(0.02, 5), circular.withRadii(0.11, 0.15), close};
         double[] t = new double[4000];
         for (int i = 0; i < t.length; i++) {
             t[i] = -0.3 + 4.6 * i / t.length;
