@@ -90,10 +90,85 @@ public final class BinaryModel {
         return sum / subExposureOffsets.length;
     }
 
-    /** Normalised flux at many times, into {@code out} (same length). */
+    /**
+     * Normalised flux at many times, into {@code out} (same length). When many points fall in an
+     * eclipse of a star, its hidden fraction comes from an {@link OccultationTable} built for this
+     * call over the separations needed (within 1e-8 of the exact value); otherwise, and in
+     * {@link #flux(double)}, it is computed exactly.
+     */
     public void flux(double[] timesDays, double[] out) {
+        EclipseRanges ranges = new EclipseRanges();
+        boolean instantaneous = subExposureOffsets.length == 1;
+        // in a run of ascending times, those before the next conjunction window need no test
+        double previous = Double.NEGATIVE_INFINITY;
+        double skipUntil = Double.NEGATIVE_INFINITY;
         for (int i = 0; i < timesDays.length; i++) {
-            out[i] = flux(timesDays[i]);
+            if (instantaneous) {
+                double t = timesDays[i];
+                if (t >= previous && t < skipUntil) {
+                    out[i] = Double.POSITIVE_INFINITY;
+                } else {
+                    double d = eclipseSeparation(t);
+                    ranges.add(d);
+                    out[i] = d; // kept for the second pass
+                    if (d == Double.POSITIVE_INFINITY) {
+                        skipUntil = positions.nextWindowStart(t, contactPhaseHalfWidth);
+                    }
+                }
+                previous = t;
+                continue;
+            }
+            for (double dt : subExposureOffsets) {
+                ranges.add(eclipseSeparation(timesDays[i] + dt));
+            }
+        }
+        OccultationTable table1 = ranges.table(ld1, r2 / r1, r1, ranges.count1, ranges.min1, ranges.max1);
+        OccultationTable table2 = ranges.table(ld2, r1 / r2, r2, ranges.count2, ranges.min2, ranges.max2);
+        for (int i = 0; i < timesDays.length; i++) {
+            if (instantaneous) {
+                out[i] = instantaneousFlux(timesDays[i], out[i], table1, table2);
+                continue;
+            }
+            double sum = 0;
+            for (double dt : subExposureOffsets) {
+                double t = timesDays[i] + dt;
+                sum += instantaneousFlux(t, eclipseSeparation(t), table1, table2);
+            }
+            out[i] = sum / subExposureOffsets.length;
+        }
+    }
+
+    /** How many separations of one call fall in each eclipse, and their range. */
+    private final class EclipseRanges {
+        int count1;
+        int count2;
+        double min1 = Double.POSITIVE_INFINITY;
+        double max1 = 0;
+        double min2 = Double.POSITIVE_INFINITY;
+        double max2 = 0;
+
+        void add(double d) {
+            double ad = Math.abs(d);
+            if (!(ad < contactDistance)) {
+                return;
+            }
+            if (d >= 0) {
+                count1++;
+                min1 = Math.min(min1, ad);
+                max1 = Math.max(max1, ad);
+            } else {
+                count2++;
+                min2 = Math.min(min2, ad);
+                max2 = Math.max(max2, ad);
+            }
+        }
+
+        /** A table for the star of radius {@code radius} when enough points fall in its eclipse, else null. */
+        OccultationTable table(LimbDarkening ld, double p, double radius, int count, double min, double max) {
+            if (count < OccultationTable.MIN_POINTS || !(p > 0) || !Double.isFinite(p)) {
+                return null;
+            }
+            return new OccultationTable(ld, p, min / radius, max / radius);
         }
     }
 
@@ -106,16 +181,23 @@ public final class BinaryModel {
 
     /** Normalised flux at an instant, no smearing. */
     public double instantaneousFlux(double timeDays) {
+        return instantaneousFlux(timeDays, eclipseSeparation(timeDays), null, null);
+    }
+
+    /**
+     * The flux at an instant whose eclipse separation is {@code d}, with the hidden fractions from
+     * the tables where given (exact where null).
+     */
+    private double instantaneousFlux(double timeDays, double d, OccultationTable table1, OccultationTable table2) {
         double hidden1 = 0;
         double hidden2 = 0;
-        double d = eclipseSeparation(timeDays);
         double ad = Math.abs(d);
         if (ad < contactDistance) {
             if (d >= 0) {
                 // star 2 in front of star 1: primary eclipse
-                hidden1 = Occultation.hiddenFraction(ld1, r2 / r1, ad / r1);
+                hidden1 = table1 != null ? table1.hiddenFraction(ad / r1) : Occultation.hiddenFraction(ld1, r2 / r1, ad / r1);
             } else {
-                hidden2 = Occultation.hiddenFraction(ld2, r1 / r2, ad / r2);
+                hidden2 = table2 != null ? table2.hiddenFraction(ad / r2) : Occultation.hiddenFraction(ld2, r1 / r2, ad / r2);
             }
         }
         if (terms == null) {
@@ -143,10 +225,7 @@ public final class BinaryModel {
      * time the light of the star behind left it; +∞ when the stars are surely apart.
      */
     private double eclipseSeparation(double timeDays) {
-        if (positions.surelyApart(timeDays, contactPhaseHalfWidth)) {
-            return Double.POSITIVE_INFINITY;
-        }
-        double d = positions.signedSeparation(timeDays);
+        double d = positions.separationNearConjunction(timeDays, contactPhaseHalfWidth);
         if (d < 0 && secondaryDelayDays != 0) {
             // star 1 in front: the light of star 2 left it a little earlier or later
             d = positions.signedSeparation(timeDays - secondaryDelayDays);

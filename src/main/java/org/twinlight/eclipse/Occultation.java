@@ -83,10 +83,9 @@ public final class Occultation {
         if (z <= p - 1) {
             return 1.0;
         }
-        double lens = DiscOverlap.areaOverPi(p, z);
         switch (ld.law()) {
             case UNIFORM:
-                return clamp(lens);
+                return clamp(DiscOverlap.areaOverPi(p, z));
             case LINEAR:
             case QUADRATIC: {
                 double u2 = ld.law() == LimbDarkeningLaw.QUADRATIC ? ld.coefficient(1) : 0.0;
@@ -99,7 +98,8 @@ public final class Occultation {
             default:
                 break;
         }
-        return clamp(byQuadrature(ld, p, z, lens));
+        // the closed form forms the overlap area itself: computed here only when it is not used
+        return clamp(byQuadrature(ld, p, z, DiscOverlap.areaOverPi(p, z)));
     }
 
     /** The general method of the class comment, for any law; p &gt; 0, |p−1| &lt; z &lt; 1+p or z ≤ 1−p. */

@@ -1,6 +1,6 @@
 /**
  * The eclipse model: limb-darkening laws, the light hidden when one limb-darkened sphere passes
- * in front of another, and the normalised flux of the binary with third light and exposure
+ * in front of another (exactly, or from a table built per evaluation of many times), and the normalised flux of the binary with third light and exposure
  * smearing, and the proximity effects of close pairs (ellipsoidal variation, reflection, Doppler
  * beaming, light-travel time).
  *

@@ -60,6 +60,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
         private final double sinOmega;
         private final double cosOmega;
         private final double cos2i;
+        private final double sin2i;
         private final double meanAnomalyAtEpoch;
         private final double sqrtOnePlusE;
         private final double sqrtOneMinusE;
@@ -76,6 +77,8 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
             double inc = Math.toRadians(o.inclinationDeg);
             double ci = Math.cos(inc);
             cos2i = ci * ci;
+            double si = Math.sin(inc);
+            sin2i = si * si;
             meanAnomalyAtEpoch = KeplerEquation.meanAnomalyOfTrueAnomaly(Math.PI / 2 - w, e);
             sqrtOnePlusE = Math.sqrt(1 + e);
             sqrtOneMinusE = Math.sqrt(1 - e);
@@ -89,14 +92,57 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * in front.
          */
         public double signedSeparation(double timeDays) {
-            double phaseRad = 2 * Math.PI * ((timeDays - epochDays) / periodDays);
-            if (e == 0) {
-                // ν + ω = 90° + phase: sin(ν+ω) = cos φ
-                double c = Math.cos(phaseRad);
-                double s = Math.sin(phaseRad);
-                double d = Math.sqrt(s * s + cos2i * c * c);
-                return c >= 0 ? d : -d;
+            return separationAtCycles((timeDays - epochDays) / periodDays);
+        }
+
+        /**
+         * {@link #signedSeparation(double)} when the time lies within {@code phaseHalfWidth} of a
+         * conjunction, +∞ where {@link #surelyApart(double, double)} is true: the phase is formed
+         * once for both (the same numbers as calling the two).
+         */
+        public double separationNearConjunction(double timeDays, double phaseHalfWidth) {
+            double cycles = (timeDays - epochDays) / periodDays;
+            double f = cycles - Math.floor(cycles);
+            if (circularDistance(f, 0) > phaseHalfWidth && circularDistance(f, secondaryPhase) > phaseHalfWidth) {
+                return Double.POSITIVE_INFINITY;
             }
+            return separationAtCycles(cycles);
+        }
+
+        /**
+         * For a time outside the windows of {@link #surelyApart(double, double)} (half-width
+         * {@code phaseHalfWidth} around each conjunction): a time before which every later time is
+         * outside them too (the start of the next window, less 1e-7 of the period); the time itself
+         * when it lies in a window. Lets a caller walking through sorted times skip to the next
+         * window.
+         */
+        public double nextWindowStart(double timeDays, double phaseHalfWidth) {
+            double cycles = (timeDays - epochDays) / periodDays;
+            double n = Math.floor(cycles);
+            double f = cycles - n;
+            double start;
+            if (f > phaseHalfWidth && f < secondaryPhase - phaseHalfWidth) {
+                start = secondaryPhase - phaseHalfWidth;
+            } else if (f > secondaryPhase + phaseHalfWidth && f < 1 - phaseHalfWidth) {
+                start = 1 - phaseHalfWidth;
+            } else {
+                return timeDays;
+            }
+            return Math.max(timeDays, epochDays + periodDays * (n + start - 1e-7));
+        }
+
+        /** The signed separation at {@code cycles} = (t − epoch) / period. */
+        private double separationAtCycles(double cycles) {
+            if (e == 0) {
+                // ν + ω = 90° + φ, φ = 2π cycles: d² = sin²φ + cos²i cos²φ = cos²i + sin²i sin²φ (a sum of
+                // positive terms); with cycles = N/2 + g, |g| ≤ ¼, sin φ = ±sin 2πg and cos φ has the sign
+                // (−1)^N, so one sine of a reduced angle suffices
+                double halfTurns = Math.rint(2 * cycles);
+                double s = Math.sin(2 * Math.PI * (cycles - 0.5 * halfTurns));
+                double d = Math.sqrt(cos2i + sin2i * s * s);
+                return (((long) halfTurns) & 1) == 0 ? d : -d;
+            }
+            double phaseRad = 2 * Math.PI * cycles;
             double ecc = KeplerEquation.eccentricAnomaly(meanAnomalyAtEpoch + phaseRad, e);
             double half = 0.5 * ecc;
             double sh = Math.sin(half);
@@ -135,9 +181,20 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * <p>d = r√(cos²(ν+ω) + cos²i sin²(ν+ω)) ≥ r|sin(ν − ν_c)| ≥ (1−e) sin Δν beyond Δν of the true
          * anomaly ν_c of a conjunction, so Δν = arcsin(s/(1−e)) suffices; and since dM/dν =
          * (1−e²)^{3/2}/(1+e cos ν)² ≤ (1+e)^{3/2}/(1−e)^{1/2}, a mean-anomaly distance of Δν times
-         * that bound guarantees it (for a circular orbit simply arcsin s).
+         * that bound guarantees it. A circular orbit has d² = cos²i + sin²i sin²φ exactly, φ the phase
+         * angle from conjunction, so the window is arcsin √((s² − cos²i)/sin²i), none when s ≤ cos i.
          */
         public double conjunctionHalfWidth(double separation) {
+            if (e == 0) {
+                // circular: d² = cos²i + sin²i sin²φ (φ the phase angle from conjunction), so d < s only where
+                // sin²φ < (s² − cos²i) / sin²i
+                double sin2Phase = (separation * separation - cos2i) / sin2i;
+                if (sin2Phase >= 1) {
+                    return 0.5;
+                }
+                double dPhase = sin2Phase > 0 ? Math.asin(Math.sqrt(sin2Phase)) : 0.0;
+                return Math.min(0.5, dPhase / (2 * Math.PI) * (1 + 1e-9) + 1e-12);
+            }
             double sinDnu = separation / (1 - e);
             if (sinDnu >= 1) {
                 return 0.5;

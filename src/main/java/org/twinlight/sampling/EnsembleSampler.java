@@ -9,6 +9,7 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.BooleanSupplier;
 import java.util.function.Supplier;
 
@@ -212,6 +213,8 @@ public final class EnsembleSampler {
         final ExecutorService pool;
         final double a;
         final int dim;
+        /** One trial-position array per thread. */
+        final double[][] work;
         long evaluations;
 
         Ensemble(double[][] x, double[] logp, SplittableRandom[] streams, LogDensity[] slots, ExecutorService pool,
@@ -223,22 +226,40 @@ public final class EnsembleSampler {
             this.pool = pool;
             this.a = a;
             this.dim = x[0].length;
+            this.work = new double[slots.length][dim];
             this.evaluations = x.length;
         }
 
-        /** Moves walkers [from, to) against the others; returns the number accepted. */
+        /**
+         * Moves walkers [from, to) against the others; returns the number accepted. With several
+         * threads each takes the next walker not yet moved from a shared counter, so a thread that
+         * meets cheap evaluations (a trial outside the prior, few points in eclipse) moves more
+         * walkers; the result does not depend on which thread moves which walker, since every
+         * walker draws from its own stream and writes only its own slot.
+         */
         int move(int from, int to) {
             int otherFrom = from == 0 ? to : 0;
             int otherCount = x.length - (to - from);
             evaluations += to - from;
             if (pool == null) {
-                return moveSlice(slots[0], from, to, 1, otherFrom, otherCount);
+                int accepted = 0;
+                for (int k = from; k < to; k++) {
+                    accepted += moveWalker(slots[0], k, otherFrom, otherCount, work[0]);
+                }
+                return accepted;
             }
+            AtomicInteger next = new AtomicInteger(from);
             List<Callable<Integer>> tasks = new ArrayList<>();
             for (int t = 0; t < slots.length; t++) {
                 LogDensity density = slots[t];
-                int first = from + t;
-                tasks.add(() -> moveSlice(density, first, to, slots.length, otherFrom, otherCount));
+                double[] y = work[t];
+                tasks.add(() -> {
+                    int accepted = 0;
+                    for (int k = next.getAndIncrement(); k < to; k = next.getAndIncrement()) {
+                        accepted += moveWalker(density, k, otherFrom, otherCount, y);
+                    }
+                    return accepted;
+                });
             }
             int accepted = 0;
             try {
@@ -258,31 +279,27 @@ public final class EnsembleSampler {
             return accepted;
         }
 
-        /** Stretch moves of walkers first, first + stride, ... below {@code to}. */
-        private int moveSlice(LogDensity density, int first, int to, int stride, int otherFrom, int otherCount) {
-            int accepted = 0;
-            double[] y = new double[dim];
-            for (int k = first; k < to; k += stride) {
-                SplittableRandom rng = streams[k];
-                int j = otherFrom + rng.nextInt(otherCount);
-                // z with density ∝ 1/√z on [1/a, a] by inversion (Goodman & Weare 2010, eq. 9)
-                double u = rng.nextDouble();
-                double z = Math.pow((a - 1) * u + 1, 2) / a;
-                double[] xk = x[k];
-                double[] xj = x[j];
-                for (int i = 0; i < dim; i++) {
-                    y[i] = xj[i] + z * (xk[i] - xj[i]);
-                }
-                double ly = density.at(y);
-                double logq = (dim - 1) * Math.log(z) + ly - logp[k];
-                double r = rng.nextDouble();
-                if (ly > Double.NEGATIVE_INFINITY && Math.log(r) < logq) {
-                    x[k] = y.clone();
-                    logp[k] = ly;
-                    accepted++;
-                }
+        /** The stretch move of walker k, with the trial position built in {@code y}; 1 when accepted. */
+        private int moveWalker(LogDensity density, int k, int otherFrom, int otherCount, double[] y) {
+            SplittableRandom rng = streams[k];
+            int j = otherFrom + rng.nextInt(otherCount);
+            // z with density ∝ 1/√z on [1/a, a] by inversion (Goodman & Weare 2010, eq. 9)
+            double u = rng.nextDouble();
+            double z = Math.pow((a - 1) * u + 1, 2) / a;
+            double[] xk = x[k];
+            double[] xj = x[j];
+            for (int i = 0; i < dim; i++) {
+                y[i] = xj[i] + z * (xk[i] - xj[i]);
             }
-            return accepted;
+            double ly = density.at(y);
+            double logq = (dim - 1) * Math.log(z) + ly - logp[k];
+            double r = rng.nextDouble();
+            if (ly > Double.NEGATIVE_INFINITY && Math.log(r) < logq) {
+                x[k] = y.clone();
+                logp[k] = ly;
+                return 1;
+            }
+            return 0;
         }
     }
 }

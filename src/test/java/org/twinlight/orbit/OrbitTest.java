@@ -109,6 +109,35 @@ class OrbitTest {
     }
 
     @Test
+    void nextWindowStartLeavesOnlyTimesOutsideTheWindowsAndReachesTheNextOne() {
+        // definition of the windows of surelyApart: every time skipped is outside them, and the
+        // skip ends at most 1e-7 of the period (its margin) before the next window begins
+        double[][] orbits = {{0, 90}, {0.2, 70}, {0.5, 200}};
+        for (double[] eo : orbits) {
+            Orbit.Positions p = new Orbit(1.7, 3.0, eo[0], eo[1], 85).positions();
+            for (double w : new double[] {0.01, 0.08, 0.2}) {
+                int skips = 0;
+                for (int k = 0; k < 400; k++) {
+                    double t = 3.0 + k * 1.7 / 400 - 0.3;
+                    double next = p.nextWindowStart(t, w);
+                    assertThat(next).isGreaterThanOrEqualTo(t);
+                    if (!p.surelyApart(t, w)) {
+                        assertThat(next).isEqualTo(t);
+                        continue;
+                    }
+                    skips++;
+                    for (int j = 0; j < 50; j++) {
+                        double inside = t + (next - t) * j / 50.0;
+                        assertThat(p.surelyApart(inside, w)).as("e=%s w=%s t=%s", eo[0], w, inside).isTrue();
+                    }
+                    assertThat(p.surelyApart(next + 2e-7 * 1.7, w)).as("e=%s w=%s t=%s", eo[0], w, t).isFalse();
+                }
+                assertThat(skips).isPositive();
+            }
+        }
+    }
+
+    @Test
     void quickSeparationTestNeverClaimsApartWhenTheStarsAreCloser() {
         // the shortcut must be conservative: whenever it says "apart", the exact separation agrees
         double[][] orbits = {{0, 90}, {0.2, 70}, {0.5, 200}, {0.05, 10}};

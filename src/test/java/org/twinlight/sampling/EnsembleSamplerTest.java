@@ -137,13 +137,16 @@ class EnsembleSamplerTest {
     void sameSeedGivesTheSameChainWithOneOrTwoThreads() {
         EnsembleSampler.Result one = run(EnsembleSamplerTest::banana, 7, 1, 300);
         EnsembleSampler.Result two = run(EnsembleSamplerTest::banana, 7, 2, 300);
+        // three threads: the walkers of a half do not divide evenly, and which thread takes which varies
+        EnsembleSampler.Result three = run(EnsembleSamplerTest::banana, 7, 3, 300);
         EnsembleSampler.Result other = run(EnsembleSamplerTest::banana, 8, 2, 300);
-        assertThat(one.chain().steps()).isEqualTo(two.chain().steps());
+        assertThat(one.chain().steps()).isEqualTo(two.chain().steps()).isEqualTo(three.chain().steps());
         boolean differs = false;
         for (int t = 0; t < one.chain().steps(); t++) {
             for (int w = 0; w < WALKERS; w++) {
                 assertThat(two.chain().position(t, w)).containsExactly(one.chain().position(t, w));
                 assertThat(two.chain().logDensity(t, w)).isEqualTo(one.chain().logDensity(t, w));
+                assertThat(three.chain().position(t, w)).containsExactly(one.chain().position(t, w));
                 differs |= other.chain().value(t, w, 0) != one.chain().value(t, w, 0);
             }
         }
