@@ -302,8 +302,42 @@ final class AnalysisReport {
                         + "simulated ground-based light curves (nights, weather, zero points, 4 mmag) the radii and "
                         + "inclination of this analysis scatter 2 to 5 times more than their error bars say "
                         + "(docs/analyse.md). Compare a fit with the limb darkening fixed and a circular orbit; "
-                        + "trust space-quality errors more than ground-based ones.</p></div>\n");
+                        + "trust space-quality errors more than ground-based ones.</p>");
+        fitChoices(b, results.path("fit"));
+        b.append("</div>\n");
         list(b, "Doubts", results.path("status").path("doubts"));
+    }
+
+    /** What the fit stage did to keep its errors honest: limb-darkening priors, the orbit's choice, the profile. */
+    private static void fitChoices(StringBuilder b, JsonNode fit) {
+        JsonNode ld = fit.path("limbDarkeningPriors");
+        if (ld.size() > 0) {
+            List<String> names = new java.util.ArrayList<>();
+            ld.fieldNames().forEachRemaining(names::add);
+            b.append("<p>").append(esc(String.format(Locale.ROOT, "The free limb-darkening coefficients (%s) were held "
+                    + "near their start values by a normal prior of width %.2f: left free without one they wander "
+                    + "along the valley of partial eclipses and bias the radii. Their results are not a measurement "
+                    + "independent of that choice.", String.join(", ", names), ld.path(names.get(0)).path("sigma")
+                    .asDouble()))).append("</p>");
+        }
+        JsonNode orbit = fit.path("orbit");
+        if (orbit.has("chosen")) {
+            b.append("<p>").append(esc(String.format(Locale.ROOT, "The orbit was fitted eccentric (BIC %s) and "
+                    + "circular (BIC %s); the %s orbit has the lower BIC and is reported%s.",
+                    num(orbit.path("bicEccentric"), "%.1f"), num(orbit.path("bicCircular"), "%.1f"),
+                    orbit.path("chosen").asText(), orbit.path("chosen").asText().equals("circular")
+                            ? " with e and ω held at 0 (their errors are then not measured)" : ""))).append("</p>");
+        }
+        JsonNode p = fit.path("inclinationProfile");
+        if (p.has("from")) {
+            b.append("<p>").append(esc(String.format(Locale.ROOT, "The inclination is correlated with %s "
+                    + "(ρ = %.3f), where a parabola misdescribes χ²: its error comes from the profile of χ² (i fixed "
+                    + "at %d values, the other parameters refitted; 1σ where χ² rose by %.2f): %.3f° against the "
+                    + "covariance error %.3f°. The errors of the parameters that move with i were widened to their "
+                    + "shifts along that profile.", p.path("correlatedWith").asText(), p.path("correlation")
+                    .asDouble(), p.path("points").size(), p.path("deltaChi2At1Sigma").asDouble(),
+                    p.path("sigmaDeg").asDouble(), p.path("covarianceSigmaDeg").asDouble()))).append("</p>");
+        }
     }
 
     private static void provenance(StringBuilder b, JsonNode p) {

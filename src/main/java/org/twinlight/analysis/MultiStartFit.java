@@ -2,6 +2,7 @@ package org.twinlight.analysis;
 
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Locale;
@@ -9,6 +10,7 @@ import java.util.Set;
 import java.util.function.Consumer;
 import org.twinlight.WorkFailedException;
 import org.twinlight.eclipse.BinaryParameters;
+import org.twinlight.eclipse.LimbDarkening;
 import org.twinlight.eclipse.ModelFile;
 import org.twinlight.fit.EclipseFitter;
 import org.twinlight.fit.FitData;
@@ -16,6 +18,8 @@ import org.twinlight.fit.FitProblem;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
 import org.twinlight.fit.GlobalSearch;
+import org.twinlight.fit.Prior;
+import org.twinlight.fit.Priors;
 import org.twinlight.fit.NoiseDiagnostics;
 import org.twinlight.fit.NoiseReport;
 import org.twinlight.fit.StartingValues;
@@ -71,8 +75,34 @@ final class MultiStartFit {
      * @param notes remarks (rival minima, correlated noise)
      * @param noise the correlated-noise diagnostics of the fit (β, residual permutation, the error to quote)
      */
-    record Outcome(FitResult result, List<Trial> trials, int thinnedPoints, List<String> notes, NoiseReport noise) {
+    record Outcome(FitResult result, List<Trial> trials, int thinnedPoints, List<String> notes, NoiseReport noise,
+            Priors priors, OrbitChoice orbit, InclinationProfile.Result inclinationProfile) {
     }
+
+    /**
+     * The choice between an eccentric and a circular orbit: both fitted on all the data, the lower
+     * Bayesian information criterion kept (Schwarz 1978, Ann. Stat. 6, 461).
+     *
+     * @param circular whether the circular orbit (e and ω held at 0) was kept
+     * @param bicEccentric BIC of the fit with e and ω free (NaN when it failed)
+     * @param bicCircular BIC of the fit with e = 0 (NaN when it failed)
+     */
+    record OrbitChoice(boolean circular, double bicEccentric, double bicCircular) {
+        /** A sentence for the notes and the report. */
+        String sentence() {
+            return String.format(Locale.ROOT, "the orbit was fitted both eccentric (BIC %.1f) and circular (BIC %.1f); "
+                    + "the %s orbit has the lower BIC and is kept%s", bicEccentric, bicCircular,
+                    circular ? "circular" : "eccentric", circular ? " (e and ω held at 0)" : "");
+        }
+    }
+
+    /**
+     * Width of the normal prior on each free limb-darkening coefficient, centred on its start value:
+     * coefficients of model atmospheres and those fitted to well-observed eclipses commonly differ by
+     * about 0.1–0.2 (common practice, no source). Free with no prior, the coefficient wanders along
+     * the valley of partial eclipses and biases the radii of noisy ground-based data.
+     */
+    static final double LIMB_DARKENING_PRIOR_SIGMA = 0.15;
 
     /**
      * The well-spread starts around the estimate from the data: the estimate itself; the radius
@@ -135,12 +165,14 @@ final class MultiStartFit {
         }
         int thinnedPoints = thinned.stream().mapToInt(d -> d.lightCurve().size()).sum();
         FitSettings trialSettings = settings.withClipSigma(Double.NaN).withMaxIterations(TRIAL_ITERATIONS);
+        Priors priors = limbDarkeningPriors(starts.get(0).model(), settings.free(),
+                data.stream().map(FitData::band).distinct().toList());
         List<Trial> trials = new ArrayList<>();
         Trial best = null;
         for (Start s : starts) {
             Trial t;
             try {
-                FitResult r = EclipseFitter.fit(s.model(), thinned, trialSettings);
+                FitResult r = EclipseFitter.fit(s.model(), thinned, trialSettings, priors);
                 t = new Trial(s, r.chi2(), r.model(), null);
             } catch (WorkFailedException | IllegalArgumentException e) {
                 t = new Trial(s, Double.POSITIVE_INFINITY, null, firstSentence(e.getMessage()));
@@ -163,7 +195,7 @@ final class MultiStartFit {
         ModelFile from = best.end();
         long searchStart = System.nanoTime();
         try {
-            GlobalSearch.Result search = GlobalSearch.run(FitProblem.of(best.end(), thinned, trialSettings));
+            GlobalSearch.Result search = GlobalSearch.run(FitProblem.of(best.end(), thinned, trialSettings, priors));
             from = search.best().start();
             sink.accept(String.format(Locale.ROOT, "  global search: %d starts, %d distinct minim%s (%.1f s)",
                     search.starts(), search.minima().size(), search.minima().size() == 1 ? "um" : "a",
@@ -172,11 +204,69 @@ final class MultiStartFit {
         } catch (WorkFailedException e) {
             sink.accept("  global search: " + firstSentence(e.getMessage()) + "; the best start is refined");
         }
-        FitProblem problem = FitProblem.of(from, data, settings);
+        FitProblem problem = FitProblem.of(from, data, settings, priors);
         FitResult result = EclipseFitter.optimize(problem);
+        OrbitChoice orbit = null;
+        if (settings.free().contains("eccentricity") || settings.free().contains("omega")) {
+            Set<String> circularFree = new LinkedHashSet<>(settings.free());
+            circularFree.removeAll(List.of("eccentricity", "omega"));
+            BinaryParameters c = result.model().common();
+            ModelFile circularStart = new ModelFile(c.withEccentricityOmega(0, c.omegaDeg()), result.model().bands(),
+                    result.model().commonComplete());
+            FitProblem circular = FitProblem.of(circularStart, data, settings.withFree(circularFree), priors);
+            try {
+                FitResult rc = EclipseFitter.optimize(circular);
+                orbit = new OrbitChoice(rc.bic() <= result.bic(), result.bic(), rc.bic());
+                if (orbit.circular()) {
+                    problem = circular;
+                    result = rc;
+                }
+            } catch (WorkFailedException e) {
+                orbit = new OrbitChoice(false, result.bic(), Double.NaN);
+            }
+            sink.accept("  " + orbit.sentence());
+            notes.add(orbit.sentence());
+        }
+        InclinationProfile.Result profile = null;
+        long profileStart = System.nanoTime();
+        java.util.Optional<InclinationProfile.Result> pr = InclinationProfile.of(result, data, problem.settings(),
+                priors);
+        if (pr.isPresent()) {
+            profile = pr.get();
+            result = InclinationProfile.widen(result, profile);
+            sink.accept(String.format(Locale.ROOT, "  profile of χ² along i: %d fits, σ(i) %.3f° → %.3f° (%.1f s)",
+                    profile.points().size(), profile.covarianceSigmaDeg(), profile.sigmaDeg(),
+                    (System.nanoTime() - profileStart) / 1e9));
+            notes.add(profile.sentence());
+        }
         NoiseReport noise = NoiseDiagnostics.of(problem, result);
         notes.addAll(noise.notes(result));
-        return new Outcome(result, trials, thinnedPoints, List.copyOf(notes), noise);
+        return new Outcome(result, trials, thinnedPoints, List.copyOf(notes), noise, priors, orbit, profile);
+    }
+
+    /**
+     * A normal prior of width {@link #LIMB_DARKENING_PRIOR_SIGMA} on every free limb-darkening
+     * coefficient, centred on its start value (per band when there are several).
+     */
+    static Priors limbDarkeningPriors(ModelFile start, Set<String> free, List<String> bands) {
+        Map<String, Prior> m = new LinkedHashMap<>();
+        for (String name : free) {
+            int star = name.startsWith("limbDarkening1.") ? 1 : name.startsWith("limbDarkening2.") ? 2 : 0;
+            if (star == 0) {
+                continue;
+            }
+            String coefficient = name.substring(name.indexOf('.') + 1);
+            for (String band : bands) {
+                BinaryParameters p = start.forBand(band);
+                LimbDarkening ld = star == 1 ? p.limbDarkening1() : p.limbDarkening2();
+                int k = List.of(ld.law().coefficientNames()).indexOf(coefficient);
+                if (k >= 0) {
+                    m.put(bands.size() > 1 ? name + "@" + band : name,
+                            new Prior.Normal(ld.coefficient(k), LIMB_DARKENING_PRIOR_SIGMA));
+                }
+            }
+        }
+        return m.isEmpty() ? Priors.none() : new Priors(m, "analysis defaults");
     }
 
     /** The first sentence of a message (the solver's messages go on with its coordinates). */

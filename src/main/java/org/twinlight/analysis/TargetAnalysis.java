@@ -9,6 +9,7 @@ import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.concurrent.ForkJoinPool;
 import java.util.function.Consumer;
 import org.twinlight.BadInputException;
 import org.twinlight.WorkFailedException;
@@ -70,6 +71,19 @@ public final class TargetAnalysis {
      *     (bad input or settings; nothing written), the message, key results and files written
      */
     public static AnalysisOutcome run(AnalysisRequest request, Consumer<String> sink) {
+        if (request.threads() == 0) {
+            return runHere(request, sink);
+        }
+        // parallel streams started inside a pool's task run in that pool: with one thread, sequentially
+        ForkJoinPool pool = new ForkJoinPool(request.threads());
+        try {
+            return pool.submit(() -> runHere(request, sink)).join();
+        } finally {
+            pool.shutdown();
+        }
+    }
+
+    private static AnalysisOutcome runHere(AnalysisRequest request, Consumer<String> sink) {
         AnalysisState st = new AnalysisState(request, Instant.now());
         try {
             st.settings = request.settings().validated("settings");
