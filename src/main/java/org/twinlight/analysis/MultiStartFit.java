@@ -38,6 +38,8 @@ import org.twinlight.photometry.LightCurve;
 final class MultiStartFit {
     /** Points of the thinned copy the starts are compared on, at most (out of eclipse thinned first). */
     static final int TRIAL_POINTS = 2000;
+    /** Points out of eclipse the thinned copy keeps at least (when there are so many). */
+    static final int MIN_OUT_OF_ECLIPSE = 200;
     /** Iterations of each trial. */
     static final int TRIAL_ITERATIONS = 15;
     /** A second minimum within this Δχ² of the best (on the thinned data) is reported as a rival. */
@@ -130,9 +132,12 @@ final class MultiStartFit {
             StartingValues c = new StartingValues(0.5, g.secondarySeen(), g.primaryDepth(), g.secondaryDepth(),
                     g.primaryWidth(), g.secondaryWidth(), g.flatBottomed(), 0, 0, sum, k, g.inclinationDeg(),
                     g.surfaceBrightnessRatio());
+            int before = list.size();
             add(list, "circular orbit", base, estimates, c, free);
-            Start circular = list.remove(list.size() - 1);
-            list.add(Math.min(list.size(), 3), circular);
+            if (list.size() > before) {
+                Start circular = list.remove(list.size() - 1);
+                list.add(Math.min(list.size(), 3), circular);
+            }
         }
         return List.copyOf(list.subList(0, Math.min(n, list.size())));
     }
@@ -143,7 +148,16 @@ final class MultiStartFit {
         Map<String, StartingValues> varied = new LinkedHashMap<>(estimates);
         varied.put(estimates.keySet().iterator().next(), s);
         try {
-            list.add(new Start(label, StartingValues.apply(base, varied, free)));
+            Start start = new Start(label, StartingValues.apply(base, varied, free));
+            BinaryParameters p = start.model().common();
+            boolean repeated = list.stream().map(x -> x.model().common()).anyMatch(q -> Math.abs(q.radius1()
+                    - p.radius1()) < 1e-9 && Math.abs(q.radius2() - p.radius2()) < 1e-9
+                    && Math.abs(q.inclinationDeg() - p.inclinationDeg()) < 1e-9
+                    && Math.abs(q.eccentricity() - p.eccentricity()) < 1e-9);
+            if (!repeated) {
+                // (k = 1 makes the inverted ratio the same start)
+                list.add(start);
+            }
         } catch (IllegalArgumentException impossible) {
             // a variant outside the physical range (spheres touching) is no start
         }
@@ -184,24 +198,27 @@ final class MultiStartFit {
                 best = t;
             }
         }
-        if (best == null) {
-            StringBuilder why = new StringBuilder("the fit did not converge from any of " + starts.size() + " starts");
-            for (Trial t : trials) {
-                why.append("; ").append(t.start().label()).append(": ").append(t.failure());
-            }
-            throw new WorkFailedException(why + ". Give a starting model (--model) or fix the period and epoch");
-        }
-        List<String> notes = new ArrayList<>(rivals(trials, best));
-        ModelFile from = best.end();
+        List<String> notes = new ArrayList<>(best == null ? List.of() : rivals(trials, best));
+        // no trial converged within its few iterations: the global search, with longer finishes, starts
+        // from the estimate
+        ModelFile from = best == null ? starts.get(0).model() : best.end();
         long searchStart = System.nanoTime();
         try {
-            GlobalSearch.Result search = GlobalSearch.run(FitProblem.of(best.end(), thinned, trialSettings, priors));
+            GlobalSearch.Result search = GlobalSearch.run(FitProblem.of(from, thinned, trialSettings, priors));
             from = search.best().start();
             sink.accept(String.format(Locale.ROOT, "  global search: %d starts, %d distinct minim%s (%.1f s)",
                     search.starts(), search.minima().size(), search.minima().size() == 1 ? "um" : "a",
                     (System.nanoTime() - searchStart) / 1e9));
             notes.addAll(search.notes());
         } catch (WorkFailedException e) {
+            if (best == null) {
+                StringBuilder why = new StringBuilder("the fit did not converge from any of " + starts.size()
+                        + " starts, nor did the global search (" + firstSentence(e.getMessage()) + ")");
+                for (Trial t : trials) {
+                    why.append("; ").append(t.start().label()).append(": ").append(t.failure());
+                }
+                throw new WorkFailedException(why + ". Give a starting model (--model) or fix the period and epoch");
+            }
             sink.accept("  global search: " + firstSentence(e.getMessage()) + "; the best start is refined");
         }
         FitProblem problem = FitProblem.of(from, data, settings, priors);
@@ -301,14 +318,14 @@ final class MultiStartFit {
     }
 
     /**
-     * Every point within 1.5 eclipse half-widths of either eclipse, and every k-th point of the rest,
-     * about {@code target} points in all (the light curve unchanged when it has no more).
+     * Every point within 1.5 eclipse half-widths of either eclipse (every k-th when they are more than
+     * half of {@code target}), and every k-th point of the rest, no more of those than are kept in
+     * eclipse ({@link #MIN_OUT_OF_ECLIPSE} at least): the starts and the global search are decided by
+     * the eclipses, and the whole light curve is used by the final fit. The light curve unchanged
+     * when it has no more points.
      */
     static LightCurve thin(LightCurve lc, BinaryParameters p, double halfWidthPhase, int target) {
         int n = lc.size();
-        if (n <= target) {
-            return lc;
-        }
         double secondary = p.orbit().secondaryPhase();
         double reach = 1.5 * halfWidthPhase;
         boolean[] inEclipse = new boolean[n];
@@ -322,7 +339,12 @@ final class MultiStartFit {
             inEclipse[i] = d1 <= reach || d2 <= reach;
             eclipsed += inEclipse[i] ? 1 : 0;
         }
-        int rest = Math.max(1, target - Math.min(eclipsed, target / 2));
+        // the points out of eclipse set little but the baseline: no more of them than in eclipse (and a floor)
+        int keptIn = Math.min(eclipsed, target / 2);
+        int rest = Math.max(MIN_OUT_OF_ECLIPSE, Math.min(target - keptIn, keptIn));
+        if (eclipsed <= target / 2 && n - eclipsed <= rest) {
+            return lc;
+        }
         int stride = Math.max(1, (n - eclipsed) / rest);
         int strideIn = Math.max(1, eclipsed / Math.max(1, target / 2));
         List<Integer> keep = new ArrayList<>();
