@@ -267,19 +267,15 @@ final class AnalysisFiles {
             o.put("chosen", fit.orbit().circular() ? "circular" : "eccentric");
             o.put("bicEccentric", Double.isFinite(fit.orbit().bicEccentric()) ? fit.orbit().bicEccentric() : null);
             o.put("bicCircular", Double.isFinite(fit.orbit().bicCircular()) ? fit.orbit().bicCircular() : null);
+            o.put("reason", fit.orbit().sentence());
         }
         InclinationProfile.Result p = fit.inclinationProfile();
         if (p != null) {
-            ObjectNode o = doc.putObject("inclinationProfile");
-            o.put("from", "profileOfChi2");
-            o.put("bestDeg", p.bestDeg());
-            o.put("covarianceSigmaDeg", p.covarianceSigmaDeg());
-            o.put("sigmaDeg", p.sigmaDeg());
-            o.put("lowerDeg", p.lowerDeg());
-            o.put("upperDeg", p.upperDeg());
-            o.put("deltaChi2At1Sigma", p.varianceScale());
-            o.put("correlatedWith", p.correlatedWith());
-            o.put("correlation", p.correlation());
+            ObjectNode o = doc.putObject("inclinationProfile").put("from", "profileOfChi2").put("bestDeg", p.bestDeg())
+                    .put("covarianceSigmaDeg", p.covarianceSigmaDeg()).put("sigmaDeg", p.sigmaDeg())
+                    .put("lowerDeg", p.lowerDeg()).put("upperDeg", p.upperDeg())
+                    .put("deltaChi2At1Sigma", p.varianceScale()).put("correlatedWith", p.correlatedWith())
+                    .put("correlation", p.correlation());
             ArrayNode pts = o.putArray("points");
             p.points().forEach(q -> pts.addObject().put("inclinationDeg", q[0]).put("deltaChi2", q[1]));
             ObjectNode w = o.putObject("widened");

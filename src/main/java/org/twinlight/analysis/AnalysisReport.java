@@ -322,11 +322,8 @@ final class AnalysisReport {
         }
         JsonNode orbit = fit.path("orbit");
         if (orbit.has("chosen")) {
-            b.append("<p>").append(esc(String.format(Locale.ROOT, "The orbit was fitted eccentric (BIC %s) and "
-                    + "circular (BIC %s); the %s orbit has the lower BIC and is reported%s.",
-                    num(orbit.path("bicEccentric"), "%.1f"), num(orbit.path("bicCircular"), "%.1f"),
-                    orbit.path("chosen").asText(), orbit.path("chosen").asText().equals("circular")
-                            ? " with e and ω held at 0 (their errors are then not measured)" : ""))).append("</p>");
+            b.append("<p>Orbit: ").append(esc(orbit.path("reason").asText())).append(orbit.path("chosen").asText()
+                    .equals("circular") ? esc("; e and ω are then fixed, not measured.") : ".").append("</p>");
         }
         JsonNode p = fit.path("inclinationProfile");
         if (p.has("from")) {

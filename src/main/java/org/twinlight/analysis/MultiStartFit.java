@@ -13,6 +13,7 @@ import org.twinlight.eclipse.BinaryParameters;
 import org.twinlight.eclipse.LimbDarkening;
 import org.twinlight.eclipse.ModelFile;
 import org.twinlight.fit.EclipseFitter;
+import org.twinlight.fit.Estimate;
 import org.twinlight.fit.FitData;
 import org.twinlight.fit.FitProblem;
 import org.twinlight.fit.FitResult;
@@ -31,15 +32,21 @@ import org.twinlight.photometry.LightCurve;
  * the data (every point in eclipse, a sample of the rest); from the lowest χ² the fit's global
  * search ({@link GlobalSearch}: a Latin-hypercube multistart over the free parameters' ranges, and
  * the radii swapped) runs on the same thinned copy, and its best minimum is refined on all the data
- * with the requested settings, followed by the correlated-noise diagnostics every fit gets
- * ({@link NoiseDiagnostics}). Competing minima (Δχ² &lt; 9 on the thinned data, which keeps every
- * point in eclipse) are named in the notes.
+ * with the requested settings. With e and ω free the circular orbit is fitted too and the lower BIC
+ * kept ({@link OrbitChoice}); a strongly correlated inclination gets its error from the profile of
+ * χ² ({@link InclinationProfile}); then the correlated-noise diagnostics every fit gets
+ * ({@link NoiseDiagnostics}). Free limb-darkening coefficients carry a normal prior
+ * ({@link #LIMB_DARKENING_PRIOR_SIGMA}) throughout. The starts and the search use a third of the
+ * sub-exposures of the final fit. Competing minima (Δχ² &lt; 10 on the thinned data, which keeps
+ * every point in eclipse) are named in the notes.
  */
 final class MultiStartFit {
     /** Points of the thinned copy the starts are compared on, at most (out of eclipse thinned first). */
     static final int TRIAL_POINTS = 2000;
     /** Points out of eclipse the thinned copy keeps at least (when there are so many). */
     static final int MIN_OUT_OF_ECLIPSE = 200;
+    /** The starts and the global search average this many times fewer sub-exposures than the final fit. */
+    static final int TRIAL_SUB_EXPOSURE_DIVISOR = 3;
     /** Iterations of each trial. */
     static final int TRIAL_ITERATIONS = 15;
     /** A second minimum within this Δχ² of the best (on the thinned data) is reported as a rival. */
@@ -89,14 +96,25 @@ final class MultiStartFit {
      * @param bicEccentric BIC of the fit with e and ω free (NaN when it failed)
      * @param bicCircular BIC of the fit with e = 0 (NaN when it failed)
      */
-    record OrbitChoice(boolean circular, double bicEccentric, double bicCircular) {
+    record OrbitChoice(boolean circular, double bicEccentric, double bicCircular, double eccentricSigmas) {
         /** A sentence for the notes and the report. */
         String sentence() {
+            if (Double.isNaN(bicCircular) && Double.isFinite(eccentricSigmas)) {
+                return String.format(Locale.ROOT, "the orbit is clearly eccentric (e cos ω or e sin ω %.0f standard "
+                        + "errors from 0): the circular orbit, far worse by BIC, was not fitted", eccentricSigmas);
+            }
             return String.format(Locale.ROOT, "the orbit was fitted both eccentric (BIC %.1f) and circular (BIC %.1f); "
                     + "the %s orbit has the lower BIC and is kept%s", bicEccentric, bicCircular,
                     circular ? "circular" : "eccentric", circular ? " (e and ω held at 0)" : "");
         }
     }
+
+    /**
+     * Beyond this many standard errors of e cos ω or e sin ω from 0 (plus the BIC's penalty for two
+     * parameters, √(2 ln n) each way) the circular orbit cannot have the lower BIC: Δχ² ≈ z² against
+     * a penalty of 2 ln n (Schwarz 1978); it is then not fitted.
+     */
+    static final double CLEARLY_ECCENTRIC_MARGIN_SIGMAS = 3;
 
     /**
      * Width of the normal prior on each free limb-darkening coefficient, centred on its start value:
@@ -181,12 +199,15 @@ final class MultiStartFit {
         FitSettings trialSettings = settings.withClipSigma(Double.NaN).withMaxIterations(TRIAL_ITERATIONS);
         Priors priors = limbDarkeningPriors(starts.get(0).model(), settings.free(),
                 data.stream().map(FitData::band).distinct().toList());
+        // the starts and the search choose the basin; a third of the sub-exposures (at least one) do for that
+        int fullSub = ephemeris.supersample();
+        int trialSub = Math.max(1, (int) Math.ceil(fullSub / (double) TRIAL_SUB_EXPOSURE_DIVISOR));
         List<Trial> trials = new ArrayList<>();
         Trial best = null;
         for (Start s : starts) {
             Trial t;
             try {
-                FitResult r = EclipseFitter.fit(s.model(), thinned, trialSettings, priors);
+                FitResult r = EclipseFitter.fit(withSubExposures(s.model(), trialSub), thinned, trialSettings, priors);
                 t = new Trial(s, r.chi2(), r.model(), null);
             } catch (WorkFailedException | IllegalArgumentException e) {
                 t = new Trial(s, Double.POSITIVE_INFINITY, null, firstSentence(e.getMessage()));
@@ -201,7 +222,7 @@ final class MultiStartFit {
         List<String> notes = new ArrayList<>(best == null ? List.of() : rivals(trials, best));
         // no trial converged within its few iterations: the global search, with longer finishes, starts
         // from the estimate
-        ModelFile from = best == null ? starts.get(0).model() : best.end();
+        ModelFile from = best == null ? withSubExposures(starts.get(0).model(), trialSub) : best.end();
         long searchStart = System.nanoTime();
         try {
             GlobalSearch.Result search = GlobalSearch.run(FitProblem.of(from, thinned, trialSettings, priors));
@@ -221,7 +242,7 @@ final class MultiStartFit {
             }
             sink.accept("  global search: " + firstSentence(e.getMessage()) + "; the best start is refined");
         }
-        FitProblem problem = FitProblem.of(from, data, settings, priors);
+        FitProblem problem = FitProblem.of(withSubExposures(from, fullSub), data, settings, priors);
         FitResult result = EclipseFitter.optimize(problem);
         OrbitChoice orbit = null;
         if (settings.free().contains("eccentricity") || settings.free().contains("omega")) {
@@ -231,15 +252,20 @@ final class MultiStartFit {
             ModelFile circularStart = new ModelFile(c.withEccentricityOmega(0, c.omegaDeg()), result.model().bands(),
                     result.model().commonComplete());
             FitProblem circular = FitProblem.of(circularStart, data, settings.withFree(circularFree), priors);
-            try {
-                FitResult rc = EclipseFitter.optimize(circular);
-                orbit = new OrbitChoice(rc.bic() <= result.bic(), result.bic(), rc.bic());
-                if (orbit.circular()) {
-                    problem = circular;
-                    result = rc;
+            double z = Math.max(sigmasFromZero(result, "eCosOmega"), sigmasFromZero(result, "eSinOmega"));
+            if (z > Math.sqrt(2 * Math.log(result.n())) + CLEARLY_ECCENTRIC_MARGIN_SIGMAS) {
+                orbit = new OrbitChoice(false, result.bic(), Double.NaN, z);
+            } else {
+                try {
+                    FitResult rc = EclipseFitter.optimize(circular);
+                    orbit = new OrbitChoice(rc.bic() <= result.bic(), result.bic(), rc.bic(), z);
+                    if (orbit.circular()) {
+                        problem = circular;
+                        result = rc;
+                    }
+                } catch (WorkFailedException e) {
+                    orbit = new OrbitChoice(false, result.bic(), Double.NaN, Double.NaN);
                 }
-            } catch (WorkFailedException e) {
-                orbit = new OrbitChoice(false, result.bic(), Double.NaN);
             }
             sink.accept("  " + orbit.sentence());
             notes.add(orbit.sentence());
@@ -284,6 +310,19 @@ final class MultiStartFit {
             }
         }
         return m.isEmpty() ? Priors.none() : new Priors(m, "analysis defaults");
+    }
+
+    /** |value| / error of a derived quantity (0 when it has no error). */
+    private static double sigmasFromZero(FitResult r, String name) {
+        Estimate e = r.get(name);
+        return e.uncertainty() > 0 ? Math.abs(e.value()) / e.uncertainty() : 0;
+    }
+
+    /** The model with {@code n} sub-exposures per exposure (the exposure time unchanged). */
+    private static ModelFile withSubExposures(ModelFile m, int n) {
+        BinaryParameters c = m.common();
+        return c.supersample() == n ? m : new ModelFile(c.withExposure(c.exposureTimeDays(), n), m.bands(),
+                m.commonComplete());
     }
 
     /** The first sentence of a message (the solver's messages go on with its coordinates). */

@@ -18,8 +18,8 @@ import org.twinlight.eclipse.BinaryParameters;
  * per kind and parameter the mean and spread of the pulls (fit − truth)/σ — near 0 and 1 when the
  * errors are honest — and how many runs ended with exit 0. Run with
  * {@code java -cp target/classes:target/test-classes:$(deps) org.twinlight.bench.AnalysisInjectionBench 20
- * [space,ground] [threads]} (second argument: the kinds, default both; third: threads per analysis,
- * default 0 = every core). Prints each run's pulls and wall time.
+ * [space,ground] [threads] [firstSeed]} (second argument: the kinds, default both; third: threads per
+ * analysis, default 0 = every core; fourth: the first seed, default 1000, so that a run can be split). Prints each run's pulls and wall time.
  */
 public final class AnalysisInjectionBench {
     private static final String[] NAMES = {"period", "radius1", "radius2", "inclination"};
@@ -31,6 +31,7 @@ public final class AnalysisInjectionBench {
         int seeds = args.length > 0 ? Integer.parseInt(args[0]) : 20;
         List<String> kinds = args.length > 1 ? List.of(args[1].split(",")) : List.of("space", "ground");
         int threads = args.length > 2 ? Integer.parseInt(args[2]) : 0;
+        long firstSeed = args.length > 3 ? Long.parseLong(args[3]) : 1000;
         for (String kind : kinds) {
             BinaryParameters truth = kind.equals("space") ? AnalysedCurves.SPACE : AnalysedCurves.GROUND;
             double[] truths = {truth.periodDays(), truth.radius1(), truth.radius2(), truth.inclinationDeg()};
@@ -38,7 +39,7 @@ public final class AnalysisInjectionBench {
             int ok = 0;
             ObjectMapper json = new ObjectMapper();
             for (int s = 0; s < seeds; s++) {
-                long seed = 1000 + s;
+                long seed = firstSeed + s;
                 Path dir = AnalysedCurves.root().resolve("bench-" + kind + "-" + seed);
                 Path f = kind.equals("space") ? AnalysedCurves.writeSpace(Path.of(dir + ".csv"), seed)
                         : AnalysedCurves.writeGround(Path.of(dir + ".csv"), seed);
