@@ -94,7 +94,9 @@ final class MultiStartFit {
      *
      * @param circular whether the circular orbit (e and ω held at 0) was kept
      * @param bicEccentric BIC of the fit with e and ω free (NaN when it failed)
-     * @param bicCircular BIC of the fit with e = 0 (NaN when it failed)
+     * @param bicCircular BIC of the fit with e = 0 (NaN when it failed or was not needed)
+     * @param eccentricSigmas the larger of |e cos ω| and |e sin ω| in standard errors of the eccentric fit
+     *     (NaN when unknown)
      */
     record OrbitChoice(boolean circular, double bicEccentric, double bicCircular, double eccentricSigmas) {
         /** A sentence for the notes and the report. */
@@ -251,11 +253,11 @@ final class MultiStartFit {
             BinaryParameters c = result.model().common();
             ModelFile circularStart = new ModelFile(c.withEccentricityOmega(0, c.omegaDeg()), result.model().bands(),
                     result.model().commonComplete());
-            FitProblem circular = FitProblem.of(circularStart, data, settings.withFree(circularFree), priors);
             double z = Math.max(sigmasFromZero(result, "eCosOmega"), sigmasFromZero(result, "eSinOmega"));
             if (z > Math.sqrt(2 * Math.log(result.n())) + CLEARLY_ECCENTRIC_MARGIN_SIGMAS) {
                 orbit = new OrbitChoice(false, result.bic(), Double.NaN, z);
             } else {
+                FitProblem circular = FitProblem.of(circularStart, data, settings.withFree(circularFree), priors);
                 try {
                     FitResult rc = EclipseFitter.optimize(circular);
                     orbit = new OrbitChoice(rc.bic() <= result.bic(), result.bic(), rc.bic(), z);
