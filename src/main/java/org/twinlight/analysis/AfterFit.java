@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.concurrent.ForkJoinTask;
 import java.util.function.Consumer;
 import org.twinlight.BadInputException;
 import org.twinlight.fit.EclipseFitter;
@@ -16,7 +17,6 @@ import org.twinlight.fit.NoiseDiagnostics;
 import org.twinlight.fit.NoiseReport;
 import org.twinlight.fit.Posterior;
 import org.twinlight.fit.PosteriorSampler;
-import org.twinlight.fit.Priors;
 import org.twinlight.sampling.SamplerSettings;
 import org.twinlight.sampling.SamplingProgress;
 import org.twinlight.velocity.VelocityData;
@@ -67,7 +67,8 @@ final class AfterFit {
     static void jointFit(AnalysisState st, Consumer<String> sink) {
         FitResult lightCurves = st.fit.result();
         JointVelocities joint = JointVelocities.of(st.velocityData, lightCurves.model().common());
-        FitProblem problem = FitProblem.of(lightCurves.model(), st.fitData, st.fitSettings, Priors.none(), joint);
+        FitProblem problem = FitProblem.of(lightCurves.model(), st.fitData, st.fit.problem().settings(), st.fit.priors(),
+                joint);
         sink.accept("joint fit of the light curves and " + st.velocityData.size() + " velocity file(s) ...");
         FitResult r = EclipseFitter.optimize(problem);
         NoiseReport noise = NoiseDiagnostics.of(problem, r);
@@ -78,7 +79,8 @@ final class AfterFit {
         notes.addAll(noise.notes(r));
         st.joint = joint;
         st.problem = problem;
-        st.fit = new MultiStartFit.Outcome(r, st.fit.trials(), st.fit.thinnedPoints(), List.copyOf(notes), noise);
+        st.fit = new MultiStartFit.Outcome(r, st.fit.trials(), st.fit.thinnedPoints(), List.copyOf(notes), noise,
+                st.fit.priors(), st.fit.orbit(), st.fit.inclinationProfile(), problem);
         sink.accept(String.format(Locale.ROOT, "joint fit: χ²ν = %.3f, K1 = %s, K2 = %s km/s", r.reducedChi2(),
                 AnalysisReport.withError(r.get("k1")), joint.doubleLined() ? AnalysisReport.withError(r.get("k2"))
                         : "not determined"));
@@ -88,7 +90,7 @@ final class AfterFit {
     static void posterior(AnalysisState st, Consumer<String> sink) {
         AfterFitSettings a = st.settings.afterFit();
         FitProblem problem = st.problem != null ? st.problem
-                : FitProblem.of(st.fit.result().model(), st.fitData, st.fitSettings);
+                : FitProblem.of(st.fit.result().model(), st.fitData, st.fit.problem().settings(), st.fit.priors());
         int free = (int) problem.parameters().stream().filter(FitParameter::free).count();
         if (a.walkers() != null && a.walkers() < 2 * free + 2) {
             throw AnalysisSettings.bad("settings", "walkers", "expected an even number of at least " + (2 * free + 2)
@@ -96,7 +98,7 @@ final class AfterFit {
         }
         SamplerSettings s = SamplerSettings.of(a.walkers() != null ? a.walkers() : SamplerSettings.defaultWalkers(free),
                 a.maxSteps() != null ? a.maxSteps() : AfterFitSettings.DEFAULT_MAX_STEPS, st.settings.seed(),
-                a.threads() != null ? a.threads() : Runtime.getRuntime().availableProcessors());
+                a.threads() != null ? a.threads() : defaultThreads());
         sink.accept("sampling the posterior (" + s.walkers() + " walkers, at most " + s.maxSteps() + " steps) ...");
         Posterior p = PosteriorSampler.sample(problem, st.fit.result(), s, SamplingProgress.NONE, () -> false);
         st.posterior = p;
@@ -110,5 +112,14 @@ final class AfterFit {
                     + 2 * p.steps() + "), fewer free parameters, or a model file whose priors rule out what the "
                     + "data cannot decide");
         }
+    }
+
+    /**
+     * The sampler's threads when the settings give none: those of the pool the analysis runs in (one
+     * in a batch, where targets fill the cores), else every processor.
+     */
+    private static int defaultThreads() {
+        return ForkJoinTask.inForkJoinPool() ? ForkJoinTask.getPool().getParallelism()
+                : Runtime.getRuntime().availableProcessors();
     }
 }

@@ -25,6 +25,7 @@ import org.twinlight.BadInputException;
 import org.twinlight.WorkFailedException;
 import org.twinlight.fit.Estimate;
 import org.twinlight.fit.FitResult;
+import org.twinlight.fit.Prior;
 import org.twinlight.fit.NoiseReport;
 import org.twinlight.photometry.LightCurveSummary;
 import org.twinlight.report.AtomicFiles;
@@ -232,12 +233,13 @@ final class AnalysisFiles {
         FitResult r = st.fit.result();
         List<FitFiles.InputRecord> inputs = st.inputs.stream().map(in -> new FitFiles.InputRecord(in.file()
                 .toString(), in.sha256(), in.band(), in.bandSource(), in.lightCurve().size())).toList();
-        ObjectNode doc = FitFiles.fitJson(r, st.fitSettings, st.timeScale, inputs, version);
+        ObjectNode doc = FitFiles.fitJson(r, st.fit.problem().settings(), st.timeScale, inputs, version);
         ArrayNode notes = (ArrayNode) doc.get("notes");
         st.estimates.forEach((band, e) -> notes.add((st.estimates.size() > 1 ? "band " + band + ": " : "")
                 + e.describe()));
         FitFiles.putNoise(doc, st.fit.noise(), r);
         AfterFitFiles.addToFitJson(st, doc);
+        putFitChoices(doc, st.fit);
         List<String> present = new ArrayList<>();
         notes.forEach(n -> present.add(n.asText()));
         st.fit.notes().stream().filter(n -> !present.contains(n)).forEach(notes::add);
@@ -255,6 +257,42 @@ final class AnalysisFiles {
         }
         AfterFitFiles.writeFitExtras(st, set, images);
         results.set("fit", readJson(set.file("fit.json")));
+    }
+
+    /**
+     * What the fit stage chose beyond a plain fit: the priors on the limb darkening, the orbit kept
+     * by BIC, and the profile of χ² that widened the inclination's error.
+     */
+    private static void putFitChoices(ObjectNode doc, MultiStartFit.Outcome fit) {
+        if (!fit.priors().isEmpty()) {
+            ObjectNode pri = doc.putObject("limbDarkeningPriors");
+            fit.priors().byName().forEach((name, prior) -> {
+                if (prior instanceof Prior.Normal n) {
+                    ObjectNode o = pri.putObject(name);
+                    o.put("mean", n.mean());
+                    o.put("sigma", n.sigma());
+                }
+            });
+        }
+        if (fit.orbit() != null) {
+            ObjectNode o = doc.putObject("orbit");
+            o.put("chosen", fit.orbit().circular() ? "circular" : "eccentric");
+            o.put("bicEccentric", Double.isFinite(fit.orbit().bicEccentric()) ? fit.orbit().bicEccentric() : null);
+            o.put("bicCircular", Double.isFinite(fit.orbit().bicCircular()) ? fit.orbit().bicCircular() : null);
+            o.put("reason", fit.orbit().sentence());
+        }
+        InclinationProfile.Result p = fit.inclinationProfile();
+        if (p != null) {
+            ObjectNode o = doc.putObject("inclinationProfile").put("from", "profileOfChi2").put("bestDeg", p.bestDeg())
+                    .put("covarianceSigmaDeg", p.covarianceSigmaDeg()).put("sigmaDeg", p.sigmaDeg())
+                    .put("lowerDeg", p.lowerDeg()).put("upperDeg", p.upperDeg())
+                    .put("deltaChi2At1Sigma", p.varianceScale()).put("correlatedWith", p.correlatedWith())
+                    .put("correlation", p.correlation());
+            ArrayNode pts = o.putArray("points");
+            p.points().forEach(q -> pts.addObject().put("inclinationDeg", q[0]).put("deltaChi2", q[1]));
+            ObjectNode w = o.putObject("widened");
+            p.widened().forEach((name, v) -> w.putObject(name).put("covariance", v[0]).put("profile", v[1]));
+        }
     }
 
     private static ArrayNode starts(AnalysisState st) {

@@ -9,6 +9,7 @@ import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.concurrent.ForkJoinPool;
 import java.util.function.Consumer;
 import org.twinlight.BadInputException;
 import org.twinlight.WorkFailedException;
@@ -53,6 +54,11 @@ public final class TargetAnalysis {
      * (common practice, no source).
      */
     static final double SUB_EXPOSURE_DAYS = 120.0 / 86400.0;
+    /**
+     * A skipped eclipse with at least this many points in its window counts as covered by the data
+     * (seen, if not timed on its own; common practice, no source).
+     */
+    static final int MIN_POINTS_COVERED = 5;
     /** Phase bins of the fold that places the epoch when only the period is given. */
     private static final int EPOCH_BINS = 200;
 
@@ -71,6 +77,19 @@ public final class TargetAnalysis {
      *     (bad input or settings; nothing written), the message, key results and files written
      */
     public static AnalysisOutcome run(AnalysisRequest request, Consumer<String> sink) {
+        if (request.threads() == 0) {
+            return runHere(request, sink);
+        }
+        // parallel streams started inside a pool's task run in that pool: with one thread, sequentially
+        ForkJoinPool pool = new ForkJoinPool(request.threads());
+        try {
+            return pool.submit(() -> runHere(request, sink)).join();
+        } finally {
+            pool.shutdown();
+        }
+    }
+
+    private static AnalysisOutcome runHere(AnalysisRequest request, Consumer<String> sink) {
         AnalysisState st = new AnalysisState(request, Instant.now());
         try {
             st.settings = request.settings().validated("settings");
@@ -247,10 +266,24 @@ public final class TargetAnalysis {
         long primaries = timings.stream().filter(m -> m.type() == MinimumType.PRIMARY).count();
         sink.accept(String.format(Locale.ROOT, "times of minimum: %d primary, %d secondary, %d skipped", primaries,
                 timings.size() - primaries, st.minima.skipped().size()));
-        if (timings.isEmpty()) {
+        // primary eclipses the data cover with points, timed or not: the fit measures the period from all of them
+        long coveredPrimaries = primaries + st.minima.skipped().stream().filter(m -> m.type() == MinimumType.PRIMARY
+                && m.nPoints() >= MIN_POINTS_COVERED).count();
+        boolean fitCanTime = st.period != null && coveredPrimaries >= 2;
+        if (timings.isEmpty() && !fitCanTime) {
             throw new WorkFailedException(String.format(Locale.ROOT, "no eclipse could be timed at P = %.8g d, "
                     + "epoch %.6f (%d eclipse(s) skipped: see the report); check the period and epoch", st
                     .searchEphemeris.periodDays(), st.searchEphemeris.epochDays(), st.minima.skipped().size()));
+        }
+        if (timings.isEmpty() || primaries < 2 && fitCanTime) {
+            // each eclipse holds too few points to be timed alone (long cadence, short eclipses), but the
+            // data cover several: the fit of the whole light curve measures period and epoch
+            st.ephemeris = st.searchEphemeris;
+            st.notes.add(String.format(Locale.ROOT, "%d primary eclipse(s) are covered by the data but %d could be "
+                    + "timed on their own (too few points in each; see the skipped minima): no ephemeris was fitted "
+                    + "to times of minimum, and the period and epoch come from the fit of the whole light curve, "
+                    + "started at the period search's", coveredPrimaries, primaries));
+            return;
         }
         if (st.period != null && primaries < 2) {
             throw new WorkFailedException(String.format(Locale.ROOT, "one eclipse only: %d primary and %d secondary "

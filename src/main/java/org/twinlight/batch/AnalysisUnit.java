@@ -29,7 +29,8 @@ public final class AnalysisUnit implements UnitOfWork {
 
     @Override
     public TargetResult run(BatchTarget t) {
-        AnalysisOutcome o = TargetAnalysis.run(new AnalysisRequest(settings(t), t.outputDir()));
+        // one thread per target: the batch's threads fill the cores with targets
+        AnalysisOutcome o = TargetAnalysis.run(new AnalysisRequest(settings(t), t.outputDir(), 1));
         Map<String, TargetResult.KeyValue> keys = new LinkedHashMap<>();
         o.keyResults().forEach((name, v) -> keys.put(name, new TargetResult.KeyValue(v.value(), v.uncertainty())));
         List<String> files = o.files().stream().map(f -> name(t, f)).toList();
