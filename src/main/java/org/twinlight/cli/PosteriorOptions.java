@@ -85,7 +85,8 @@ final class PosteriorOptions {
         }
         if (walkers != null && (walkers < 2 * freeCount + 2 || walkers % 2 != 0)) {
             throw new BadInputException("option --walkers: expected an even number of at least " + (2 * freeCount + 2)
-                    + " (twice the " + freeCount + " free parameters, plus 2), got " + walkers);
+                    + " (twice the " + freeCount + (jitter ? " free parameters and jitter terms" : " free parameters")
+                    + ", plus 2), got " + walkers);
         }
         if (threads != null && threads < 1) {
             throw new BadInputException("option --threads: expected a positive integer, got " + threads);
