@@ -9,7 +9,6 @@ import java.util.concurrent.ForkJoinTask;
 import java.util.function.Consumer;
 import org.twinlight.BadInputException;
 import org.twinlight.fit.EclipseFitter;
-import org.twinlight.fit.FitParameter;
 import org.twinlight.fit.FitProblem;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.JointVelocities;
@@ -91,16 +90,17 @@ final class AfterFit {
         AfterFitSettings a = st.settings.afterFit();
         FitProblem problem = st.problem != null ? st.problem
                 : FitProblem.of(st.fit.result().model(), st.fitData, st.fit.problem().settings(), st.fit.priors());
-        int free = (int) problem.parameters().stream().filter(FitParameter::free).count();
+        int free = PosteriorSampler.dimension(problem, a.jitter());
         if (a.walkers() != null && a.walkers() < 2 * free + 2) {
             throw AnalysisSettings.bad("settings", "walkers", "expected an even number of at least " + (2 * free + 2)
-                    + " (twice the " + free + " free parameters, plus 2), got " + a.walkers());
+                    + " (twice the " + free + (a.jitter() ? " free parameters and jitter terms" : " free parameters")
+                    + ", plus 2), got " + a.walkers());
         }
         SamplerSettings s = SamplerSettings.of(a.walkers() != null ? a.walkers() : SamplerSettings.defaultWalkers(free),
                 a.maxSteps() != null ? a.maxSteps() : AfterFitSettings.DEFAULT_MAX_STEPS, st.settings.seed(),
                 a.threads() != null ? a.threads() : defaultThreads());
         sink.accept("sampling the posterior (" + s.walkers() + " walkers, at most " + s.maxSteps() + " steps) ...");
-        Posterior p = PosteriorSampler.sample(problem, st.fit.result(), s, SamplingProgress.NONE, () -> false);
+        Posterior p = PosteriorSampler.sample(problem, st.fit.result(), s, a.jitter(), SamplingProgress.NONE, () -> false);
         st.posterior = p;
         sink.accept(String.format(Locale.ROOT, "posterior: %d steps, max τ %.1f steps, %s", p.steps(),
                 p.convergence().maxAutocorrelationTime(), p.convergence().converged() ? "converged"

@@ -10,6 +10,7 @@ import org.twinlight.BadInputException;
  * one seed ({@link AnalysisSettings#seed}).
  *
  * @param posterior whether the posterior is sampled after the fit
+ * @param jitter whether the sampler adds an extra scatter per band and velocity file ({@code fit --jitter})
  * @param maxSteps steps per walker at most (null: {@link #DEFAULT_MAX_STEPS})
  * @param walkers number of walkers, even (null: max(32, 4 × the free parameters))
  * @param threads threads evaluating the model while sampling (null: the processors); the chain is
@@ -25,12 +26,12 @@ import org.twinlight.BadInputException;
  * @param teff2ErrorK its 1σ error
  * @param draws draws of the error propagation of the dimensions
  */
-public record AfterFitSettings(boolean posterior, Integer maxSteps, Integer walkers, Integer threads,
+public record AfterFitSettings(boolean posterior, boolean jitter, Integer maxSteps, Integer walkers, Integer threads,
         List<String> velocities, Double k1Kms, double k1ErrorKms, Double k2Kms, double k2ErrorKms, Double teff1K,
         double teff1ErrorK, Double teff2K, double teff2ErrorK, int draws) {
 
     /** The keys of the settings file these settings answer to, in order. */
-    public static final List<String> KEYS = List.of("posterior", "maxSteps", "walkers", "threads", "velocities", "k1",
+    public static final List<String> KEYS = List.of("posterior", "jitter", "maxSteps", "walkers", "threads", "velocities", "k1",
             "k1Error", "k2", "k2Error", "teff1", "teff1Error", "teff2", "teff2Error", "draws");
     /** Steps per walker at most when not given (as {@code fit --posterior}). */
     public static final int DEFAULT_MAX_STEPS = 20_000;
@@ -43,7 +44,7 @@ public record AfterFitSettings(boolean posterior, Integer maxSteps, Integer walk
 
     /** No posterior, no velocities, no dimensions. */
     public static AfterFitSettings defaults() {
-        return new AfterFitSettings(false, null, null, null, List.of(), null, 0, null, 0, null, 0, null, 0,
+        return new AfterFitSettings(false, false, null, null, null, List.of(), null, 0, null, 0, null, 0, null, 0,
                 DEFAULT_DRAWS);
     }
 
@@ -59,6 +60,7 @@ public record AfterFitSettings(boolean posterior, Integer maxSteps, Integer walk
             throw new IllegalArgumentException("not a key of the stages after the fit: " + key);
         }
         return new AfterFitSettings(key.equals("posterior") ? (Boolean) v : posterior,
+                key.equals("jitter") ? (Boolean) v : jitter,
                 key.equals("maxSteps") ? (Integer) v : maxSteps,
                 key.equals("walkers") ? (Integer) v : walkers,
                 key.equals("threads") ? (Integer) v : threads,
@@ -80,7 +82,8 @@ public record AfterFitSettings(boolean posterior, Integer maxSteps, Integer walk
      */
     public AfterFitSettings validated(String where) {
         if (!posterior) {
-            for (Object[] o : new Object[][] {{"maxSteps", maxSteps}, {"walkers", walkers}}) {
+            for (Object[] o : new Object[][] {{"jitter", jitter ? Boolean.TRUE : null}, {"maxSteps", maxSteps},
+                    {"walkers", walkers}}) {
                 if (o[1] != null) {
                     throw AnalysisSettings.bad(where, (String) o[0], "sets the posterior sampler; set 'posterior' "
                             + "to true (option --posterior), or leave it out");

@@ -90,6 +90,7 @@ public final class AnalysisSettingsJson {
         o.put("seed", s.seed());
         AfterFitSettings a = s.afterFit();
         o.put("posterior", a.posterior());
+        o.put("jitter", a.jitter());
         o.put("maxSteps", a.maxSteps());
         o.put("walkers", a.walkers());
         o.put("threads", a.threads());
@@ -129,7 +130,7 @@ public final class AnalysisSettingsJson {
                 case "hdu", "supersample" -> s.with(key, integer(key, v));
                 case "maxIterations", "starts" -> s.with(key, required(key, integer(key, v)));
                 case "seed" -> s.with(key, (long) required(key, integer(key, v)));
-                case "posterior" -> s.with(key, bool(key, v));
+                case "posterior", "jitter" -> s.with(key, bool(key, v));
                 case "maxSteps", "walkers", "threads" -> s.with(key, integer(key, v));
                 case "draws" -> s.with(key, required(key, integer(key, v)));
                 case "velocities" -> s.with(key, paths(key, v));

@@ -177,6 +177,7 @@ public final class AnalyseCommand implements Callable<Integer> {
         m.put("supersample", supersample);
         m.put("seed", sampling.seed);
         m.put("posterior", sampling.posterior ? Boolean.TRUE : null);
+        m.put("jitter", sampling.jitter ? Boolean.TRUE : null);
         m.put("maxSteps", sampling.maxSteps);
         m.put("walkers", sampling.walkers);
         m.put("threads", sampling.threads);

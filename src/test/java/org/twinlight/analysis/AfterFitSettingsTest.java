@@ -24,11 +24,12 @@ class AfterFitSettingsTest {
     @Test
     void keysAreReadWithPathsRelativeToTheFileAndWrittenBackUnchanged() throws Exception {
         AnalysisSettings s = read("""
-                {"files": ["lc.csv"], "posterior": true, "maxSteps": 5000, "walkers": 40, "threads": 2,
+                {"files": ["lc.csv"], "posterior": true, "jitter": true, "maxSteps": 5000, "walkers": 40, "threads": 2,
                  "velocities": ["rv/a.csv", "rv/b.csv"], "teff1": 6100, "teff1Error": 90, "draws": 4000, "seed": 7}
                 """).validated("s.json");
         AfterFitSettings a = s.afterFit();
         assertThat(a.posterior()).isTrue();
+        assertThat(a.jitter()).isTrue();
         assertThat(a.maxSteps()).isEqualTo(5000);
         assertThat(a.walkers()).isEqualTo(40);
         assertThat(a.velocities()).containsExactly(dir.resolve("cfg/rv/a.csv").toAbsolutePath().toString(),
@@ -49,6 +50,7 @@ class AfterFitSettingsTest {
                 .hasMessageContaining("key 'velocities'").hasMessageContaining("array");
         for (String[] c : List.of(
                 new String[] {"{\"files\": [\"x\"], \"maxSteps\": 100}", "maxSteps", "posterior"},
+                new String[] {"{\"files\": [\"x\"], \"jitter\": true}", "jitter", "posterior"},
                 new String[] {"{\"files\": [\"x\"], \"posterior\": true, \"walkers\": 7}", "walkers", "even"},
                 new String[] {"{\"files\": [\"x\"], \"k1\": 60}", "k2", "missing"},
                 new String[] {"{\"files\": [\"x\"], \"k1\": 60, \"k2\": -1}", "k2", "> 0"},
