@@ -211,7 +211,7 @@ final class AnalysisReport {
         for (JsonNode s : results.path("starts")) {
             b.append("<tr><td>").append(esc(s.path("start").asText())).append("</td>");
             if (s.has("failure")) {
-                b.append("<td colspan=\"5\">failed: ").append(esc(s.path("failure").asText())).append("</td></tr>\n");
+                b.append("<td colspan=\"5\">dropped: ").append(esc(s.path("failure").asText())).append("</td></tr>\n");
                 continue;
             }
             b.append(num(s.path("chi2"), "%.1f")).append(num(s.path("radius1"), "%.5f"))

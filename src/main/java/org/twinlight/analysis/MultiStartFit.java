@@ -227,7 +227,7 @@ final class MultiStartFit {
             }
             trials.add(t);
             sink.accept(String.format(Locale.ROOT, "  start %d/%d (%s): %s", trials.size(), starts.size(),
-                    s.label(), t.end() == null ? "failed: " + t.failure() : String.format(Locale.ROOT, "χ² %.1f", t.chi2())));
+                    s.label(), t.end() == null ? "dropped: " + t.failure() : String.format(Locale.ROOT, "χ² %.1f", t.chi2())));
             if (t.end() != null && (best == null || t.chi2() < best.chi2())) {
                 best = t;
             }

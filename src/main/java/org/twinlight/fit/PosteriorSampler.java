@@ -234,6 +234,14 @@ public final class PosteriorSampler {
                     + JitterTerms.LOWER_FACTOR + " to " + (int) JitterTerms.UPPER_FACTOR + " times the median stated error");
         }
         return new Posterior(List.copyOf(names), parameterCount, walkers, values, logp, List.copyOf(marginals),
-                run.convergence(), settings.seed(), List.copyOf(notes));
+                run.convergence().withCoordinateNames(coordinateNames(coords, jitter)), settings.seed(),
+                List.copyOf(notes));
+    }
+
+    /** The names of the sampled coordinates: the parameters' (or their combinations'), then ln of each jitter. */
+    private static List<String> coordinateNames(SampledCoordinates coords, JitterTerms jitter) {
+        List<String> names = new ArrayList<>(coords.names());
+        jitter.terms().forEach(t -> names.add("ln " + t.label()));
+        return names;
     }
 }

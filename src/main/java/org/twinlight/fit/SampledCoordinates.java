@@ -60,6 +60,13 @@ final class SampledCoordinates {
         return size;
     }
 
+    /** The names of the sampled coordinates, in order (a parameter's name where it is sampled as itself). */
+    List<String> names() {
+        List<String> out = new ArrayList<>();
+        blocks.forEach(b -> out.addAll(b.names()));
+        return out;
+    }
+
     /** The external vector of sampled coordinates u, into {@code ext} (fixed parameters at their values). */
     void toExternal(double[] u, double[] ext) {
         System.arraycopy(reference, 0, ext, 0, reference.length);
@@ -112,6 +119,9 @@ final class SampledCoordinates {
         boolean inside(double[] u, int off);
 
         String describe();
+
+        /** The names of its coordinates, in order. */
+        List<String> names();
     }
 
     private String label(int i) {
@@ -160,6 +170,11 @@ final class SampledCoordinates {
         public String describe() {
             return label(index) + " outside [" + lower + ", " + upper + "]";
         }
+
+        @Override
+        public List<String> names() {
+            return List.of(label(index));
+        }
     }
 
     /** (√e cos ω, √e sin ω), ω kept within ±180° of its least-squares value. */
@@ -190,6 +205,11 @@ final class SampledCoordinates {
 
         public String describe() {
             return "eccentricity outside [0, 1)";
+        }
+
+        @Override
+        public List<String> names() {
+            return List.of("√e cos ω", "√e sin ω");
         }
     }
 
@@ -228,6 +248,11 @@ final class SampledCoordinates {
         public String describe() {
             return label(a) + " and " + label(b) + " outside the physically allowed region of the quadratic law "
                     + "(q1 = (a + b)² and q2 = a / (2(a + b)) in [0, 1]: Kipping 2013, MNRAS 435, 2152)";
+        }
+
+        @Override
+        public List<String> names() {
+            return List.of("q1 of " + label(a) + ", " + label(b), "q2 of " + label(a) + ", " + label(b));
         }
     }
 }

@@ -1,5 +1,9 @@
 package org.twinlight.sampling;
 
+import java.util.List;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
 /**
  * How a sampling run ended and whether its chain may be used.
  *
@@ -31,5 +35,22 @@ public record Convergence(boolean converged, String reason, boolean cancelled, i
     /** Retained steps over the largest τ. */
     public double chainLengthInTau() {
         return (steps - burnIn) / maxAutocorrelationTime();
+    }
+
+    /**
+     * The same with the coordinates the reason mentions by number ("coordinate 3") named as well,
+     * from {@code names} in coordinate order.
+     */
+    public Convergence withCoordinateNames(List<String> names) {
+        Matcher m = Pattern.compile("coordinate (\\d+)").matcher(reason);
+        StringBuilder b = new StringBuilder();
+        while (m.find()) {
+            int k = Integer.parseInt(m.group(1));
+            m.appendReplacement(b, Matcher.quoteReplacement(k < names.size()
+                    ? "coordinate " + k + ", " + names.get(k) : m.group()));
+        }
+        m.appendTail(b);
+        return new Convergence(converged, b.toString(), cancelled, steps, burnIn, autocorrelationTimes,
+                acceptanceFraction, evaluations);
     }
 }

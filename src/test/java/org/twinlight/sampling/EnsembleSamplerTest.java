@@ -159,6 +159,9 @@ class EnsembleSamplerTest {
         assertThat(r.convergence().converged()).isFalse();
         assertThat(r.convergence().reason()).contains("step limit of 400").contains("autocorrelation times long");
         assertThat(r.convergence().steps()).isEqualTo(400);
+        // the coordinate the reason points at is named when the caller knows the names
+        assertThat(r.convergence().withCoordinateNames(java.util.List.of("x", "y")).reason())
+                .containsPattern("coordinate [01], [xy], τ");
     }
 
     @Test
