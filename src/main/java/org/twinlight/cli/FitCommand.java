@@ -13,10 +13,10 @@ import org.twinlight.eclipse.ModelFile;
 import org.twinlight.fit.Baseline;
 import org.twinlight.fit.EclipseFitter;
 import org.twinlight.fit.FitData;
-import org.twinlight.fit.FitParameter;
 import org.twinlight.fit.FitProblem;
 import org.twinlight.fit.GlobalSearch;
 import org.twinlight.fit.Posterior;
+import org.twinlight.fit.PosteriorSampler;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.FitSettings;
 import org.twinlight.fit.JointVelocities;
@@ -249,11 +249,12 @@ public final class FitCommand implements Callable<Integer> {
             joint.notes().forEach(n -> console().println("note: " + n));
         }
         FitProblem problem = FitProblem.of(start, data, settings, priors, joint);
-        int freeCount = (int) problem.parameters().stream().filter(FitParameter::free).count();
-        sampling.check(freeCount);
+        int freeCount = PosteriorSampler.dimension(problem, sampling.posterior && sampling.jitter);
+        sampling.check(freeCount, global, inflate);
+        sampling.checkPriors(priors);
         GlobalSearch.Result search = null;
         if (global) {
-            search = GlobalSearch.run(problem);
+            search = GlobalSearch.run(problem, sampling.seed(), 0);
             console().printf(Locale.ROOT, "global search: %d starts, %d distinct minim%s%n", search.starts(),
                     search.minima().size(), search.minima().size() == 1 ? "um" : "a");
             problem = search.best();
@@ -271,8 +272,15 @@ public final class FitCommand implements Callable<Integer> {
 
         com.fasterxml.jackson.databind.node.ObjectNode doc = FitFiles.fitJson(r, settings, scale, inputs,
                 VersionInfo.version());
-        ((com.fasterxml.jackson.databind.node.ObjectNode) doc.get("settings")).put("airmass",
-                airmass == null ? "none" : airmass.trim().toLowerCase(Locale.ROOT));
+        com.fasterxml.jackson.databind.node.ObjectNode settingsNode =
+                (com.fasterxml.jackson.databind.node.ObjectNode) doc.get("settings");
+        settingsNode.put("airmass", airmass == null ? "none" : airmass.trim().toLowerCase(Locale.ROOT));
+        if (global || sampling.posterior) {
+            settingsNode.put("seed", sampling.seed());
+        }
+        if (sampling.posterior) {
+            settingsNode.put("jitter", sampling.jitter);
+        }
         com.fasterxml.jackson.databind.node.ArrayNode notes = (com.fasterxml.jackson.databind.node.ArrayNode) doc.get("notes");
         startNotes.forEach(notes::add);
         FitFiles.putPriors(doc, priors);

@@ -11,6 +11,7 @@ import org.twinlight.fit.FitProblem;
 import org.twinlight.fit.FitResult;
 import org.twinlight.fit.Posterior;
 import org.twinlight.fit.PosteriorSampler;
+import org.twinlight.fit.Priors;
 import org.twinlight.sampling.SamplerSettings;
 import org.twinlight.sampling.SamplingProgress;
 import picocli.CommandLine.Option;
@@ -22,15 +23,23 @@ import picocli.CommandLine.Option;
 final class PosteriorOptions {
     /** How long a Ctrl-C waits for the sampler to stop before the process ends anyway. */
     private static final long STOP_WAIT_SECONDS = 5;
+    /** Seed when --seed is not given: the same as the global search's own default. */
+    static final long DEFAULT_SEED = org.twinlight.fit.GlobalSearch.DEFAULT_SEED;
 
     @Option(names = "--posterior", description = "After the least-squares fit, sample the posterior with the "
             + "affine-invariant ensemble sampler: medians, 68%% and 95%% intervals in fit.json, chain.csv.gz, "
             + "trace.png and corner.png. Priors come from the model file's \"priors\".")
     boolean posterior;
 
+    @Option(names = "--jitter", description = "With --posterior: sample an extra scatter added in quadrature to "
+            + "the stated errors, one per band (jitter, jitter@BAND) and one per velocity file (jitterVelocity), "
+            + "instead of scaling the errors to reduced chi-square 1. Default prior: log-uniform from 0.001 to 100 "
+            + "times the median stated error; a prior on jitter in the model file replaces it.")
+    boolean jitter;
+
     @Option(names = "--seed", paramLabel = "S",
-            description = "Seed of the sampler; the same seed gives the same chain with any --threads "
-                    + "(default: 1).")
+            description = "Seed of the random numbers: of the sampler (--posterior) and of the global search "
+                    + "(--global); the same seed gives the same result with any --threads (default: 1).")
     Long seed;
 
     @Option(names = "--max-steps", paramLabel = "N",
@@ -46,31 +55,62 @@ final class PosteriorOptions {
             description = "Threads evaluating the model (default: the number of processors).")
     Integer threads;
 
-    /** Checks the option values given without --posterior or with impossible values. */
-    void check(int freeCount) {
+    /**
+     * Checks the option values given without --posterior (--seed is also the global search's) or with
+     * impossible values.
+     *
+     * @param freeCount the number of sampled coordinates (free parameters and jitter terms)
+     * @param global whether the fit runs a global search (--global)
+     * @param inflate whether the errors are inflated by beta (--inflate-errors beta)
+     */
+    void check(int freeCount, boolean global, boolean inflate) {
         if (!posterior) {
-            if (seed != null || maxSteps != null || walkers != null || threads != null) {
-                throw new BadInputException("options --seed, --max-steps, --walkers and --threads set the sampler; "
+            if (maxSteps != null || walkers != null || threads != null || jitter) {
+                throw new BadInputException("options --jitter, --max-steps, --walkers and --threads set the sampler; "
                         + "add --posterior to sample, or leave them out");
             }
+            if (seed != null && !global) {
+                throw new BadInputException("option --seed seeds the sampler (--posterior) and the global search "
+                        + "(--global); add one of them, or leave it out");
+            }
             return;
+        }
+        if (jitter && inflate) {
+            throw new BadInputException("options --jitter and --inflate-errors beta: --jitter takes the errors as "
+                    + "stated and samples an extra white scatter, --inflate-errors beta scales them for correlated "
+                    + "noise; choose one");
         }
         if (maxSteps != null && maxSteps < 1) {
             throw new BadInputException("option --max-steps: expected a positive integer, got " + maxSteps);
         }
         if (walkers != null && (walkers < 2 * freeCount + 2 || walkers % 2 != 0)) {
             throw new BadInputException("option --walkers: expected an even number of at least " + (2 * freeCount + 2)
-                    + " (twice the " + freeCount + " free parameters, plus 2), got " + walkers);
+                    + " (twice the " + freeCount + (jitter ? " free parameters and jitter terms" : " free parameters")
+                    + ", plus 2), got " + walkers);
         }
         if (threads != null && threads < 1) {
             throw new BadInputException("option --threads: expected a positive integer, got " + threads);
         }
     }
 
+    /**
+     * Refuses a prior on a jitter without --posterior --jitter.
+     *
+     * @throws BadInputException naming the prior
+     */
+    void checkPriors(Priors priors) {
+        PosteriorSampler.checkPriors(priors, posterior && jitter);
+    }
+
     SamplerSettings settings(int freeCount) {
         int w = walkers != null ? walkers : SamplerSettings.defaultWalkers(freeCount);
         int t = threads != null ? threads : Runtime.getRuntime().availableProcessors();
-        return SamplerSettings.of(w, maxSteps != null ? maxSteps : 20_000, seed != null ? seed : 1, t);
+        return SamplerSettings.of(w, maxSteps != null ? maxSteps : 20_000, seed(), t);
+    }
+
+    /** The seed given, or the default 1. */
+    long seed() {
+        return seed != null ? seed : DEFAULT_SEED;
     }
 
     /**
@@ -97,7 +137,7 @@ final class PosteriorOptions {
         Posterior p;
         ProgressBar bar = System.console() != null ? new ProgressBar(err) : null;
         try {
-            p = PosteriorSampler.sample(problem, best, settings(freeCount),
+            p = PosteriorSampler.sample(problem, best, settings(freeCount), jitter,
                     bar == null ? SamplingProgress.NONE : bar, stop::get);
         } finally {
             if (bar != null) {

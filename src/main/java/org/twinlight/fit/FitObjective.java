@@ -102,6 +102,11 @@ public final class FitObjective {
         return lightCurves;
     }
 
+    /** The radial velocities of a joint fit, or null. */
+    VelocityResiduals velocities() {
+        return velocities;
+    }
+
     /** Whether some data's errors were estimated from their scatter (light curves or velocities). */
     boolean errorsEstimated() {
         return lightCurves.errorsEstimated() || velocities != null && velocities.errorsEstimated();

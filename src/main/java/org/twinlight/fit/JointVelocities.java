@@ -351,6 +351,11 @@ public final class JointVelocities {
         return a;
     }
 
+    /** The base name of velocity file {@code file} (no directory, no extension), for labels. */
+    String fileLabel(int file) {
+        return baseName(files.get(file).source());
+    }
+
     private static String baseName(String source) {
         String n = source.substring(Math.max(source.lastIndexOf('/'), source.lastIndexOf('\\')) + 1);
         int dot = n.lastIndexOf('.');

@@ -41,7 +41,23 @@ public final class PosteriorSampler {
      */
     public static Posterior sample(FitProblem problem, FitResult best, SamplerSettings settings,
             SamplingProgress progress, BooleanSupplier stop) {
+        return sample(problem, best, settings, false, progress, stop);
+    }
+
+    /**
+     * Samples the posterior of a solved fit, with or without jitter terms ({@link JitterTerms}: one
+     * per light-curve band and velocity file, the errors then taken as stated instead of scaled by
+     * the fit's reduced χ²).
+     *
+     * @param jitter whether to sample the jitter terms
+     * @throws BadInputException as {@link #sample(FitProblem, FitResult, SamplerSettings,
+     *     SamplingProgress, BooleanSupplier)}, and for a prior on a jitter without {@code jitter}
+     */
+    public static Posterior sample(FitProblem problem, FitResult best, SamplerSettings settings, boolean jitter,
+            SamplingProgress progress, BooleanSupplier stop) {
         FitObjective objective = problem.objective().withClippingOf(best);
+        JitterTerms.checkPriors(objective.priors(), jitter);
+        JitterTerms jitterTerms = jitter ? JitterTerms.of(objective) : JitterTerms.none();
         ParameterLayout layout = objective.layout();
         double[] ext = best.parameters().stream().mapToDouble(Estimate::value).toArray();
         long midCycle = Math.round((objective.lightCurves().midTime() - ext[ParameterLayout.EPOCH]) / ext[ParameterLayout.PERIOD]);
@@ -51,18 +67,43 @@ public final class PosteriorSampler {
             throw new BadInputException("the least-squares values put " + outside + ", where the posterior's prior is "
                     + "zero; fix those parameters or start the fit from physical values");
         }
-        double chi2Scale = best.reducedChi2() > 0 ? best.reducedChi2() : 1;
+        // with jitter terms the errors are as stated: the jitter takes the place of the χ²ν scaling
+        double chi2Scale = jitter || !(best.reducedChi2() > 0) ? 1 : best.reducedChi2();
         FitObjective target = objective;
-        double[][] start = startBall(layout, coords, best, ext, settings,
-                new PosteriorDensity(target, coords, chi2Scale));
-        EnsembleSampler.Result run = EnsembleSampler.sample(() -> new PosteriorDensity(target, coords, chi2Scale),
-                start, settings, progress, stop);
-        return summarise(run, layout, coords, best, midCycle, settings);
+        double[][] start = startBall(layout, coords, jitterTerms, best, ext, settings,
+                new PosteriorDensity(target, coords, chi2Scale, jitterTerms));
+        EnsembleSampler.Result run = EnsembleSampler.sample(
+                () -> new PosteriorDensity(target, coords, chi2Scale, jitterTerms), start, settings, progress, stop);
+        return summarise(run, layout, coords, jitterTerms, best, midCycle, settings);
+    }
+
+    /**
+     * Refuses a prior on a jitter ({@code jitter}, {@code jitterVelocity}, with or without
+     * {@code @NAME}) when the posterior is sampled without jitter terms (or not at all).
+     *
+     * @throws BadInputException naming the prior
+     */
+    public static void checkPriors(Priors priors, boolean jitter) {
+        JitterTerms.checkPriors(priors, jitter);
+    }
+
+    /** Number of sampled coordinates: the free parameters, and with {@code jitter} one per band and velocity file. */
+    public static int dimension(FitProblem problem, boolean jitter) {
+        FitObjective objective = problem.objective();
+        int free = (int) objective.parameters().stream().filter(FitParameter::free).count();
+        return free + (jitter ? JitterTerms.of(objective).size() : 0);
     }
 
     /** Walkers around the optimum, each redrawn until the posterior is positive there. */
-    private static double[][] startBall(ParameterLayout layout, SampledCoordinates coords, FitResult best, double[] ext,
-            SamplerSettings settings, PosteriorDensity density) {
+    private static double[][] startBall(ParameterLayout layout, SampledCoordinates coords, JitterTerms jitter,
+            FitResult best, double[] ext, SamplerSettings settings, PosteriorDensity density) {
+        // a jitter starts where it would bring χ²ν to 1, at least a tenth of the median error
+        double excess = Math.sqrt(Math.max(best.reducedChi2() - 1, 0.01));
+        double[] lnJitter = new double[jitter.size()];
+        for (int k = 0; k < lnJitter.length; k++) {
+            JitterTerms.Term t = jitter.terms().get(k);
+            lnJitter[k] = Math.log(t.start(excess * t.medianError()));
+        }
         SplittableRandom rng = new SplittableRandom(settings.seed()).split().split();
         double[][] start = new double[settings.walkers()][];
         for (int w = 0; w < start.length; w++) {
@@ -83,7 +124,10 @@ public final class PosteriorSampler {
                         trial[i] = fold(p, ext[i] + START_BALL * sigma * gaussian(rng));
                     }
                 }
-                double[] u = coords.toSampled(trial);
+                double[] u = java.util.Arrays.copyOf(coords.toSampled(trial), coords.size() + lnJitter.length);
+                for (int k = 0; k < lnJitter.length; k++) {
+                    u[coords.size() + k] = lnJitter[k] + START_BALL * gaussian(rng);
+                }
                 if (density.at(u) > Double.NEGATIVE_INFINITY) {
                     start[w] = u;
                 }
@@ -109,7 +153,7 @@ public final class PosteriorSampler {
     }
 
     private static Posterior summarise(EnsembleSampler.Result run, ParameterLayout layout, SampledCoordinates coords,
-            FitResult best, long midCycle, SamplerSettings settings) {
+            JitterTerms jitter, FitResult best, long midCycle, SamplerSettings settings) {
         Chain chain = run.chain();
         boolean multiBand = layout.bands().size() > 1;
         List<String> names = new ArrayList<>();
@@ -123,6 +167,12 @@ public final class PosteriorSampler {
                 edges.add(new double[] {p.edge() == FitParameter.Edge.LOWER ? p.lower() : Double.NaN,
                     p.edge() == FitParameter.Edge.UPPER ? p.upper() : Double.NaN});
             }
+        }
+        // a jitter: column −(k + 1), s = exp of its sampled ln s; s = 0 is its reachable edge
+        for (int k = 0; k < jitter.size(); k++) {
+            names.add(jitter.terms().get(k).label());
+            columns.add(-(k + 1));
+            edges.add(new double[] {0, Double.NaN});
         }
         int parameterCount = names.size();
         boolean inclinationFree = layout.isFree(ParameterLayout.INCLINATION);
@@ -145,11 +195,13 @@ public final class PosteriorSampler {
         double[] ext = new double[layout.externalSize()];
         for (int t = 0; t < steps; t++) {
             for (int w = 0; w < walkers; w++) {
-                coords.toExternal(chain.position(t, w), ext);
+                double[] u = chain.position(t, w);
+                coords.toExternal(u, ext);
                 double[] all = EclipseFitter.Reported.at(layout, ext, 0, midCycle).values();
                 double[] row = new double[columns.size()];
                 for (int c = 0; c < row.length; c++) {
-                    row[c] = all[columns.get(c)];
+                    int col = columns.get(c);
+                    row[c] = col >= 0 ? all[col] : Math.exp(u[coords.size() - col - 1]);
                 }
                 values[t * walkers + w] = row;
                 logp[t * walkers + w] = chain.logDensity(t, w);
@@ -171,8 +223,16 @@ public final class PosteriorSampler {
             marginals.add(Marginal.of(flat, tau, edges.get(c)[0], edges.get(c)[1]));
         }
         List<String> notes = new ArrayList<>();
-        notes.add(String.format(Locale.ROOT, "the likelihood uses the errors scaled by the least-squares reduced "
-                + "chi-square (%.3f), the same rule as the covariance uncertainties", best.reducedChi2()));
+        if (jitter.size() == 0) {
+            notes.add(String.format(Locale.ROOT, "the likelihood uses the errors scaled by the least-squares reduced "
+                    + "chi-square (%.3f), the same rule as the covariance uncertainties", best.reducedChi2()));
+        } else {
+            notes.add("the likelihood uses the errors as stated with a sampled jitter added in quadrature ("
+                    + String.join(", ", jitter.terms().stream().map(JitterTerms.Term::label).toList())
+                    + ", in the units of the data: flux relative to the out-of-eclipse level, km/s), not the "
+                    + "least-squares error scaling; the default prior of each jitter is log-uniform from "
+                    + JitterTerms.LOWER_FACTOR + " to " + (int) JitterTerms.UPPER_FACTOR + " times the median stated error");
+        }
         return new Posterior(List.copyOf(names), parameterCount, walkers, values, logp, List.copyOf(marginals),
                 run.convergence(), settings.seed(), List.copyOf(notes));
     }

@@ -48,6 +48,10 @@ final class PriorTerms {
         double[] start = layout.startExternal();
         for (var e : priors.byName().entrySet()) {
             String name = e.getKey();
+            if (JitterTerms.isJitterName(name)) {
+                // a jitter is no parameter of the model: the sampler's JitterTerms take its prior
+                continue;
+            }
             Prior prior = e.getValue();
             String key = (priors.source().isEmpty() ? "" : priors.source() + ": ") + "key 'priors." + name + "': ";
             String base = Priors.baseName(name);

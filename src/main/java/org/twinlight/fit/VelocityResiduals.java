@@ -59,6 +59,43 @@ final class VelocityResiduals implements FitDataSet {
         return logNormalisation;
     }
 
+    /** Number of velocity files (each may have its own jitter). */
+    int fileCount() {
+        return velocities.files().size();
+    }
+
+    /** The name of file {@code f} for labels: its base name. */
+    String fileLabel(int f) {
+        return velocities.fileLabel(f);
+    }
+
+    /** The median error of file {@code f}'s measurements, both stars, km/s. */
+    double medianErrorKms(int f) {
+        double[] e1 = velocities.errorsKms(f, 1);
+        double[] e2 = velocities.errorsKms(f, 2);
+        double[] all = Arrays.copyOf(e1, e1.length + e2.length);
+        System.arraycopy(e2, 0, all, e1.length, e2.length);
+        return org.twinlight.photometry.RobustStatistics.median(all);
+    }
+
+    /**
+     * ln L of every measurement with a jitter s per file ({@code jitterKms}) added in quadrature to
+     * both stars' errors: {@link VelocityModel#logLikelihood}.
+     */
+    double logLikelihood(double[] ext, double[] jitterKms) {
+        double[] values = Arrays.copyOfRange(ext, base, ext.length);
+        double s = 0;
+        for (int f = 0; f < velocities.files().size(); f++) {
+            VelocityParameters p = velocities.parameters(f, ext[ParameterLayout.PERIOD], ext[ParameterLayout.EPOCH],
+                    ext[ParameterLayout.ECCENTRICITY], ext[ParameterLayout.OMEGA], values);
+            VelocityParameters withJitter = new VelocityParameters(p.periodDays(), p.epochDays(), p.eccentricity(),
+                    p.omegaDeg(), p.k1Kms(), p.k2Kms(), p.gammaKms(), p.offsetsKms(), jitterKms[f], jitterKms[f]);
+            s += VelocityModel.logLikelihood(velocities.files().get(f), withJitter, velocities.errorsKms(f, 1),
+                    velocities.errorsKms(f, 2));
+        }
+        return s;
+    }
+
     boolean errorsEstimated() {
         return velocities.errorsEstimated();
     }

@@ -130,7 +130,7 @@ final class WeightedResiduals implements FitDataSet {
         }
         int off = offset;
         for (Prepared p : sets) {
-            p.weightedResiduals(models[p.band].flux(p.t), out, off, null);
+            p.weightedResiduals(models[p.band].flux(p.t), out, off, null, 0);
             off += p.t.length;
         }
     }
@@ -140,6 +140,21 @@ final class WeightedResiduals implements FitDataSet {
      * (one per thread, from {@link #workspace()}): no allocation per point.
      */
     double chi2External(double[] ext, Workspace work) {
+        return sum(ext, work, null);
+    }
+
+    /**
+     * ln L of the used points with a jitter term: −½ Σ [r²/(σ² + s²) + ln(σ² + s²) + ln 2π], s
+     * the jitter of each light curve's band ({@code jitterByBand}, in the units of the flux, in the
+     * order of the layout's bands), the baselines solved with the weights 1/(σ² + s²). Work arrays
+     * as {@link #chi2External(double[], Workspace)}.
+     */
+    double logLikelihood(double[] ext, Workspace work, double[] jitterByBand) {
+        return sum(ext, work, jitterByBand);
+    }
+
+    /** χ² without a jitter ({@code jitterByBand} null), ln L with one. */
+    private double sum(double[] ext, Workspace work, double[] jitterByBand) {
         double s = 0;
         for (int b = 0; b < layout.bands().size(); b++) {
             work.models[b] = new BinaryModel(layout.parameters(ext, b));
@@ -148,9 +163,31 @@ final class WeightedResiduals implements FitDataSet {
             Prepared p = sets.get(k);
             double[] m = work.flux[k];
             work.models[p.band].flux(p.t, m);
-            s += p.chi2(m, work.residuals[k]);
+            if (jitterByBand == null) {
+                s += p.chi2(m, work.residuals[k], 0);
+            } else {
+                double s2 = jitterByBand[p.band] * jitterByBand[p.band];
+                s += -0.5 * p.chi2(m, work.residuals[k], s2) + p.logVarianceTerm(s2) - p.usedCount * LN_SQRT_2PI;
+            }
         }
         return s;
+    }
+
+    /** The median stated (or estimated) error of the used points of each band, in the order of the layout's bands. */
+    double[] medianErrorByBand() {
+        double[] out = new double[layout.bands().size()];
+        for (int b = 0; b < out.length; b++) {
+            List<Double> e = new ArrayList<>();
+            for (Prepared p : sets) {
+                for (int i = 0; p.band == b && i < p.t.length; i++) {
+                    if (p.used[i]) {
+                        e.add(p.sigma[i]);
+                    }
+                }
+            }
+            out[b] = RobustStatistics.median(e.stream().mapToDouble(Double::doubleValue).toArray());
+        }
+        return out;
     }
 
     /** Work arrays for {@link #chi2External(double[], Workspace)}; one thread at a time. */
@@ -175,7 +212,7 @@ final class WeightedResiduals implements FitDataSet {
             BinaryModel model = new BinaryModel(layout.parameters(ext, p.band));
             double[] m = model.flux(p.t);
             Baselines kept = new Baselines(new double[p.segmentCount()][], new double[p.t.length]);
-            p.weightedResiduals(m, new double[p.t.length], 0, kept);
+            p.weightedResiduals(m, new double[p.t.length], 0, kept, 0);
             double[] flux = new double[p.t.length];
             double[] err = new double[p.t.length];
             boolean[] clipped = new boolean[p.t.length];
@@ -304,12 +341,13 @@ final class WeightedResiduals implements FitDataSet {
          * χ² of the used points with the baselines solved, as {@link #weightedResiduals} would give
          * it; without a baseline or with an offset per segment the normal equation is one number
          * (c = Σ w m y / Σ w m², w = 1/σ²) and no residual is stored. {@code scratch} (the length
-         * of the curve) serves the polynomial baselines.
+         * of the curve) serves the polynomial baselines. {@code jitter2} (s², 0 for none) is added
+         * to every σ², weights and baselines included.
          */
-        double chi2(double[] model, double[] scratch) {
+        double chi2(double[] model, double[] scratch, double jitter2) {
             double s = 0;
             if (degree > 0 || airmassDeviation != null) {
-                weightedResiduals(model, scratch, 0, null);
+                weightedResiduals(model, scratch, 0, null, jitter2);
                 for (double v : scratch) {
                     s += v * v;
                 }
@@ -323,7 +361,7 @@ final class WeightedResiduals implements FitDataSet {
                     double mm = 0;
                     double my = 0;
                     for (int i = a; i < b; i++) {
-                        double wm = weight[i] * model[i];
+                        double wm = weight(i, jitter2) * model[i];
                         mm += wm * model[i];
                         my += wm * y[i];
                     }
@@ -332,10 +370,26 @@ final class WeightedResiduals implements FitDataSet {
                 }
                 for (int i = a; i < b; i++) {
                     double r = y[i] - model[i] * c;
-                    s += weight[i] * r * r;
+                    s += weight(i, jitter2) * r * r;
                 }
             }
             return s;
+        }
+
+        /** 1/(σ² + s²) of point i, 0 when it is left out. */
+        private double weight(int i, double jitter2) {
+            return jitter2 == 0 ? weight[i] : used[i] ? 1 / (sigma[i] * sigma[i] + jitter2) : 0;
+        }
+
+        /** −½ Σ ln(σ² + s²) over the used points. */
+        double logVarianceTerm(double jitter2) {
+            double s = 0;
+            for (int i = 0; i < sigma.length; i++) {
+                if (used[i]) {
+                    s += Math.log(sigma[i] * sigma[i] + jitter2);
+                }
+            }
+            return -0.5 * s;
         }
 
         /** 1/σ² of the used points, 0 for those left out. */
@@ -356,11 +410,12 @@ final class WeightedResiduals implements FitDataSet {
         }
 
         /**
-         * Fills out[off..] with (y − model·baseline)/σ (0 for unused points), the baseline per
-         * segment solved by weighted linear least squares over the used points; {@code keep},
-         * when given, receives the coefficients and the baseline at every point.
+         * Fills out[off..] with (y − model·baseline)/√(σ² + s²) (0 for unused points, s² =
+         * {@code jitter2}, 0 without a jitter term), the baseline per segment solved by weighted linear
+         * least squares over the used points; {@code keep}, when given, receives the coefficients and
+         * the baseline at every point.
          */
-        void weightedResiduals(double[] model, double[] out, int off, Baselines keep) {
+        void weightedResiduals(double[] model, double[] out, int off, Baselines keep, double jitter2) {
             int nc = degree + 1;
             // the columns: 1, τ, τ², ... up to the degree, then the airmass deviation when there is one
             int nb = nc + (airmassDeviation != null ? 1 : 0);
@@ -378,7 +433,7 @@ final class WeightedResiduals implements FitDataSet {
                         if (!used[i]) {
                             continue;
                         }
-                        double w = 1 / (sigma[i] * sigma[i]);
+                        double w = 1 / (sigma[i] * sigma[i] + jitter2);
                         double mm = model[i] * model[i] * w;
                         double my = model[i] * y[i] * w;
                         basis(i, nc, basis);
@@ -397,7 +452,8 @@ final class WeightedResiduals implements FitDataSet {
                     if (poly != c) {
                         base += c[nc] * airmassDeviation[i];
                     }
-                    out[off + i] = used[i] ? (y[i] - model[i] * base) / sigma[i] : 0.0;
+                    double sd = jitter2 == 0 ? sigma[i] : Math.sqrt(sigma[i] * sigma[i] + jitter2);
+                    out[off + i] = used[i] ? (y[i] - model[i] * base) / sd : 0.0;
                     if (keep != null) {
                         keep.values[i] = base;
                     }

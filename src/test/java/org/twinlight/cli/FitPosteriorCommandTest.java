@@ -107,4 +107,58 @@ class FitPosteriorCommandTest {
         assertThat(prior.err()).contains("prior.json").contains("priors.radius2").contains("outside the uniform prior");
         assertThat(out.resolve("fit.json")).doesNotExist();
     }
+
+    @Test
+    void jitterIsSampledWrittenAndItsBadUsesRefused() throws Exception {
+        Path csv = simulated();
+        Path out = dir.resolve("jitter");
+        Run r = run("fit", csv.toString(), "--model", write("j.json", MODEL).toString(), "--free", "radius2",
+                "--posterior", "--jitter", "--max-steps", "100", "--seed", "6", "--threads", "1", "--out",
+                out.toString());
+        assertThat(r.code()).as(r.err()).isIn(0, 1);
+        JsonNode json = new ObjectMapper().readTree(out.resolve("fit.json").toFile());
+        assertThat(json.at("/posterior/jitter/median").isNumber()).isTrue();
+        assertThat(json.at("/settings/jitter").asBoolean()).isTrue();
+        assertThat(json.at("/settings/seed").asLong()).isEqualTo(6);
+        assertThat(json.at("/convergence/notes").toString()).contains("jitter");
+        try (BufferedReader in = new BufferedReader(new InputStreamReader(new GZIPInputStream(
+                Files.newInputStream(out.resolve("chain.csv.gz"))), StandardCharsets.UTF_8))) {
+            assertThat(in.readLine()).startsWith("step,walker,logPosterior,radius2,jitter,");
+        }
+        Path bad = dir.resolve("bad");
+        Run noPosterior = run("fit", csv.toString(), "--model", write("j2.json", MODEL).toString(), "--jitter",
+                "--out", bad.toString());
+        assertThat(noPosterior.code()).isEqualTo(2);
+        assertThat(noPosterior.err()).contains("--jitter").contains("--posterior");
+        Run withBeta = run("fit", csv.toString(), "--model", write("j3.json", MODEL).toString(), "--posterior",
+                "--jitter", "--inflate-errors", "beta", "--out", bad.toString());
+        assertThat(withBeta.code()).isEqualTo(2);
+        assertThat(withBeta.err()).contains("--inflate-errors");
+        Path p = write("jprior.json", MODEL.replace("\"period\"", "\"priors\": {\"jitter\": {\"uniform\": [0, 0.01]}},\n  \"period\""));
+        Run prior = run("fit", csv.toString(), "--model", p.toString(), "--posterior", "--out", bad.toString());
+        assertThat(prior.code()).as(prior.err()).isEqualTo(2);
+        assertThat(prior.err()).contains("jprior.json").contains("priors.jitter").contains("--jitter");
+        Path n = write("jneg.json", MODEL.replace("\"period\"", "\"priors\": {\"jitter\": {\"uniform\": [-0.01, -0.001]}},\n  \"period\""));
+        Run negative = run("fit", csv.toString(), "--model", n.toString(), "--posterior", "--jitter", "--out",
+                bad.toString());
+        assertThat(negative.code()).as(negative.err()).isEqualTo(2);
+        assertThat(negative.err()).contains("priors.jitter").contains("positive");
+        assertThat(bad.resolve("fit.json")).doesNotExist();
+    }
+
+    @Test
+    void seedDrivesTheGlobalSearchAndIsRecorded() throws Exception {
+        Path csv = simulated();
+        JsonNode[] runs = new JsonNode[2];
+        for (int k = 0; k < 2; k++) {
+            Path out = dir.resolve("global" + k);
+            Run r = run("fit", csv.toString(), "--model", write("g" + k + ".json", MODEL).toString(), "--free",
+                    "radius1,radius2,inclination", "--global", "--seed", "11", "--out", out.toString());
+            assertThat(r.code()).as(r.err()).isZero();
+            runs[k] = new ObjectMapper().readTree(out.resolve("fit.json").toFile());
+        }
+        assertThat(runs[0].at("/settings/seed").asLong()).isEqualTo(11);
+        assertThat(runs[1].get("parameters")).isEqualTo(runs[0].get("parameters"));
+        assertThat(runs[1].get("minima")).isEqualTo(runs[0].get("minima"));
+    }
 }

@@ -146,4 +146,20 @@ class JointFitCommandTest {
         assertThat(json.path("posterior").has("k1")).as(json.path("posterior").toString()).isTrue();
         assertThat(json.path("posterior").path("k1").path("median").asDouble()).isBetween(K1 - 5, K1 + 5);
     }
+
+    @Test
+    void jointFitWithJitterSamplesOnePerBandAndVelocityFile() throws Exception {
+        Path[] in = lightCurveAndStart();
+        Path rv = velocities("rv.csv", "BJD_TDB", true);
+        Path out = dir.resolve("joint-jitter");
+        Run fit = run("fit", in[0].toString(), "--model", in[1].toString(), "--free", "radius1,radius2,inclination",
+                "--velocities", rv.toString(), "--posterior", "--jitter", "--max-steps", "60", "--out", out.toString());
+        assertThat(fit.err()).doesNotContain("internal error");
+        assertThat(fit.code()).as(fit.err()).isIn(0, 1);
+        JsonNode post = new ObjectMapper().readTree(out.resolve("fit.json").toFile()).path("posterior");
+        assertThat(post.has("jitter")).as(post.toString()).isTrue();
+        // the velocity errors are 1.5 and 2.0 km/s: the default prior spans 0.001 to 100 times their median
+        assertThat(post.path("jitterVelocity").path("median").asDouble()).isBetween(0.00175, 175.0);
+        assertThat(post.path("k1").path("median").asDouble()).isBetween(K1 - 5, K1 + 5);
+    }
 }

@@ -99,6 +99,14 @@ public final class CalibrationRuns {
 
     /** Eleven nights of 8 h at a 3-minute cadence (about 1,750 points, three or four eclipses of each kind). */
     public static LightCurve observe(Geometry g, Noise noise, long seed) {
+        return observe(g, noise, seed, 1);
+    }
+
+    /**
+     * As {@link #observe(Geometry, Noise, long)}, the errors stated {@code statedErrorFactor} times
+     * the white noise's true σ (0.5: stated 2× too small).
+     */
+    public static LightCurve observe(Geometry g, Noise noise, long seed, double statedErrorFactor) {
         double[] t = SyntheticLightCurve.regularTimes(2460000.0, 2460011.0, 3.0, List.of(), new double[] {0.33, 0.67});
         double[] f = new BinaryModel(g.truth()).flux(t);
         double[] e = new double[t.length];
@@ -113,17 +121,22 @@ public final class CalibrationRuns {
             }
             f[i] += white * random.nextGaussian() + (red > 0 ? r : 0);
             // the errors state the white part only, as a photometric pipeline would
-            e[i] = white;
+            e[i] = white * statedErrorFactor;
         }
         return new LightCurve("calibration-" + seed, "V", TimeScale.BJD_TDB, ValueKind.FLUX, t, f, e, Map.of());
     }
 
     /** The fit problem of one synthetic curve, started near the truth. */
     public static FitProblem problem(Geometry g, Noise noise, long seed) {
+        return problem(g, noise, seed, 1);
+    }
+
+    /** The fit problem of one synthetic curve with its errors stated {@code statedErrorFactor} × the true white σ. */
+    public static FitProblem problem(Geometry g, Noise noise, long seed, double statedErrorFactor) {
         BinaryParameters truth = g.truth();
         ModelFile start = ModelFile.of(truth.withRadii(truth.radius1() * 1.02, truth.radius2() * 0.98)
                 .withInclinationDeg(Math.min(89.9, truth.inclinationDeg() - 0.2)).withEpochDays(truth.epochDays() + 0.0005));
-        return FitProblem.of(start, List.of(new FitData(observe(g, noise, seed), "V")),
+        return FitProblem.of(start, List.of(new FitData(observe(g, noise, seed, statedErrorFactor), "V")),
                 FitSettings.defaults().withFree(new LinkedHashSet<>(FREE)));
     }
 
