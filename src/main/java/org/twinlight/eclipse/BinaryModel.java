@@ -37,6 +37,8 @@ public final class BinaryModel {
     private final Orbit.Positions positions;
     private final double r1;
     private final double r2;
+    private final double inverseR1;
+    private final double inverseR2;
     private final double contactDistance;
     private final double contactPhaseHalfWidth;
     private final double weight1;
@@ -55,6 +57,8 @@ public final class BinaryModel {
         this.positions = p.orbit().positions();
         this.r1 = p.radius1();
         this.r2 = p.radius2();
+        this.inverseR1 = 1 / r1;
+        this.inverseR2 = 1 / r2;
         this.contactDistance = r1 + r2;
         Double delay = p.proximity().secondaryDelaySeconds(p.periodDays(), p.inclinationDeg());
         this.secondaryDelayDays = delay == null ? 0.0 : delay / AstronomicalConstants.SECONDS_PER_DAY;
@@ -275,9 +279,11 @@ public final class BinaryModel {
         if (ad < contactDistance) {
             if (d >= 0) {
                 // star 2 in front of star 1: primary eclipse
-                hidden1 = table1 != null ? table1.hiddenFraction(ad / r1) : Occultation.hiddenFraction(ld1, r2 / r1, ad / r1);
+                double z = ad * inverseR1;
+                hidden1 = table1 != null ? table1.hiddenFraction(z) : Occultation.hiddenFraction(ld1, r2 / r1, z);
             } else {
-                hidden2 = table2 != null ? table2.hiddenFraction(ad / r2) : Occultation.hiddenFraction(ld2, r1 / r2, ad / r2);
+                double z = ad * inverseR2;
+                hidden2 = table2 != null ? table2.hiddenFraction(z) : Occultation.hiddenFraction(ld2, r1 / r2, z);
             }
         }
         if (terms == null) {

@@ -55,6 +55,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
     /** Sky positions of the pair at given times, with the per-orbit constants computed once. */
     public static final class Positions {
         private final double periodDays;
+        private final double inversePeriod;
         private final double epochDays;
         private final double e;
         private final double sinOmega;
@@ -69,6 +70,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
 
         private Positions(Orbit o) {
             periodDays = o.periodDays;
+            inversePeriod = 1 / o.periodDays;
             epochDays = o.epochDays;
             e = o.eccentricity;
             double w = Math.toRadians(o.omegaDeg);
@@ -92,7 +94,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * in front.
          */
         public double signedSeparation(double timeDays) {
-            return separationAtCycles((timeDays - epochDays) / periodDays);
+            return separationAtCycles(cycles(timeDays));
         }
 
         /**
@@ -101,7 +103,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * once for both (the same numbers as calling the two).
          */
         public double separationNearConjunction(double timeDays, double phaseHalfWidth) {
-            double cycles = (timeDays - epochDays) / periodDays;
+            double cycles = cycles(timeDays);
             double f = cycles - Math.floor(cycles);
             if (circularDistance(f, 0) > phaseHalfWidth && circularDistance(f, secondaryPhase) > phaseHalfWidth) {
                 return Double.POSITIVE_INFINITY;
@@ -117,7 +119,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * window.
          */
         public double nextWindowStart(double timeDays, double phaseHalfWidth) {
-            double cycles = (timeDays - epochDays) / periodDays;
+            double cycles = cycles(timeDays);
             double n = Math.floor(cycles);
             double f = cycles - n;
             double start;
@@ -129,6 +131,11 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
                 return timeDays;
             }
             return Math.max(timeDays, epochDays + periodDays * (n + start - 1e-7));
+        }
+
+        /** (t − epoch) / period, by a product with the inverse period (the windows and separations all use it). */
+        private double cycles(double timeDays) {
+            return (timeDays - epochDays) * inversePeriod;
         }
 
         /** The signed separation at {@code cycles} = (t − epoch) / period. */
@@ -169,7 +176,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * for stars that are closer.
          */
         public boolean surelyApart(double timeDays, double phaseHalfWidth) {
-            double f = (timeDays - epochDays) / periodDays;
+            double f = cycles(timeDays);
             f -= Math.floor(f);
             return circularDistance(f, 0) > phaseHalfWidth && circularDistance(f, secondaryPhase) > phaseHalfWidth;
         }
