@@ -279,10 +279,10 @@ public final class BinaryModel {
         if (ad < contactDistance) {
             if (d >= 0) {
                 // star 2 in front of star 1: primary eclipse
-                double z = ad * inverseR1;
+                double z = ad / r1;
                 hidden1 = table1 != null ? table1.hiddenFraction(z) : Occultation.hiddenFraction(ld1, r2 / r1, z);
             } else {
-                double z = ad * inverseR2;
+                double z = ad / r2;
                 hidden2 = table2 != null ? table2.hiddenFraction(z) : Occultation.hiddenFraction(ld2, r1 / r2, z);
             }
         }
