@@ -251,8 +251,6 @@ final class WeightedResiduals implements FitDataSet {
         final int usedCount;
         /** Airmass minus its mean over the point's segment, one more baseline column; null without. */
         final double[] airmassDeviation;
-        /** Whether the times ascend (the model may then skip the times far from an eclipse). */
-        final boolean ascending;
         /**
          * Per segment, over the used points, {Σw, Σwy/Σw, Σw(y − ȳ)²} (w = 1/σ²), the sums of χ²
          * over the points whose model is exactly 1; null with a baseline of higher degree or an
@@ -300,7 +298,6 @@ final class WeightedResiduals implements FitDataSet {
             usedCount = n;
             weight = weights(sigma, used);
             airmassDeviation = airmassDeviation(lc.airmass(), segmentStart, degree);
-            ascending = ascending(t);
             outsideSums = outsideSums();
         }
 
@@ -349,26 +346,13 @@ final class WeightedResiduals implements FitDataSet {
             }
             usedCount = c;
             weight = weights(sigma, used);
-            ascending = base.ascending;
             outsideSums = outsideSums();
-        }
-
-        private static boolean ascending(double[] t) {
-            for (int i = 1; i < t.length; i++) {
-                if (!(t[i] >= t[i - 1])) {
-                    return false;
-                }
-            }
-            return true;
         }
 
         /** The model at this curve's times into {@code out}; the index ranges outside which it is exactly 1, or null. */
         int[] flux(BinaryModel model, double[] out) {
-            if (ascending) {
-                return model.fluxOfAscendingTimes(t, out);
-            }
-            model.flux(t, out);
-            return null;
+            // a light curve's times strictly increase (LightCurve refuses others)
+            return model.fluxOfAscendingTimes(t, out);
         }
 
         private double[][] outsideSums() {
