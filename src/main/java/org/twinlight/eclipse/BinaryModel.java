@@ -1,5 +1,6 @@
 package org.twinlight.eclipse;
 
+import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.twinlight.dimensions.AstronomicalConstants;
@@ -36,6 +37,8 @@ public final class BinaryModel {
     private final Orbit.Positions positions;
     private final double r1;
     private final double r2;
+    private final double inverseR1;
+    private final double inverseR2;
     private final double contactDistance;
     private final double contactPhaseHalfWidth;
     private final double weight1;
@@ -54,6 +57,8 @@ public final class BinaryModel {
         this.positions = p.orbit().positions();
         this.r1 = p.radius1();
         this.r2 = p.radius2();
+        this.inverseR1 = 1 / r1;
+        this.inverseR2 = 1 / r2;
         this.contactDistance = r1 + r2;
         Double delay = p.proximity().secondaryDelaySeconds(p.periodDays(), p.inclinationDeg());
         this.secondaryDelayDays = delay == null ? 0.0 : delay / AstronomicalConstants.SECONDS_PER_DAY;
@@ -138,6 +143,85 @@ public final class BinaryModel {
         }
     }
 
+    /**
+     * {@link #flux(double[], double[])} for times in ascending order (the caller's promise, not
+     * checked), the same numbers, faster: between the windows around the conjunctions no time is
+     * visited (the end of a gap is found by a search), and the second pass touches only the times
+     * in a window. Returns the index ranges of the times in a window, {a₀, b₀, a₁, b₁, ...} with
+     * aₖ &lt; bₖ ascending, outside which every flux is exactly 1; null when it does not know such
+     * ranges (exposure smearing or proximity effects: then it is {@link #flux(double[], double[])}).
+     */
+    public int[] fluxOfAscendingTimes(double[] timesDays, double[] out) {
+        if (subExposureOffsets.length != 1 || terms != null) {
+            flux(timesDays, out);
+            return null;
+        }
+        EclipseRanges ranges = new EclipseRanges();
+        int n = timesDays.length;
+        int[] runs = new int[16];
+        int runCount = 0;
+        int i = 0;
+        while (i < n) {
+            double d = eclipseSeparation(timesDays[i]);
+            if (d == Double.POSITIVE_INFINITY) {
+                int j = firstAtOrAfter(timesDays, i + 1, positions.nextWindowStart(timesDays[i], contactPhaseHalfWidth));
+                Arrays.fill(out, i, j, 1.0);
+                i = j;
+                continue;
+            }
+            int a = i;
+            while (d != Double.POSITIVE_INFINITY) {
+                ranges.add(d);
+                out[i] = d; // kept for the second pass
+                if (++i == n) {
+                    break;
+                }
+                d = eclipseSeparation(timesDays[i]);
+            }
+            if (runCount + 2 > runs.length) {
+                runs = Arrays.copyOf(runs, 2 * runs.length);
+            }
+            runs[runCount++] = a;
+            runs[runCount++] = i;
+        }
+        OccultationTable table1 = ranges.table(ld1, r2 / r1, r1, ranges.count1, ranges.min1, ranges.max1);
+        OccultationTable table2 = ranges.table(ld2, r1 / r2, r2, ranges.count2, ranges.min2, ranges.max2);
+        for (int k = 0; k < runCount; k += 2) {
+            for (int j = runs[k]; j < runs[k + 1]; j++) {
+                out[j] = instantaneousFlux(timesDays[j], out[j], table1, table2);
+            }
+        }
+        return Arrays.copyOf(runs, runCount);
+    }
+
+    /** The first index ≥ {@code from} whose time is ≥ {@code limit} (n if none), times ascending: a galloping search. */
+    private static int firstAtOrAfter(double[] t, int from, double limit) {
+        int n = t.length;
+        if (from >= n || t[from] >= limit) {
+            return Math.min(from, n);
+        }
+        // t[lo] < limit; widen the step until t[hi] ≥ limit or the end
+        int lo = from;
+        int step = 1;
+        int hi = from + 1;
+        while (hi < n && t[hi] < limit) {
+            lo = hi;
+            step <<= 1;
+            hi = lo + step;
+        }
+        hi = Math.min(hi, n);
+        // t[lo] < limit ≤ t[hi] (hi = n: past the end)
+        while (hi - lo > 1) {
+            int mid = (lo + hi) >>> 1;
+            if (t[mid] < limit) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return hi;
+    }
+
     /** How many separations of one call fall in each eclipse, and their range. */
     private final class EclipseRanges {
         int count1;
@@ -195,9 +279,11 @@ public final class BinaryModel {
         if (ad < contactDistance) {
             if (d >= 0) {
                 // star 2 in front of star 1: primary eclipse
-                hidden1 = table1 != null ? table1.hiddenFraction(ad / r1) : Occultation.hiddenFraction(ld1, r2 / r1, ad / r1);
+                double z = ad / r1;
+                hidden1 = table1 != null ? table1.hiddenFraction(z) : Occultation.hiddenFraction(ld1, r2 / r1, z);
             } else {
-                hidden2 = table2 != null ? table2.hiddenFraction(ad / r2) : Occultation.hiddenFraction(ld2, r1 / r2, ad / r2);
+                double z = ad / r2;
+                hidden2 = table2 != null ? table2.hiddenFraction(z) : Occultation.hiddenFraction(ld2, r1 / r2, z);
             }
         }
         if (terms == null) {

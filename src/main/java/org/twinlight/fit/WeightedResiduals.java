@@ -130,7 +130,9 @@ final class WeightedResiduals implements FitDataSet {
         }
         int off = offset;
         for (Prepared p : sets) {
-            p.weightedResiduals(models[p.band].flux(p.t), out, off, null, 0);
+            double[] m = new double[p.t.length];
+            p.flux(models[p.band], m);
+            p.weightedResiduals(m, out, off, null, 0);
             off += p.t.length;
         }
     }
@@ -162,9 +164,10 @@ final class WeightedResiduals implements FitDataSet {
         for (int k = 0; k < sets.size(); k++) {
             Prepared p = sets.get(k);
             double[] m = work.flux[k];
-            work.models[p.band].flux(p.t, m);
+            int[] windows = p.flux(work.models[p.band], m);
             if (jitterByBand == null) {
-                s += p.chi2(m, work.residuals[k], 0);
+                s += windows != null && p.outsideSums != null ? p.chi2InWindows(m, windows)
+                        : p.chi2(m, work.residuals[k], 0);
             } else {
                 double s2 = jitterByBand[p.band] * jitterByBand[p.band];
                 s += -0.5 * p.chi2(m, work.residuals[k], s2) + p.logVarianceTerm(s2) - p.usedCount * LN_SQRT_2PI;
@@ -210,7 +213,8 @@ final class WeightedResiduals implements FitDataSet {
         List<FittedCurve> out = new ArrayList<>();
         for (Prepared p : sets) {
             BinaryModel model = new BinaryModel(layout.parameters(ext, p.band));
-            double[] m = model.flux(p.t);
+            double[] m = new double[p.t.length];
+            p.flux(model, m);
             Baselines kept = new Baselines(new double[p.segmentCount()][], new double[p.t.length]);
             p.weightedResiduals(m, new double[p.t.length], 0, kept, 0);
             double[] flux = new double[p.t.length];
@@ -247,6 +251,12 @@ final class WeightedResiduals implements FitDataSet {
         final int usedCount;
         /** Airmass minus its mean over the point's segment, one more baseline column; null without. */
         final double[] airmassDeviation;
+        /**
+         * Per segment, over the used points, {Σw, Σwy/Σw, Σw(y − ȳ)²} (w = 1/σ²), the sums of χ²
+         * over the points whose model is exactly 1; null with a baseline of higher degree or an
+         * airmass term.
+         */
+        final double[][] outsideSums;
 
         Prepared(FitData d, int band, double gapDays, int degree) {
             LightCurve lc = d.lightCurve();
@@ -288,6 +298,7 @@ final class WeightedResiduals implements FitDataSet {
             usedCount = n;
             weight = weights(sigma, used);
             airmassDeviation = airmassDeviation(lc.airmass(), segmentStart, degree);
+            outsideSums = outsideSums();
         }
 
         /**
@@ -335,6 +346,79 @@ final class WeightedResiduals implements FitDataSet {
             }
             usedCount = c;
             weight = weights(sigma, used);
+            outsideSums = outsideSums();
+        }
+
+        /** The model at this curve's times into {@code out}; the index ranges outside which it is exactly 1, or null. */
+        int[] flux(BinaryModel model, double[] out) {
+            // a light curve's times strictly increase (LightCurve refuses others)
+            return model.fluxOfAscendingTimes(t, out);
+        }
+
+        private double[][] outsideSums() {
+            if (degree > 0 || airmassDeviation != null) {
+                return null;
+            }
+            double[][] sums = new double[segmentCount()][];
+            for (int g = 0; g < sums.length; g++) {
+                double w = 0;
+                double wy = 0;
+                for (int i = segmentStart[g]; i < segmentStart[g + 1]; i++) {
+                    w += weight[i];
+                    wy += weight[i] * y[i];
+                }
+                double mean = w > 0 ? wy / w : 0;
+                double spread = 0;
+                for (int i = segmentStart[g]; i < segmentStart[g + 1]; i++) {
+                    spread += weight[i] * (y[i] - mean) * (y[i] - mean);
+                }
+                sums[g] = new double[] {w, mean, spread};
+            }
+            return sums;
+        }
+
+        /**
+         * {@link #chi2(double[], double[], double)} without a jitter, for a model that is exactly 1
+         * outside the index ranges {@code windows} ({a₀, b₀, ...}, ascending): the points at 1 enter
+         * through the segment's sums, so only the points in the ranges are visited. With the
+         * segment's Σw = W, weighted mean ȳ, spread A = Σw(y − ȳ)² and c its baseline (1 without one):
+         * Σw(y − c m)² = A + W(ȳ − c)² + Σ_in w[(y − c m)² − (y − c)²], and c = Σwmy / Σwm² with
+         * Σwmy = Wȳ + Σ_in w(m − 1)y and Σwm² = W + Σ_in w(m² − 1) (every term of the size of χ²
+         * itself: no cancellation of large sums).
+         */
+        double chi2InWindows(double[] model, int[] windows) {
+            double s = 0;
+            int k = 0;
+            for (int g = 0; g + 1 < segmentStart.length; g++) {
+                int a = segmentStart[g];
+                int b = segmentStart[g + 1];
+                while (k < windows.length && windows[k + 1] <= a) {
+                    k += 2;
+                }
+                double[] sums = outsideSums[g];
+                double c = 1;
+                if (degree == 0) {
+                    double mm = sums[0];
+                    double my = sums[0] * sums[1];
+                    for (int r = k; r < windows.length && windows[r] < b; r += 2) {
+                        for (int i = Math.max(a, windows[r]), end = Math.min(b, windows[r + 1]); i < end; i++) {
+                            double wm = weight[i] * (model[i] - 1);
+                            mm += wm * (model[i] + 1);
+                            my += wm * y[i];
+                        }
+                    }
+                    // as solveSmall: no usable point leaves the baseline at 1
+                    c = mm != 0 ? my / mm : 1;
+                }
+                s += sums[2] + sums[0] * (sums[1] - c) * (sums[1] - c);
+                for (int r = k; r < windows.length && windows[r] < b; r += 2) {
+                    for (int i = Math.max(a, windows[r]), end = Math.min(b, windows[r + 1]); i < end; i++) {
+                        // (y − cm)² − (y − c)² = c(1 − m)(2y − c(1 + m))
+                        s += weight[i] * c * (1 - model[i]) * (2 * y[i] - c * (1 + model[i]));
+                    }
+                }
+            }
+            return s;
         }
 
         /**

@@ -55,6 +55,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
     /** Sky positions of the pair at given times, with the per-orbit constants computed once. */
     public static final class Positions {
         private final double periodDays;
+        private final double inversePeriod;
         private final double epochDays;
         private final double e;
         private final double sinOmega;
@@ -69,6 +70,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
 
         private Positions(Orbit o) {
             periodDays = o.periodDays;
+            inversePeriod = 1 / o.periodDays;
             epochDays = o.epochDays;
             e = o.eccentricity;
             double w = Math.toRadians(o.omegaDeg);
@@ -92,7 +94,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * in front.
          */
         public double signedSeparation(double timeDays) {
-            return separationAtCycles((timeDays - epochDays) / periodDays);
+            return separationAtCycles(cycles(timeDays));
         }
 
         /**
@@ -101,7 +103,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * once for both (the same numbers as calling the two).
          */
         public double separationNearConjunction(double timeDays, double phaseHalfWidth) {
-            double cycles = (timeDays - epochDays) / periodDays;
+            double cycles = cycles(timeDays);
             double f = cycles - Math.floor(cycles);
             if (circularDistance(f, 0) > phaseHalfWidth && circularDistance(f, secondaryPhase) > phaseHalfWidth) {
                 return Double.POSITIVE_INFINITY;
@@ -117,7 +119,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * window.
          */
         public double nextWindowStart(double timeDays, double phaseHalfWidth) {
-            double cycles = (timeDays - epochDays) / periodDays;
+            double cycles = cycles(timeDays);
             double n = Math.floor(cycles);
             double f = cycles - n;
             double start;
@@ -131,6 +133,11 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
             return Math.max(timeDays, epochDays + periodDays * (n + start - 1e-7));
         }
 
+        /** (t − epoch) / period, by a product with the inverse period (the windows and separations all use it). */
+        private double cycles(double timeDays) {
+            return (timeDays - epochDays) * inversePeriod;
+        }
+
         /** The signed separation at {@code cycles} = (t − epoch) / period. */
         private double separationAtCycles(double cycles) {
             if (e == 0) {
@@ -138,7 +145,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
                 // positive terms); with cycles = N/2 + g, |g| ≤ ¼, sin φ = ±sin 2πg and cos φ has the sign
                 // (−1)^N, so one sine of a reduced angle suffices
                 double halfTurns = Math.rint(2 * cycles);
-                double s = Math.sin(2 * Math.PI * (cycles - 0.5 * halfTurns));
+                double s = sinOfReducedAngle(2 * Math.PI * (cycles - 0.5 * halfTurns));
                 double d = Math.sqrt(cos2i + sin2i * s * s);
                 return (((long) halfTurns) & 1) == 0 ? d : -d;
             }
@@ -169,7 +176,7 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
          * for stars that are closer.
          */
         public boolean surelyApart(double timeDays, double phaseHalfWidth) {
-            double f = (timeDays - epochDays) / periodDays;
+            double f = cycles(timeDays);
             f -= Math.floor(f);
             return circularDistance(f, 0) > phaseHalfWidth && circularDistance(f, secondaryPhase) > phaseHalfWidth;
         }
@@ -201,6 +208,26 @@ public record Orbit(double periodDays, double epochDays, double eccentricity, do
             }
             double dMean = Math.asin(sinDnu) * Math.pow(1 + e, 1.5) / Math.sqrt(1 - e);
             return Math.min(0.5, dMean / (2 * Math.PI) * (1 + 1e-9) + 1e-12);
+        }
+
+        /**
+         * sin x for |x| ≤ π/2: the Taylor series through x¹⁵ when |x| ≤ 0.6 (the angles near a
+         * conjunction; the first term left out, x¹⁷/17!, is below 5e-19 there, far below an ulp of
+         * sin x), {@link Math#sin} beyond.
+         */
+        static double sinOfReducedAngle(double x) {
+            if (!(Math.abs(x) <= 0.6)) {
+                return Math.sin(x);
+            }
+            double x2 = x * x;
+            double p = -1.0 / 1307674368000.0;
+            p = p * x2 + 1.0 / 6227020800.0;
+            p = p * x2 - 1.0 / 39916800.0;
+            p = p * x2 + 1.0 / 362880.0;
+            p = p * x2 - 1.0 / 5040.0;
+            p = p * x2 + 1.0 / 120.0;
+            p = p * x2 - 1.0 / 6.0;
+            return x + x * x2 * p;
         }
 
         private static double circularDistance(double a, double b) {

@@ -14,7 +14,7 @@ import org.twinlight.sampling.SamplingProgress;
 
 /**
  * The cost of one posterior evaluation in {@link PosteriorBench}'s case, in thread CPU time (so
- * that a loaded machine inflates it little): the model alone ({@link BinaryModel#flux(double[],
+ * that a loaded machine inflates it little): the model alone ({@link BinaryModel#fluxOfAscendingTimes(double[],
  * double[])} on the 20,000 times, a new model per call as in the sampler) and the whole log
  * posterior (a short one-thread sampler run, model plus χ² with its baseline, divided by its
  * evaluations). Run with
@@ -36,7 +36,7 @@ public final class PosteriorCostBench {
             long c0 = mx.getCurrentThreadCpuTime();
             for (int k = 0; k < calls; k++) {
                 // a slightly different model each call, as in a sampler
-                new BinaryModel(PosteriorBench.TRUTH.withInclinationDeg(81.0 + 1e-6 * k)).flux(t, out);
+                new BinaryModel(PosteriorBench.TRUTH.withInclinationDeg(81.0 + 1e-6 * k)).fluxOfAscendingTimes(t, out);
                 sink += out[k % out.length];
             }
             System.out.printf(Locale.ROOT, "model: %.3f ms CPU per evaluation (%d points)%n",

@@ -95,6 +95,22 @@ class BinaryModelTest {
             for (int i = 0; i < t.length; i++) {
                 assertThat(backwards[t.length - 1 - i]).isEqualTo(many[i]);
             }
+            // the path for ascending times gives the same numbers, and exactly 1 outside the ranges it returns
+            double[] fast = new double[t.length];
+            int[] windows = m.fluxOfAscendingTimes(t, fast);
+            assertThat(fast).containsExactly(many);
+            if (windows != null) {
+                boolean[] inside = new boolean[t.length];
+                for (int k = 0; k < windows.length; k += 2) {
+                    assertThat(windows[k]).isLessThan(windows[k + 1]);
+                    java.util.Arrays.fill(inside, windows[k], windows[k + 1], true);
+                }
+                for (int i = 0; i < t.length; i++) {
+                    if (!inside[i]) {
+                        assertThat(fast[i]).as("t=%s", t[i]).isEqualTo(1.0);
+                    }
+                }
+            }
             int primary = 0;
             int secondary = 0;
             for (int i = 0; i < t.length; i++) {

@@ -84,6 +84,52 @@ class PosteriorSamplerTest {
     }
 
     @Test
+    void chiSquareFromSegmentSumsEqualsThePlainPassOverEveryPoint() {
+        // five segments (gaps of a day), points left out in and out of eclipse, errors that differ
+        // from point to point: the χ² that visits only the points near an eclipse must equal
+        // Σ((y − c m)/σ)² over every point (the residuals' own pass) to 1e-9
+        List<SyntheticLightCurve.Gap> gaps = List.of(new SyntheticLightCurve.Gap(2460100.9, 2460101.9),
+                new SyntheticLightCurve.Gap(2460102.6, 2460103.6), new SyntheticLightCurve.Gap(2460104.2, 2460105.2),
+                new SyntheticLightCurve.Gap(2460106.0, 2460107.0));
+        double[] t = SyntheticLightCurve.regularTimes(2460100.0, 2460108.5, 4, gaps, null);
+        LightCurve clean = SyntheticLightCurve.observe(new BinaryModel(PARTIAL), t, 1500, 9, "T", "T", TimeScale.BJD_TDB);
+        double[] err = new double[t.length];
+        for (int i = 0; i < err.length; i++) {
+            err[i] = 0.0015 * (1 + 0.5 * Math.sin(0.37 * i));
+        }
+        LightCurve lc = new LightCurve("T", "T", TimeScale.BJD_TDB, clean.originalKind(), t, clean.fluxes(), err,
+                Map.of());
+        for (Baseline b : new Baseline[] {Baseline.NONE, Baseline.OFFSET}) {
+            FitProblem p = FitProblem.of(ModelFile.of(PARTIAL.withRadii(0.195, 0.135).withInclinationDeg(80.6)),
+                    List.of(new FitData(lc, "T")), FitSettings.defaults().withBaseline(b)
+                            .withFree(new LinkedHashSet<>(List.of("radius1", "radius2", "inclination"))));
+            ParameterLayout layout = p.objective().layout();
+            WeightedResiduals w = new WeightedResiduals(layout, p.data(), p.settings());
+            boolean[] left = new boolean[t.length];
+            BinaryModel start = new BinaryModel(layout.parameters(layout.startExternal(), 0));
+            int leftInEclipse = 0;
+            for (int i = 0; i < t.length; i += 37) {
+                left[i] = true;
+                leftInEclipse += start.inEclipse(t[i]) ? 1 : 0;
+            }
+            assertThat(leftInEclipse).isPositive();
+            w = w.withLeftOut(List.of(left));
+            for (double di : new double[] {0, -0.4, 0.7}) {
+                double[] ext = layout.startExternal();
+                ext[layout.indexOf("inclination", null)] += di;
+                double[] all = new double[w.size()];
+                w.residuals(ext, all, 0);
+                double direct = 0;
+                for (double r : all) {
+                    direct += r * r;
+                }
+                double lean = w.chi2External(ext, w.workspace());
+                assertThat(lean).as("%s Δi=%s", b.label(), di).isCloseTo(direct, offset(1e-9 * direct));
+            }
+        }
+    }
+
+    @Test
     void partialEclipsePosteriorHoldsTheTruthsInItsIntervals() {
         FitProblem p = problem(PARTIAL.withEccentricityOmega(0, 90), List.of("radius1", "radius2", "inclination"), 3);
         FitResult best = EclipseFitter.optimize(p);
