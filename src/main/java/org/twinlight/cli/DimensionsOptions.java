@@ -1,5 +1,7 @@
 package org.twinlight.cli;
 
+import java.util.LinkedHashMap;
+import java.util.Map;
 import picocli.CommandLine.Option;
 
 /**
@@ -46,8 +48,8 @@ final class DimensionsOptions {
     }
 
     /** The options by their key in analyse's settings file (null where not given). */
-    java.util.Map<String, Object> settingsEntries() {
-        java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
+    Map<String, Object> settingsEntries() {
+        Map<String, Object> m = new LinkedHashMap<>();
         m.put("k1", k1);
         m.put("k1Error", k1Error);
         m.put("k2", k2);
